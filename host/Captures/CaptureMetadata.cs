@@ -1,0 +1,46 @@
+using FreqReadout.Counting;
+
+namespace FreqReadout.Host.Captures;
+
+/// <summary>
+/// The metadata of a capture (text format contract in PRODUCT.md; the binary format carries the same).
+/// Defaults are the contract's defaults.
+/// </summary>
+public sealed class CaptureMetadata
+{
+    /// <summary>Timer clock, Hz (&gt; 0). Required key <c>clock_hz</c>.</summary>
+    public double ClockHz { get; set; }
+
+    /// <summary>Key <c>kind</c>: edges (default) or snapshots.</summary>
+    public CaptureKind Kind { get; set; } = CaptureKind.Edges;
+
+    /// <summary>Key <c>prescale</c>: input edges per recorded edge, default 1.</summary>
+    public int Prescale { get; set; } = 1;
+
+    /// <summary>Key <c>timer_bits</c>: 16, 24, 32 or 64 (default).</summary>
+    public int TimerBits { get; set; } = 64;
+
+    /// <summary>Key <c>count_bits</c> (snapshots only): width of the pulse counter, default 64.</summary>
+    public int CountBits { get; set; } = 64;
+
+    /// <summary>Key <c>signal</c>: search (default) or beat.</summary>
+    public SignalKind Signal { get; set; } = SignalKind.Search;
+
+    /// <summary>Key <c>beat_side</c>: required when signal = beat.</summary>
+    public BeatSide BeatSide { get; set; } = BeatSide.None;
+
+    /// <summary>Key <c>search_hz</c>: nominal search-oscillator frequency, if given.</summary>
+    public double? SearchHz { get; set; }
+
+    /// <summary>Key <c>started_utc</c>, if given.</summary>
+    public DateTimeOffset? StartedUtc { get; set; }
+
+    /// <summary>Key <c>note</c>, if given.</summary>
+    public string? Note { get; set; }
+
+    /// <summary>Unknown keys, kept in file order (shown by tools that print metadata).</summary>
+    public List<KeyValuePair<string, string>> Extra { get; } = new();
+
+    /// <summary>Data columns after the first (<c>tick</c>, or <c>tick,count</c>): any of <c>temp_c</c>, <c>mark</c>, in file order.</summary>
+    public List<string> ExtraColumns { get; } = new();
+}

@@ -1,0 +1,27 @@
+using FreqReadout.Host.Commands;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host;
+
+/// <summary>Entry point of the <c>freqreadout</c> command-line harness.</summary>
+public static class Program
+{
+    public static int Main(string[] args)
+    {
+        return BuildApp().Run(args);
+    }
+
+    /// <summary>The command tree; tests run commands through this too.</summary>
+    public static CommandApp BuildApp()
+    {
+        var app = new CommandApp();
+        app.Configure(config =>
+        {
+            config.SetApplicationName("freqreadout");
+            config.PropagateExceptions();
+            config.AddCommand<DemoCommand>("demo")
+                .WithDescription("Run the whole pipeline on a built-in invented scenario.");
+        });
+        return app;
+    }
+}
