@@ -1,0 +1,30 @@
+namespace FreqReadout.Detection
+{
+    /// <summary>The detector's part of the readout settings (copied at construction; validated by ReadoutSettings).</summary>
+    public struct DetectorConfiguration
+    {
+        public DetectorConfiguration(double thresholdSigma, double hysteresisSigma, double minDurationSeconds, double unclearBandSigma, Polarity polarity)
+        {
+            ThresholdSigma = thresholdSigma;
+            HysteresisSigma = hysteresisSigma;
+            MinDurationSeconds = minDurationSeconds;
+            UnclearBandSigma = unclearBandSigma;
+            Polarity = polarity;
+        }
+
+        /// <summary>Threshold on |shift| / sigma.</summary>
+        public double ThresholdSigma { get; }
+
+        /// <summary>Release level = threshold - hysteresis, sigmas.</summary>
+        public double HysteresisSigma { get; }
+
+        /// <summary>Gate time at or above release needed to confirm an event, s.</summary>
+        public double MinDurationSeconds { get; }
+
+        /// <summary>Peaks below threshold + band are unclear, sigmas.</summary>
+        public double UnclearBandSigma { get; }
+
+        /// <summary>Sign-to-class mapping.</summary>
+        public Polarity Polarity { get; }
+    }
+}
