@@ -8,7 +8,8 @@ namespace FreqReadout.Detection
     /// <para>
     /// Idle -&gt; candidate when |z| &gt;= threshold; a candidate becomes an event once the gates it covers at
     /// |z| &gt;= release (release = threshold - hysteresis) add up to the minimum duration; a reading with
-    /// |z| &lt; release drops a candidate and ends an event. An event's start is its first reading at or
+    /// |z| &lt; release drops a candidate; an event ends once its readings stay below the release level
+    /// for the release time (so a noisy dip on a slow edge does not split it). An event's start is its first reading at or
     /// above the threshold, its end its last reading at or above the release level, its peak the
     /// reading with the largest |shift|. While a candidate or event is open, <see cref="TargetPresent"/>
     /// is true and the owner holds the drift tracker.
@@ -30,6 +31,7 @@ namespace FreqReadout.Detection
         private double startSeconds;
         private double endSeconds;
         private double coveredSeconds;
+        private double belowSeconds;
         private double peakSeconds;
         private double peakShiftHz;
         private double peakSigma;
@@ -124,6 +126,7 @@ namespace FreqReadout.Detection
                     startSeconds = timeSeconds;
                     endSeconds = timeSeconds;
                     coveredSeconds = spanSeconds;
+                    belowSeconds = 0;
                     peakSeconds = timeSeconds;
                     peakShiftHz = shiftHz;
                     peakSigma = z;
@@ -146,11 +149,18 @@ namespace FreqReadout.Detection
                     return false;
                 }
 
+                belowSeconds += spanSeconds;
+                if (belowSeconds + TimeEpsilonSeconds < c.ReleaseSeconds)
+                {
+                    return false;
+                }
+
                 closed = Build(EventEnd.Released);
                 phase = 0;
                 return true;
             }
 
+            belowSeconds = 0;
             endSeconds = timeSeconds;
             coveredSeconds += spanSeconds;
             if (readingBelowBeatFloor)

@@ -47,7 +47,7 @@ namespace FreqReadout.Numerics
         /// <summary>Adds a value; when full, the oldest value leaves first. NaN is ignored.</summary>
         public void Add(double value)
         {
-            if (value != value)
+            if (double.IsNaN(value))
             {
                 return;
             }

@@ -55,7 +55,7 @@ namespace FreqReadout.Numerics
         {
             if (!(x > 0))
             {
-                return x != x ? x : 0.0;
+                return double.IsNaN(x) ? x : 0.0;
             }
 
             if (x > double.MaxValue)
@@ -104,7 +104,7 @@ namespace FreqReadout.Numerics
         /// </summary>
         public static double Exp(double x)
         {
-            if (x != x)
+            if (double.IsNaN(x))
             {
                 return x;
             }

@@ -50,6 +50,7 @@ namespace FreqReadout.Readout
         private readonly RebaselineNoticeQueue notices;
         private readonly double[] delayTimes;
         private readonly double[] delayValues;
+        private readonly double[] delaySpans;
         private readonly bool[] delayValid;
         private readonly int delayGates;
 
@@ -101,12 +102,13 @@ namespace FreqReadout.Readout
             tracker = new DriftTracker(settings.TrackerLevelSeconds, settings.TrackerSlopeSeconds);
             capture = new BaselineCapture(settings.BaselineMaxGates);
             noiseWindow = new MedianWindow(settings.NoiseWindowGates);
-            detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.UnclearBandSigma, settings.Polarity));
+            detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.ReleaseSeconds, settings.UnclearBandSigma, settings.Polarity));
             events = new DetectionEventQueue(QueueCapacity);
             notices = new RebaselineNoticeQueue(QueueCapacity);
             delayGates = settings.TrackerDelayGates;
             delayTimes = new double[delayGates + 1];
             delayValues = new double[delayGates + 1];
+            delaySpans = new double[delayGates + 1];
             delayValid = new bool[delayGates + 1];
             state = ReadoutState.Settling;
         }
@@ -332,7 +334,7 @@ namespace FreqReadout.Readout
                 blankRemaining--;
             }
 
-            PushDelayLine(t, x, valid);
+            PushDelayLine(t, span, x, valid);
 
             TargetClass live = TargetClass.None;
             if (present)
@@ -504,13 +506,13 @@ namespace FreqReadout.Readout
             }
         }
 
-        private void PushDelayLine(double t, double x, bool valid)
+        private void PushDelayLine(double t, double span, double x, bool valid)
         {
             if (delayGates == 0)
             {
                 if (valid)
                 {
-                    Feed(t, x);
+                    Feed(t, span, x);
                 }
 
                 return;
@@ -519,28 +521,30 @@ namespace FreqReadout.Readout
             int slot = (delayHead + delayCount) % delayTimes.Length;
             delayTimes[slot] = t;
             delayValues[slot] = x;
+            delaySpans[slot] = span;
             delayValid[slot] = valid;
             delayCount++;
             if (delayCount > delayGates)
             {
                 double ot = delayTimes[delayHead];
                 double ox = delayValues[delayHead];
+                double os = delaySpans[delayHead];
                 bool ov = delayValid[delayHead];
                 delayHead = (delayHead + 1) % delayTimes.Length;
                 delayCount--;
                 if (ov)
                 {
-                    Feed(ot, ox);
+                    Feed(ot, os, ox);
                 }
             }
         }
 
-        private void Feed(double t, double x)
+        private void Feed(double t, double span, double x)
         {
             double predicted = tracker.Predict(t);
             double r = x - predicted;
             double limit = settings.GuardSigma * Sigma(0);
-            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit));
+            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit), span);
             noiseWindow.Add(ScalarMath.Abs(r));
             runningNoiseHz = RobustStatistics.MadToSigma * noiseWindow.Median();
         }

@@ -22,8 +22,8 @@ namespace FreqReadout.Readout
         /// <summary>settling_s: wait after start or a re-baseline request before capturing, [0, 3600]. Default 1 s.</summary>
         public double SettlingSeconds { get; set; } = 1.0;
 
-        /// <summary>baseline_s: length of the baseline capture, (0, 600]. Default 3 s.</summary>
-        public double BaselineSeconds { get; set; } = 3.0;
+        /// <summary>baseline_s: length of the baseline capture, (0, 600]. Default 5 s.</summary>
+        public double BaselineSeconds { get; set; } = 5.0;
 
         /// <summary>baseline_max_gates: capture buffer size (a capture also ends when full), [8, 8192]. Default 512.</summary>
         public int BaselineMaxGates { get; set; } = 512;
@@ -31,8 +31,8 @@ namespace FreqReadout.Readout
         /// <summary>outlier_sigma: capture points beyond this many robust sigmas are rejected, [2, 20]. Default 3 (Hampel's rule).</summary>
         public double OutlierSigma { get; set; } = 3.0;
 
-        /// <summary>noise_window_gates: running robust noise over the last target-free residuals, [16, 4096]. Default 128.</summary>
-        public int NoiseWindowGates { get; set; } = 128;
+        /// <summary>noise_window_gates: running robust noise over the last target-free residuals, [16, 4096]. Default 512 (relative standard error of the MAD about 1.17 / sqrt(512) = 5 %).</summary>
+        public int NoiseWindowGates { get; set; } = 512;
 
         /// <summary>noise_floor_hz: least noise sigma used (the gate's predicted error is a floor too), (0, 1e6]. Default 0.001 Hz.</summary>
         public double NoiseFloorHz { get; set; } = 0.001;
@@ -57,6 +57,9 @@ namespace FreqReadout.Readout
 
         /// <summary>min_duration_s: gate time at or above the release level needed to confirm an event, [0, 60]. Default 0.1 s.</summary>
         public double MinDurationSeconds { get; set; } = 0.1;
+
+        /// <summary>release_s: gate time below the release level that ends an event, [0, 60]. Default 0.2 s.</summary>
+        public double ReleaseSeconds { get; set; } = 0.2;
 
         /// <summary>unclear_band_sigma: peaks below threshold + band are classed unclear, [0, 1000]. Default 1.</summary>
         public double UnclearBandSigma { get; set; } = 1.0;
@@ -161,6 +164,11 @@ namespace FreqReadout.Readout
             if (!InRange(MinDurationSeconds, 0, 60))
             {
                 return Bad(out error, "min_duration_s", "[0, 60]", MinDurationSeconds);
+            }
+
+            if (!InRange(ReleaseSeconds, 0, 60))
+            {
+                return Bad(out error, "release_s", "[0, 60]", ReleaseSeconds);
             }
 
             if (!InRange(UnclearBandSigma, 0, 1000))

@@ -6,9 +6,12 @@ namespace FreqReadout.Tracking
     /// Slow-drift tracker: Holt's linear (double exponential) smoothing of level L (Hz) and slope b
     /// (Hz/s) with gains set from time constants, so that it behaves the same at any gate rate.
     /// <para>
-    /// Update with a reading x at time t, dt = t - t_L since the last update:
-    /// forecast F = L + b dt; alpha = 1 - exp(-dt / tau_L); beta = 1 - exp(-dt / tau_b);
-    /// L' = F + alpha (x - F); b' = b + beta ((L' - L) / dt - b); t_L = t.
+    /// Update with a reading x at time t that averages the last w seconds (its gate span),
+    /// dt = t - t_L since the last update: forecast F = L + b dt; alpha = 1 - exp(-w / tau_L);
+    /// beta = 1 - exp(-w / tau_b); L' = F + alpha (x - F); b' = b + beta ((L' - L) / dt - b); t_L = t.
+    /// The gains follow the reading's own span w, not the gap dt: after a held stretch (a target) one
+    /// noisy reading must not move the level further than any other reading does; the gap is bridged by
+    /// the forecast along the slope.
     /// Prediction at any time: P(t) = L + b (t - t_L) (used while the tracker is held).
     /// </para>
     /// <para>
@@ -96,19 +99,21 @@ namespace FreqReadout.Tracking
         }
 
         /// <summary>
-        /// One Holt update with reading x (Hz) at time t (formulas in the class summary). A reading not
-        /// later than the last update (dt &lt;= 0) or not finite changes nothing.
+        /// One Holt update with reading x (Hz) at time t averaging the last w = spanSeconds (formulas in
+        /// the class summary). A reading not later than the last update (dt &lt;= 0), with w &lt;= 0, or not
+        /// finite changes nothing.
         /// </summary>
-        public void Update(double timeSeconds, double valueHz)
+        public void Update(double timeSeconds, double valueHz, double spanSeconds)
         {
             double dt = timeSeconds - this.timeSeconds;
-            if (!initialised || !(dt > 0) || !ScalarMath.IsFinite(valueHz))
+            if (!initialised || !(dt > 0) || !(spanSeconds > 0) || !ScalarMath.IsFinite(valueHz))
             {
                 return;
             }
 
-            double alpha = 1.0 - ScalarMath.Exp(-dt / LevelSeconds);
-            double beta = 1.0 - ScalarMath.Exp(-dt / SlopeSeconds);
+            double w = ScalarMath.Min(spanSeconds, dt);
+            double alpha = 1.0 - ScalarMath.Exp(-w / LevelSeconds);
+            double beta = 1.0 - ScalarMath.Exp(-w / SlopeSeconds);
             double forecast = levelHz + (slopeHzPerSecond * dt);
             double newLevel = forecast + (alpha * (valueHz - forecast));
             slopeHzPerSecond += beta * (((newLevel - levelHz) / dt) - slopeHzPerSecond);
