@@ -435,3 +435,54 @@ public class EdgeCounterTests
         Assert.Equal(10_000.0, r.FrequencyHz, 9);
     }
 }
+
+public class EdgeCounterNominalTests
+{
+    /// <summary>
+    /// P0 badly off: the bootstrap interval is 500 ticks but the signal then runs at 400 ticks, so
+    /// the residuals against P0 grow by 100 ticks per edge and pass 2^21 within the first gate; the
+    /// re-nominalised sums must still give the exact least-squares slope (128-bit check) of the same edges.
+    /// </summary>
+    [Fact]
+    public void Badly_off_nominal_period_is_re_nominalised_exactly()
+    {
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 1.0 });
+        var exact = new ExactLine();
+        long tick = 1L << 40;
+        GateResult r = default;
+        bool got = false;
+        for (int k = 0; !got; k++)
+        {
+            if (k == 1) tick += 500;
+            else if (k > 1) tick += 400 + (k % 3 == 0 ? 1 : 0);
+            exact.Add(k, tick);
+            got = c.AddEdge(tick, out r);
+        }
+
+        Assert.InRange(r.Edges, 195_000, 205_000);
+        double exactHz = 80e6 / exact.Slope;
+        Assert.Equal(exactHz, r.RegressionHz, exactHz * 1e-12);
+        double recHz = (r.Edges - 1) * 80e6 / (r.EndTick - r.StartTick);
+        Assert.Equal(recHz, r.ReciprocalHz, recHz * 1e-13);
+    }
+
+    /// <summary>Low beat note with a long gate and a huge period (1.3 Hz on 80 MHz, 61.5 M ticks per edge): no overflow, exact.</summary>
+    [Fact]
+    public void Very_long_periods_stay_exact()
+    {
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 20, NoSignalSeconds = 5 });
+        var exact = new ExactLine();
+        GateResult r = default;
+        bool got = false;
+        for (long k = 0; !got; k++)
+        {
+            long tick = EdgeStreams.QuantisedTick(1L << 62, 7, 800_000_000, 13, k);
+            exact.Add(k, tick);
+            got = c.AddEdge(tick, out r);
+        }
+
+        Assert.Equal(80e6 / exact.Slope, r.RegressionHz, 1e-12);
+        Assert.Equal(1.3, r.RegressionHz, 1e-7);
+        Assert.Equal(1.3, r.ReciprocalHz, 1.3 / (r.EndTick - r.StartTick));
+    }
+}
