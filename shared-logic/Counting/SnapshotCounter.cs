@@ -49,7 +49,8 @@ namespace FreqReadout.Counting
     /// No signal: when the count has not changed for
     /// NoSignalSeconds of read time, a NoSignal result (no frequency) is returned, once per
     /// NoSignalSeconds, and the open gate is abandoned; a gate whose count did not change at all also
-    /// gives NoSignal. Nothing allocates per snapshot or per gate.
+    /// gives NoSignal. Empty input: a gate needs at least 2 snapshots; before that no result is
+    /// made. Nothing allocates per snapshot or per gate.
     /// </para>
     /// </summary>
     public sealed class SnapshotCounter
