@@ -429,9 +429,13 @@ public sealed class BinaryCaptureReader : ICaptureReader
 
     private string BlockName() => _blockNumber == 0 ? "the header block (block 0)" : $"block {_blockNumber}";
 
-    private string ReadableBefore() => _blockNumber == 0
-        ? "no rows are readable"
-        : $"the {_rowsRead} rows in the {_blockNumber - 1} blocks before it are readable";
+    private string ReadableBefore() => _blockNumber switch
+    {
+        0 => "no rows are readable",
+        1 => "no rows come before it",
+        2 => $"the {_rowsRead} rows in block 1 before it are readable",
+        _ => $"the {_rowsRead} rows in blocks 1 to {_blockNumber - 1} before it are readable",
+    };
 
     private int ReadFully(Span<byte> buffer)
     {
