@@ -1,22 +1,127 @@
 namespace FreqReadout.Numerics
 {
     /// <summary>
-    /// Scalar helpers for device code, which has no System.Math (nanoFramework mscorlib). Pure
-    /// functions, no state, no allocation. Accuracy is that of the device's double (which on some
-    /// boards is computed in single precision).
+    /// Scalar helpers for shared-logic, which may not use System.Math (the nanoFramework mscorlib has
+    /// none). Pure functions, no state, no allocation.
     /// </summary>
     public static class ScalarMath
     {
-        /// <summary>ln 2.</summary>
-        public const double Ln2 = 0.69314718055994530942;
+        private const double TwoTo64 = 18446744073709551616.0;
+        private const double TwoToMinus64 = 1.0 / 18446744073709551616.0;
+        private const double TwoTo32 = 4294967296.0;
+        private const double TwoToMinus32 = 1.0 / 4294967296.0;
 
-        /// <summary>|x|. NaN stays NaN.</summary>
+        /// <summary>
+        /// Square root by Newton's iteration y &lt;- (y + m / y) / 2 on the mantissa m scaled into [1, 4)
+        /// by exact powers of four, then one correction y + (m - y^2) / (2 y); within one ulp of the exact root.
+        /// </summary>
+        /// <param name="x">The radicand.</param>
+        /// <returns>sqrt(x); 0 for x = 0; NaN for x &lt; 0 or NaN; +infinity for +infinity.</returns>
+        public static double Sqrt(double x)
+        {
+            if (x == 0)
+            {
+                return 0;
+            }
+
+            if (!(x > 0))
+            {
+                return double.NaN;
+            }
+
+            if (x > double.MaxValue)
+            {
+                return x;
+            }
+
+            double m = x;
+            double scale = 1;
+            while (m >= TwoTo64)
+            {
+                m *= TwoToMinus64;
+                scale *= TwoTo32;
+            }
+
+            while (m < TwoToMinus64)
+            {
+                m *= TwoTo64;
+                scale *= TwoToMinus32;
+            }
+
+            while (m >= 4)
+            {
+                m *= 0.25;
+                scale *= 2;
+            }
+
+            while (m < 1)
+            {
+                m *= 4;
+                scale *= 0.5;
+            }
+
+            // m in [1, 4): start at (1 + m) / 2 (an over-estimate, so Newton decreases monotonically).
+            double y = 0.5 * (1 + m);
+            for (int k = 0; k < 8; k++)
+            {
+                double next = 0.5 * (y + (m / y));
+                if (next >= y)
+                {
+                    break;
+                }
+
+                y = next;
+            }
+
+            // One correction in residual form: y + (m - y^2) / (2 y) recovers the last ulp.
+            y += (m - (y * y)) / (2.0 * y);
+            return y * scale;
+        }
+
+        /// <summary>Absolute value |x| of a double (NaN stays NaN).</summary>
         public static double Abs(double x)
         {
             return x < 0 ? -x : x;
         }
 
-        /// <summary>The larger of a and b (a when either is NaN and a is not compared false).</summary>
+        /// <summary>Absolute value |x| of a long (long.MinValue has none and is returned unchanged).</summary>
+        public static long Abs(long x)
+        {
+            return x < 0 ? -x : x;
+        }
+
+        /// <summary>Nearest long to x, halves away from zero. x must lie within the long range (not checked).</summary>
+        public static long RoundToLong(double x)
+        {
+            return x >= 0 ? (long)(x + 0.5) : -(long)(-x + 0.5);
+        }
+
+        /// <summary>
+        /// Smallest long &gt;= x, where a value within a relative 1e-12 above a whole number counts as that
+        /// whole number (so 0.1 s x 80 MHz = 8000000.000000001 gives 8000000). x must lie within the long range.
+        /// </summary>
+        public static long CeilingToLongTolerant(double x)
+        {
+            long r = RoundToLong(x);
+            double tol = 1e-12 * Abs(x);
+            if (Abs(x - r) <= tol)
+            {
+                return r;
+            }
+
+            long t = (long)x; // truncates toward zero
+            if (t < x)
+            {
+                t++;
+            }
+
+            return t;
+        }
+
+        /// <summary>ln 2.</summary>
+        public const double Ln2 = 0.69314718055994530942;
+
+        /// <summary>The larger of a and b.</summary>
         public static double Max(double a, double b)
         {
             return a >= b ? a : b;
@@ -44,57 +149,6 @@ namespace FreqReadout.Numerics
         {
             // NaN fails every comparison; infinities fail the bounds.
             return x >= -double.MaxValue && x <= double.MaxValue;
-        }
-
-        /// <summary>
-        /// Square root by Newton's iteration y &lt;- (y + x / y) / 2 after scaling x by powers of 4 into
-        /// [0.5, 2) (so six iterations from y0 = (1 + x) / 2 reach full double precision).
-        /// Returns 0 for x &lt;= 0 (and for -0), NaN for NaN, +infinity for +infinity.
-        /// </summary>
-        public static double Sqrt(double x)
-        {
-            if (!(x > 0))
-            {
-                return double.IsNaN(x) ? x : 0.0;
-            }
-
-            if (x > double.MaxValue)
-            {
-                return x;
-            }
-
-            double scale = 1.0;
-            while (x >= 1.8446744073709552e19)
-            {
-                x *= 5.421010862427522e-20; // 4^-32
-                scale *= 4294967296.0; // 2^32
-            }
-
-            while (x < 5.421010862427522e-20)
-            {
-                x *= 1.8446744073709552e19;
-                scale *= 2.3283064365386963e-10;
-            }
-
-            while (x >= 2.0)
-            {
-                x *= 0.25;
-                scale *= 2.0;
-            }
-
-            while (x < 0.5)
-            {
-                x *= 4.0;
-                scale *= 0.5;
-            }
-
-            double y = 0.5 * (1.0 + x);
-            for (int i = 0; i < 6; i++)
-            {
-                y = 0.5 * (y + x / y);
-            }
-
-            return y * scale;
         }
 
         /// <summary>
