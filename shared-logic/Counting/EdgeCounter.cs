@@ -1,33 +1,479 @@
+using FreqReadout.Numerics;
+
 namespace FreqReadout.Counting
 {
     /// <summary>
-    /// Gate-by-gate frequency from unwrapped edge timestamps (SKELETON: the counting-core work fills this in).
+    /// Gate-by-gate frequency from unwrapped edge timestamps (reciprocal counting: every gate opens
+    /// and closes on an edge, so there is no +-1 count error).
+    /// <para>
+    /// Gates share their boundary edge: the closing edge of one gate opens the next. A time gate
+    /// closes on the first accepted edge at or after GateSeconds from its opening edge; an edge gate
+    /// after GateEdges recorded intervals. Time 0 is the first accepted edge. A gate also closes
+    /// after <see cref="MaxGateIntervals"/> intervals whatever the mode, which keeps the integer
+    /// sums in range.
+    /// </para>
+    /// <para>
+    /// Both estimators use the same N edges t_0..t_{N-1} of a gate, indexed 0..N-1 in order of
+    /// acceptance. Residuals against an integer nominal period P0 (the rounded running period when
+    /// the gate's second edge arrives): r_i = t_i - t_0 - i P0, summed as 64-bit integers
+    /// S_r = sum r_i and S_ir = sum i r_i; they stay small (about i |P - P0| plus jitter), so
+    /// nothing overflows or loses precision after 2^32 ticks or hours of capture. When a residual
+    /// exceeds 2^21 ticks, P0 is moved by d = r_i / i and the sums are corrected exactly
+    /// (S_r -= d sum i, S_ir -= d sum i^2). Only at gate close, in double:
+    /// reciprocal period = P0 + r_{N-1} / (N - 1);
+    /// regression period = P0 + 6 (2 S_ir - (N - 1) S_r) / (N (N^2 - 1)) (least-squares slope of t on i);
+    /// frequency = Prescale x ClockHz / period.
+    /// </para>
+    /// <para>
+    /// Error model (white timing noise per edge, sigma_x^2 = 1/12 + JitterTicks^2 ticks^2: one-tick
+    /// quantisation plus the configured jitter): reciprocal Var(P) = 2 sigma_x^2 / (N - 1)^2;
+    /// regression Var(P) = 12 sigma_x^2 / (N (N^2 - 1)) (Rubiola 2005; Danielson, Vernotte and Rubiola
+    /// 2016, eq. 21); sigma_f = f sigma_P / P.
+    /// </para>
+    /// <para>
+    /// Running period (ticks per recorded edge): the first interval of a run bootstraps it (also after
+    /// a no-signal state, after a gap of at least NoSignalSeconds, and after two dropouts in a row);
+    /// then every accepted interval d moves it by (d - P) / 16. Glitch: an interval below
+    /// GlitchFraction x P (or not positive) is a double-triggered edge, rejected and counted; the next
+    /// interval is measured from the last accepted edge. Dropout: an interval above DropoutPeriods x P
+    /// (or at least NoSignalSeconds) closes the gate at the last good edge (a result with state Dropout
+    /// when the gate has at least 2 edges, else none) and the edge after the gap opens the next gate.
+    /// The bootstrap interval itself is not checked, so a double trigger on the very first interval
+    /// leads to one short dropout gate before the period re-bootstraps.
+    /// </para>
+    /// Nothing allocates per edge or per gate.
     /// </summary>
     public sealed class EdgeCounter
     {
+        /// <summary>A gate closes after at most this many recorded intervals (2^20) so its integer sums stay in range.</summary>
+        public const int MaxGateIntervals = 1 << 20;
+
+        /// <summary>Longest gate, ticks (2^40, about 3.8 h at 80 MHz); a longer GateSeconds x ClockHz is refused.</summary>
+        public const long MaxGateTicks = 1L << 40;
+
+        private const long ResidualLimit = 1L << 21;
+        private const double RunningPeriodWeight = 1.0 / 16.0;
+
+        private readonly double _clockHz;
+        private readonly int _prescale;
+        private readonly SignalKind _signal;
+        private readonly GateMode _mode;
+        private readonly long _gateTicks;
+        private readonly int _gateIntervals;
+        private readonly EstimatorKind _estimator;
+        private readonly double _sigmaX2;
+        private readonly double _glitchFraction;
+        private readonly double _dropoutPeriods;
+        private readonly long _noSignalTicks;
+
+        // Run state.
+        private bool _hasFirst;
+        private long _firstTick;
+        private bool _hasLast;
+        private long _lastTick;
+        private bool _hasPeriod;
+        private double _period;
+
+        // Open gate.
+        private bool _gateOpen;
+        private long _gateStart;
+        private int _gateN;
+        private long _p0;
+        private long _sr;
+        private long _sir;
+        private long _lastR;
+        private int _gateGlitches;
+        private bool _gateAfterGap;
+
+        // No-signal timing.
+        private bool _hasRef;
+        private long _refTick;
+
+        private long _glitchesTotal;
+        private long _dropoutsTotal;
+        private long _edgesTotal;
+        private long _gatesTotal;
+
+        /// <summary>
+        /// A counter for the given settings (read once here; later changes to the object are not seen).
+        /// </summary>
+        /// <param name="settings">Valid settings (see <see cref="CounterSettings.TryValidate"/>); Estimator must be Reciprocal or Regression.</param>
+        /// <exception cref="System.ArgumentNullException">settings is null.</exception>
+        /// <exception cref="System.ArgumentException">An invalid setting, named with its allowed range.</exception>
         public EdgeCounter(CounterSettings settings)
         {
+            if (settings == null)
+            {
+                throw new System.ArgumentNullException("settings");
+            }
+
+            string error;
+            if (!settings.TryValidate(out error))
+            {
+                throw new System.ArgumentException(error);
+            }
+
+            if (settings.Estimator != EstimatorKind.Reciprocal && settings.Estimator != EstimatorKind.Regression)
+            {
+                throw new System.ArgumentException("estimator must be reciprocal or regression for edge captures");
+            }
+
+            double gateTicks = settings.GateSeconds * settings.ClockHz;
+            if (settings.Mode == GateMode.Time && !(gateTicks <= MaxGateTicks))
+            {
+                throw new System.ArgumentException("gate seconds x clock_hz must be at most 2^40 ticks");
+            }
+
+            double noSignalTicks = settings.NoSignalSeconds * settings.ClockHz;
+            if (!(noSignalTicks <= 4.0e18))
+            {
+                throw new System.ArgumentException("no-signal seconds x clock_hz must be below 4e18 ticks");
+            }
+
             Settings = settings;
+            _clockHz = settings.ClockHz;
+            _prescale = settings.Prescale;
+            _signal = settings.Signal;
+            _mode = settings.Mode;
+            _estimator = settings.Estimator;
+            _gateTicks = settings.Mode == GateMode.Time ? ScalarMath.CeilingToLongTolerant(gateTicks) : 0;
+            if (_gateTicks < 1)
+            {
+                _gateTicks = 1;
+            }
+
+            _gateIntervals = settings.GateEdges < MaxGateIntervals ? settings.GateEdges : MaxGateIntervals;
+            _sigmaX2 = (1.0 / 12.0) + (settings.JitterTicks * settings.JitterTicks);
+            _glitchFraction = settings.GlitchFraction;
+            _dropoutPeriods = settings.DropoutPeriods;
+            _noSignalTicks = ScalarMath.CeilingToLongTolerant(noSignalTicks);
+            if (_noSignalTicks < 1)
+            {
+                _noSignalTicks = 1;
+            }
         }
 
+        /// <summary>The settings the counter was made with.</summary>
         public CounterSettings Settings { get; }
 
-        /// <summary>Feeds one recorded edge (unwrapped tick). Returns true when a gate closed, with its result.</summary>
+        /// <summary>Double-triggered edges rejected since construction or <see cref="Reset"/>.</summary>
+        public long GlitchesTotal
+        {
+            get { return _glitchesTotal; }
+        }
+
+        /// <summary>Dropouts (gaps that closed a gate) since construction or <see cref="Reset"/>.</summary>
+        public long DropoutsTotal
+        {
+            get { return _dropoutsTotal; }
+        }
+
+        /// <summary>Accepted edges since construction or <see cref="Reset"/>.</summary>
+        public long EdgesTotal
+        {
+            get { return _edgesTotal; }
+        }
+
+        /// <summary>Gate results with a frequency handed out since construction or <see cref="Reset"/>.</summary>
+        public long GatesTotal
+        {
+            get { return _gatesTotal; }
+        }
+
+        /// <summary>True once the running period is known (after the first accepted interval of a run).</summary>
+        public bool HasRunningPeriod
+        {
+            get { return _hasPeriod; }
+        }
+
+        /// <summary>
+        /// The running period, ticks per recorded edge (0 while unknown). Pass it to
+        /// <see cref="TimerUnwrapper.TryGetWrapWarning"/> for the fast-wrap warning.
+        /// </summary>
+        public double RunningPeriodTicks
+        {
+            get { return _hasPeriod ? _period : 0; }
+        }
+
+        /// <summary>True once the first edge has been accepted (the time origin is set).</summary>
+        public bool HasTimeOrigin
+        {
+            get { return _hasFirst; }
+        }
+
+        /// <summary>Unwrapped tick of the first accepted edge (time 0); 0 before any.</summary>
+        public long FirstTick
+        {
+            get { return _hasFirst ? _firstTick : 0; }
+        }
+
+        /// <summary>Gate length in ticks for a time gate: the smallest whole tick count &gt;= GateSeconds x ClockHz.</summary>
+        public long GateTicks
+        {
+            get { return _gateTicks; }
+        }
+
+        /// <summary>
+        /// Feeds one recorded edge.
+        /// </summary>
+        /// <param name="tick">Unwrapped timer tick of the edge (e.g. from <see cref="TimerUnwrapper"/>).</param>
+        /// <param name="result">The gate that this edge (or the gap before it) closed; default when none.</param>
+        /// <returns>True when a gate closed with a frequency (state Ok, Glitch or Dropout).</returns>
         public bool AddEdge(long tick, out GateResult result)
         {
-            throw new System.NotImplementedException();
+            result = default(GateResult);
+            if (!_gateOpen)
+            {
+                if (_hasLast && tick <= _lastTick)
+                {
+                    _glitchesTotal++;
+                    return false;
+                }
+
+                if (!_hasFirst)
+                {
+                    _hasFirst = true;
+                    _firstTick = tick;
+                }
+
+                OpenGate(tick);
+                Accept(tick);
+                return false;
+            }
+
+            long d = tick - _lastTick;
+            if (d <= 0 || (_hasPeriod && d < _glitchFraction * _period))
+            {
+                _glitchesTotal++;
+                _gateGlitches++;
+                return false;
+            }
+
+            bool longGap = d >= _noSignalTicks;
+            if (longGap || (_hasPeriod && d > _dropoutPeriods * _period))
+            {
+                _dropoutsTotal++;
+                bool closed = false;
+                if (_gateN >= 2)
+                {
+                    result = CloseGate(GateState.Dropout, 1);
+                    closed = true;
+                }
+                else if (_gateAfterGap)
+                {
+                    // Two gaps in a row: the running period may be wrong; learn it again.
+                    _hasPeriod = false;
+                }
+
+                if (longGap)
+                {
+                    _hasPeriod = false;
+                }
+
+                OpenGate(tick);
+                _gateAfterGap = true;
+                Accept(tick);
+                return closed;
+            }
+
+            if (_hasPeriod)
+            {
+                _period += (d - _period) * RunningPeriodWeight;
+            }
+            else
+            {
+                _period = d;
+                _hasPeriod = true;
+            }
+
+            Append(tick);
+            Accept(tick);
+
+            int intervals = _gateN - 1;
+            bool close = intervals >= MaxGateIntervals
+                || (_mode == GateMode.Time ? (tick - _gateStart) >= _gateTicks : intervals >= _gateIntervals);
+            if (!close)
+            {
+                return false;
+            }
+
+            result = CloseGate(_gateGlitches > 0 ? GateState.Glitch : GateState.Ok, 0);
+            OpenGate(tick);
+            return true;
         }
 
-        /// <summary>Tells the counter the time now (unwrapped tick); returns true with a no-signal result when no edge came within the timeout.</summary>
+        /// <summary>
+        /// Tells the counter the time now. When no edge was accepted within NoSignalSeconds (measured
+        /// from the last accepted edge, or from the first poll when there has been none), the open
+        /// gate is abandoned (never reported late) and a no-signal result is returned; then again once
+        /// per further NoSignalSeconds without an edge. The next edge starts a fresh gate and
+        /// re-learns the running period.
+        /// </summary>
+        /// <param name="nowTick">Unwrapped tick now, on the same scale as the edges.</param>
+        /// <param name="result">On true: State NoSignal, HasFrequency false, every frequency 0, Edges 0, StartTick the last edge (or previous report), EndTick now; seconds are 0 before the first edge.</param>
+        /// <returns>True when a no-signal result is due.</returns>
         public bool Poll(long nowTick, out GateResult result)
         {
-            throw new System.NotImplementedException();
+            result = default(GateResult);
+            if (!_hasRef)
+            {
+                _hasRef = true;
+                _refTick = nowTick;
+                return false;
+            }
+
+            if (nowTick - _refTick < _noSignalTicks)
+            {
+                return false;
+            }
+
+            long start = _refTick;
+            _refTick = nowTick;
+            _gateOpen = false;
+            _hasPeriod = false;
+            result = new GateResult(
+                GateState.NoSignal,
+                _estimator,
+                _signal,
+                false,
+                0,
+                0,
+                0,
+                0,
+                0,
+                _prescale,
+                start,
+                nowTick,
+                Seconds(start),
+                Seconds(nowTick),
+                0,
+                0);
+            return true;
         }
 
-        /// <summary>Forgets all state (next edge starts afresh).</summary>
+        /// <summary>Forgets all state, totals and the time origin (the next edge starts afresh as time 0).</summary>
         public void Reset()
         {
-            throw new System.NotImplementedException();
+            _hasFirst = false;
+            _firstTick = 0;
+            _hasLast = false;
+            _lastTick = 0;
+            _hasPeriod = false;
+            _period = 0;
+            _gateOpen = false;
+            _gateStart = 0;
+            _gateN = 0;
+            _p0 = 0;
+            _sr = 0;
+            _sir = 0;
+            _lastR = 0;
+            _gateGlitches = 0;
+            _gateAfterGap = false;
+            _hasRef = false;
+            _refTick = 0;
+            _glitchesTotal = 0;
+            _dropoutsTotal = 0;
+            _edgesTotal = 0;
+            _gatesTotal = 0;
+        }
+
+        private void Accept(long tick)
+        {
+            _hasLast = true;
+            _lastTick = tick;
+            _hasRef = true;
+            _refTick = tick;
+            _edgesTotal++;
+        }
+
+        private void OpenGate(long tick)
+        {
+            _gateOpen = true;
+            _gateStart = tick;
+            _gateN = 1;
+            _p0 = 0;
+            _sr = 0;
+            _sir = 0;
+            _lastR = 0;
+            _gateGlitches = 0;
+            _gateAfterGap = false;
+        }
+
+        private void Append(long tick)
+        {
+            long i = _gateN;
+            if (i == 1)
+            {
+                _p0 = ScalarMath.RoundToLong(_period);
+                if (_p0 < 1)
+                {
+                    _p0 = 1;
+                }
+            }
+
+            long r = (tick - _gateStart) - (i * _p0);
+            if (r > ResidualLimit || r < -ResidualLimit)
+            {
+                // Re-nominalise: move P0 by d and correct the sums over indices 0..i-1 exactly.
+                long d = r / i;
+                if (d != 0)
+                {
+                    long sumI = (i * (i - 1)) / 2;
+                    long sumII = ((i - 1) * i * ((2 * i) - 1)) / 6;
+                    _p0 += d;
+                    _sr -= d * sumI;
+                    _sir -= d * sumII;
+                    r -= d * i;
+                }
+            }
+
+            _sr += r;
+            _sir += i * r;
+            _lastR = r;
+            _gateN++;
+        }
+
+        private double Seconds(long tick)
+        {
+            return _hasFirst ? (tick - _firstTick) / _clockHz : 0;
+        }
+
+        private GateResult CloseGate(GateState state, int dropouts)
+        {
+            int n = _gateN;
+            long m = n - 1;
+            double dn = n;
+            double scale = _prescale * _clockHz;
+
+            double recPeriod = _p0 + ((double)_lastR / m);
+            long num2 = (2 * _sir) - (m * _sr);
+            double den = dn * ((dn * dn) - 1.0);
+            double regPeriod = _p0 + ((6.0 * num2) / den);
+
+            double recHz = recPeriod > 0 ? scale / recPeriod : 0;
+            double regHz = regPeriod > 0 ? scale / regPeriod : 0;
+            double recErr = recPeriod > 0 ? recHz * ScalarMath.Sqrt(2.0 * _sigmaX2 / ((double)m * m)) / recPeriod : 0;
+            double regErr = regPeriod > 0 ? regHz * ScalarMath.Sqrt(12.0 * _sigmaX2 / den) / regPeriod : 0;
+
+            bool regression = _estimator == EstimatorKind.Regression;
+            _gatesTotal++;
+            return new GateResult(
+                state,
+                _estimator,
+                _signal,
+                recPeriod > 0 && regPeriod > 0,
+                regression ? regHz : recHz,
+                regression ? regErr : recErr,
+                recHz,
+                regHz,
+                n,
+                _prescale,
+                _gateStart,
+                _lastTick,
+                Seconds(_gateStart),
+                Seconds(_lastTick),
+                _gateGlitches,
+                dropouts);
         }
     }
 }

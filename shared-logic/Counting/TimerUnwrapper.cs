@@ -1,21 +1,238 @@
 namespace FreqReadout.Counting
 {
     /// <summary>
-    /// Unwraps raw timer values modulo 2^bits into a monotonic 64-bit tick (SKELETON: the counting-core work fills this in).
+    /// Unwraps raw hardware timer values, recorded modulo 2^bits, into a monotonic 64-bit tick.
+    /// <para>
+    /// Assumption: less than one wrap between consecutive values (the step from one value to the
+    /// next is (raw - previous) mod 2^bits). The first value accepted becomes tick 0: every
+    /// unwrapped tick is the time since the first value, <c>tick = (raw - FirstRaw) + wraps x 2^bits</c>,
+    /// so it stays small (at 80 MHz a long lasts about 3,600 years) wherever in the range the
+    /// timer started; <see cref="FirstRaw"/> keeps the offset for a caller that needs the raw scale.
+    /// </para>
+    /// <para>
+    /// Timestamps (the default): a repeated value cannot be right (two edges at the same tick, or
+    /// exactly one whole wrap), so it is rejected; with 64 bits the values must strictly increase.
+    /// Pulse-counter counts (<c>allowRepeats = true</c>): an unchanged count is normal; with 64 bits
+    /// the counts must not decrease. The same class therefore unwraps the <c>count_bits</c> column
+    /// of a snapshot capture: <c>new TimerUnwrapper(countBits, true)</c>.
+    /// </para>
+    /// <para>
+    /// A wrap that happens within fewer than <see cref="MinIntervalsPerWrap"/> expected intervals
+    /// lets a dropout hide inside one wrap (it would be read as a short gap): see
+    /// <see cref="WrapsTooFast"/> and <see cref="TryGetWrapWarning"/>.
+    /// </para>
     /// </summary>
     public sealed class TimerUnwrapper
     {
+        /// <summary>The timer should wrap no sooner than after this many expected intervals, else a warning is due.</summary>
+        public const int MinIntervalsPerWrap = 8;
+
+        private readonly ulong _mask;
+        private readonly bool _allowRepeats;
+        private bool _started;
+        private ulong _firstRaw;
+        private ulong _lastRaw;
+        private long _lastTick;
+        private long _wraps;
+        private long _rejected;
+        private bool _wrapWarned;
+
+        /// <summary>
+        /// An unwrapper for timestamps (repeated values rejected).
+        /// </summary>
+        /// <param name="bits">Timer width: 16, 24, 32 or 64.</param>
+        /// <exception cref="System.ArgumentException">Any other width.</exception>
         public TimerUnwrapper(int bits)
+            : this(bits, false)
         {
-            Bits = bits;
         }
 
+        /// <summary>
+        /// An unwrapper for timestamps (<paramref name="allowRepeats"/> false) or cumulative counts (true).
+        /// </summary>
+        /// <param name="bits">Timer or counter width: 16, 24, 32 or 64.</param>
+        /// <param name="allowRepeats">True when an unchanged value is valid (pulse-counter counts).</param>
+        /// <exception cref="System.ArgumentException">A width other than 16, 24, 32 or 64.</exception>
+        public TimerUnwrapper(int bits, bool allowRepeats)
+        {
+            if (bits != 16 && bits != 24 && bits != 32 && bits != 64)
+            {
+                throw new System.ArgumentException("timer_bits must be 16, 24, 32 or 64 (got " + bits.ToString() + ")");
+            }
+
+            Bits = bits;
+            _allowRepeats = allowRepeats;
+            _mask = bits == 64 ? ulong.MaxValue : (1UL << bits) - 1UL;
+        }
+
+        /// <summary>Timer width in bits (16, 24, 32 or 64).</summary>
         public int Bits { get; }
 
-        /// <summary>Unwraps one raw value (must be below 2^bits). False when the value cannot be right.</summary>
+        /// <summary>True when an unchanged value is accepted (counts), false for timestamps.</summary>
+        public bool AllowRepeats
+        {
+            get { return _allowRepeats; }
+        }
+
+        /// <summary>Largest raw value the timer can hold, 2^bits - 1.</summary>
+        public ulong MaxRaw
+        {
+            get { return _mask; }
+        }
+
+        /// <summary>Ticks per wrap, 2^bits, as a double (2^64 = 1.8446744073709552e19 for a 64-bit timer).</summary>
+        public double WrapTicks
+        {
+            get { return (double)_mask + 1.0; }
+        }
+
+        /// <summary>True once a first value has been accepted.</summary>
+        public bool HasValue
+        {
+            get { return _started; }
+        }
+
+        /// <summary>The first accepted raw value (tick 0); 0 before any.</summary>
+        public ulong FirstRaw
+        {
+            get { return _firstRaw; }
+        }
+
+        /// <summary>The last accepted raw value; 0 before any.</summary>
+        public ulong LastRaw
+        {
+            get { return _lastRaw; }
+        }
+
+        /// <summary>The last unwrapped tick handed out; 0 before any.</summary>
+        public long LastTick
+        {
+            get { return _lastTick; }
+        }
+
+        /// <summary>Wraps seen so far (steps where the raw value fell back).</summary>
+        public long Wraps
+        {
+            get { return _wraps; }
+        }
+
+        /// <summary>Values rejected by <see cref="TryUnwrap"/> so far.</summary>
+        public long Rejected
+        {
+            get { return _rejected; }
+        }
+
+        /// <summary>
+        /// Unwraps one raw value. The first accepted value gives tick 0; each later one adds
+        /// (raw - previous raw) mod 2^bits.
+        /// </summary>
+        /// <param name="raw">Raw timer value, which must be below 2^bits.</param>
+        /// <param name="tick">The unwrapped tick; on failure the last good tick (0 before any).</param>
+        /// <returns>
+        /// False, leaving the state unchanged, when the value cannot be right: raw &gt;= 2^bits; a
+        /// repeated timestamp; a 64-bit value below the previous one (or, for timestamps, equal to
+        /// it); or a step that would overflow the 64-bit tick.
+        /// </returns>
         public bool TryUnwrap(ulong raw, out long tick)
         {
-            throw new System.NotImplementedException();
+            tick = _lastTick;
+            if (raw > _mask)
+            {
+                _rejected++;
+                return false;
+            }
+
+            if (!_started)
+            {
+                _started = true;
+                _firstRaw = raw;
+                _lastRaw = raw;
+                _lastTick = 0;
+                tick = 0;
+                return true;
+            }
+
+            if (Bits == 64 && raw < _lastRaw)
+            {
+                _rejected++;
+                return false;
+            }
+
+            ulong delta = unchecked(raw - _lastRaw) & _mask;
+            if (delta == 0 && !_allowRepeats)
+            {
+                _rejected++;
+                return false;
+            }
+
+            if (delta > (ulong)(long.MaxValue - _lastTick))
+            {
+                _rejected++;
+                return false;
+            }
+
+            if (raw < _lastRaw)
+            {
+                _wraps++;
+            }
+
+            _lastRaw = raw;
+            _lastTick += (long)delta;
+            tick = _lastTick;
+            return true;
+        }
+
+        /// <summary>
+        /// True when the timer wraps within fewer than <see cref="MinIntervalsPerWrap"/> expected
+        /// intervals: WrapTicks &lt; 8 x <paramref name="expectedIntervalTicks"/>. Then a dropout of
+        /// more than one wrap reads as a short gap and cannot be seen.
+        /// </summary>
+        /// <param name="expectedIntervalTicks">Expected ticks between values (e.g. EdgeCounter.RunningPeriodTicks); 0 or less: unknown, gives false.</param>
+        public bool WrapsTooFast(double expectedIntervalTicks)
+        {
+            if (!(expectedIntervalTicks > 0))
+            {
+                return false;
+            }
+
+            return WrapTicks < MinIntervalsPerWrap * expectedIntervalTicks;
+        }
+
+        /// <summary>
+        /// Gives the fast-wrap warning once (until <see cref="Reset"/>): true, with the text, the first
+        /// time <see cref="WrapsTooFast"/> holds for the given expected interval; false otherwise
+        /// (warning null). Allocates only the one warning string.
+        /// </summary>
+        /// <param name="expectedIntervalTicks">Expected ticks between values; 0 or less: unknown, no warning.</param>
+        /// <param name="warning">The warning naming the timer width, the wrap and the interval; null when none is due.</param>
+        public bool TryGetWrapWarning(double expectedIntervalTicks, out string warning)
+        {
+            warning = null;
+            if (_wrapWarned || !WrapsTooFast(expectedIntervalTicks))
+            {
+                return false;
+            }
+
+            _wrapWarned = true;
+            long interval = (long)(expectedIntervalTicks + 0.5);
+            long perWrap10 = (long)(10.0 * WrapTicks / expectedIntervalTicks);
+            warning = "timer_bits = " + Bits.ToString() + ": the timer wraps every " + ((long)WrapTicks).ToString()
+                + " ticks, only " + (perWrap10 / 10).ToString() + "." + (perWrap10 % 10).ToString()
+                + " expected intervals of about " + interval.ToString() + " ticks (fewer than "
+                + MinIntervalsPerWrap.ToString() + "): a dropout longer than one wrap would go unseen";
+            return true;
+        }
+
+        /// <summary>Forgets all values and the warning; the next accepted value is tick 0 again.</summary>
+        public void Reset()
+        {
+            _started = false;
+            _firstRaw = 0;
+            _lastRaw = 0;
+            _lastTick = 0;
+            _wraps = 0;
+            _rejected = 0;
+            _wrapWarned = false;
         }
     }
 }

@@ -1,0 +1,119 @@
+namespace FreqReadout.Numerics
+{
+    /// <summary>
+    /// Scalar helpers for shared-logic, which may not use System.Math (the nanoFramework mscorlib has
+    /// none). Pure functions, no state, no allocation.
+    /// </summary>
+    public static class ScalarMath
+    {
+        private const double TwoTo64 = 18446744073709551616.0;
+        private const double TwoToMinus64 = 1.0 / 18446744073709551616.0;
+        private const double TwoTo32 = 4294967296.0;
+        private const double TwoToMinus32 = 1.0 / 4294967296.0;
+
+        /// <summary>
+        /// Square root by Newton's iteration y &lt;- (y + m / y) / 2 on the mantissa m scaled into [1, 4)
+        /// by exact powers of four (so the result is exact to about one ulp).
+        /// </summary>
+        /// <param name="x">The radicand.</param>
+        /// <returns>sqrt(x); 0 for x = 0; NaN for x &lt; 0 or NaN; +infinity for +infinity.</returns>
+        public static double Sqrt(double x)
+        {
+            if (x == 0)
+            {
+                return 0;
+            }
+
+            if (!(x > 0))
+            {
+                return double.NaN;
+            }
+
+            if (x > double.MaxValue)
+            {
+                return x;
+            }
+
+            double m = x;
+            double scale = 1;
+            while (m >= TwoTo64)
+            {
+                m *= TwoToMinus64;
+                scale *= TwoTo32;
+            }
+
+            while (m < TwoToMinus64)
+            {
+                m *= TwoTo64;
+                scale *= TwoToMinus32;
+            }
+
+            while (m >= 4)
+            {
+                m *= 0.25;
+                scale *= 2;
+            }
+
+            while (m < 1)
+            {
+                m *= 4;
+                scale *= 0.5;
+            }
+
+            // m in [1, 4): start at (1 + m) / 2 (an over-estimate, so Newton decreases monotonically).
+            double y = 0.5 * (1 + m);
+            for (int k = 0; k < 8; k++)
+            {
+                double next = 0.5 * (y + (m / y));
+                if (next >= y)
+                {
+                    break;
+                }
+
+                y = next;
+            }
+
+            return y * scale;
+        }
+
+        /// <summary>Absolute value |x| of a double (NaN stays NaN).</summary>
+        public static double Abs(double x)
+        {
+            return x < 0 ? -x : x;
+        }
+
+        /// <summary>Absolute value |x| of a long (long.MinValue has none and is returned unchanged).</summary>
+        public static long Abs(long x)
+        {
+            return x < 0 ? -x : x;
+        }
+
+        /// <summary>Nearest long to x, halves away from zero. x must lie within the long range (not checked).</summary>
+        public static long RoundToLong(double x)
+        {
+            return x >= 0 ? (long)(x + 0.5) : -(long)(-x + 0.5);
+        }
+
+        /// <summary>
+        /// Smallest long &gt;= x, where a value within a relative 1e-12 above a whole number counts as that
+        /// whole number (so 0.1 s x 80 MHz = 8000000.000000001 gives 8000000). x must lie within the long range.
+        /// </summary>
+        public static long CeilingToLongTolerant(double x)
+        {
+            long r = RoundToLong(x);
+            double tol = 1e-12 * Abs(x);
+            if (Abs(x - r) <= tol)
+            {
+                return r;
+            }
+
+            long t = (long)x; // truncates toward zero
+            if (t < x)
+            {
+                t++;
+            }
+
+            return t;
+        }
+    }
+}

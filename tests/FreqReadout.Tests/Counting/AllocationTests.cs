@@ -1,0 +1,56 @@
+using FreqReadout.Counting;
+
+namespace FreqReadout.Tests.Counting;
+
+/// <summary>
+/// Hot paths allocate nothing (RULES.md / PRODUCT.md: the device's garbage collector is slow and a
+/// pause drops edges). Counted with GC.GetAllocatedBytesForCurrentThread over at least a million
+/// inputs after a warm-up; the inputs include glitches, dropouts, no-signal polls and gate closes.
+/// </summary>
+[Collection("Allocation")]
+public class AllocationTests
+{
+    private static long Feed(EdgeCounter c, TimerUnwrapper u, long from, long count, ref double sink)
+    {
+        long gates = 0;
+        for (long k = from; k < from + count; k++)
+        {
+            ulong raw = (ulong)(k * 401 + (k * 13 % 7)) & 0xFFFFFFFFUL;
+            if (k % 300_000 == 10) continue;                            // one missing edge (not a dropout)
+            if (k % 400_000 == 20) continue;                            // two missing edges ...
+            if (k % 400_000 > 20 && k % 400_000 < 40) continue;         // ... and a dropout of 20 periods
+            if (!u.TryUnwrap(raw, out long tick)) continue;
+            if (c.AddEdge(tick, out GateResult r))
+            {
+                gates++;
+                sink += r.FrequencyHz + r.ErrorHz;
+            }
+
+            if (k % 50_000 == 7 && u.TryUnwrap((raw + 20) & 0xFFFFFFFFUL, out long extra) && c.AddEdge(extra, out r))
+            {
+                sink += r.FrequencyHz; // double trigger 20 ticks after the edge
+            }
+
+            if ((k & 1023) == 0 && c.Poll(tick, out GateResult p)) sink += p.EndSeconds;
+        }
+
+        return gates;
+    }
+
+    [Fact]
+    public void EdgeCounter_and_TimerUnwrapper_allocate_nothing_over_a_million_edges()
+    {
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.01, JitterTicks = 2 });
+        var u = new TimerUnwrapper(32);
+        double sink = 0;
+        Feed(c, u, 0, 200_000, ref sink); // warm-up (JIT, tiering)
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        long gates = Feed(c, u, 200_000, 1_200_000, ref sink);
+        long after = GC.GetAllocatedBytesForCurrentThread();
+        Assert.Equal(0, after - before);
+        Assert.True(gates > 500, "gates " + gates);
+        Assert.True(c.GlitchesTotal >= 24, "glitches " + c.GlitchesTotal);
+        Assert.True(c.DropoutsTotal >= 3, "dropouts " + c.DropoutsTotal);
+        Assert.True(sink > 0);
+    }
+}
