@@ -21,6 +21,10 @@ public static class Program
             config.PropagateExceptions();
             config.AddCommand<DemoCommand>("demo")
                 .WithDescription("Run the whole pipeline on a built-in invented scenario.");
+            config.AddCommand<SimulateCommand>("simulate")
+                .WithDescription("Generate a capture from physics (scene file or built-in demo scene) plus a truth file.");
+            config.AddCommand<CoilCommand>("coil")
+                .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
         });
         return app;
     }

@@ -33,9 +33,9 @@ public static class DemoScenes
             Temperature = new SceneTemperature { Kind = TemperatureProfileKind.Settling, StartC = 12, AmbientC = 24, TimeConstantS = 240 },
             Targets =
             {
-                new SceneTarget { Name = "copper pipe", Material = "copper", Shape = TargetShape.Pipe, RadiusM = 0.0075, LengthM = 1.5, DepthM = 0.05, PositionM = 0.8, OffsetM = 0 },
+                new SceneTarget { Name = "copper pipe", Material = "copper", Shape = TargetShape.Pipe, RadiusM = 0.0075, LengthM = 1.5, DepthM = 0.055, PositionM = 0.8, OffsetM = 0 },
                 new SceneTarget { Name = "small steel fixing", Material = "carbon_steel", MuR = 100, RadiusM = 0.0045, DepthM = 0.03, PositionM = 1.6, OffsetM = 0.03 },
-                new SceneTarget { Name = "large steel anchor", Material = "carbon_steel", MuR = 100, RadiusM = 0.015, DepthM = 0.12, PositionM = 2.3, OffsetM = -0.05 },
+                new SceneTarget { Name = "large steel anchor", Material = "carbon_steel", MuR = 100, RadiusM = 0.015, DepthM = 0.13, PositionM = 2.3, OffsetM = -0.05 },
             },
             Sweep = new SceneSweep { StartM = 0, EndM = 3, SpeedMPerS = 0.25, HeightM = 0.02, Passes = 4, PauseS = 3, LeadInS = 20, TailS = 5, Alternate = true },
             Hardware = new SceneHardware

@@ -141,7 +141,7 @@ public sealed class Scene
             if (!(t.DepthM > t.RadiusM && t.DepthM <= 10)) Fail($"{p}.depth_m", "above radius_m and at most 10 m (the centre lies below the surface)", t.DepthM);
             if (!double.IsFinite(t.PositionM)) Fail($"{p}.position_m", "a finite number of metres", t.PositionM);
             if (!double.IsFinite(t.OffsetM)) Fail($"{p}.offset_m", "a finite number of metres", t.OffsetM);
-            if (t.Shape == TargetShape.Pipe && !(t.LengthM >= 2 * t.RadiusM && t.LengthM <= 100)) Fail($"{p}.length_m", "in [2 radius_m, 100] m for a pipe", t.LengthM);
+            if (t.Shape == TargetShape.Pipe && !(t.LengthM >= 2 * t.RadiusM && t.LengthM <= 100)) Fail($"{p}.length_m", "given for a pipe, in [2 radius_m, 100] m", t.LengthM);
         }
 
         var s = Sweep;

@@ -24,8 +24,8 @@ public sealed class SceneTarget
     /// <summary>Sphere radius (or pipe outer radius), m.</summary>
     public double RadiusM { get; set; } = 0.01;
 
-    /// <summary>Pipe length across the sweep line, m (pipe only).</summary>
-    public double LengthM { get; set; } = 1.0;
+    /// <summary>Pipe length across the sweep line, m (pipe only: required there, ignored for spheres).</summary>
+    public double? LengthM { get; set; }
 
     /// <summary>Depth of the centre below the surface, m (&gt; radius).</summary>
     public double DepthM { get; set; } = 0.05;

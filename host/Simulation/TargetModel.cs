@@ -21,7 +21,7 @@ public sealed class TargetModel
         CrossoverHz = SpherePolarizability.CrossoverFrequencyHz(target.RadiusM, material.ConductivitySPerM, material.RelativePermeability);
         if (target.Shape == TargetShape.Pipe)
         {
-            int n = Math.Max(1, (int)Math.Floor(target.LengthM / (2 * target.RadiusM)));
+            int n = Math.Max(1, (int)Math.Floor(target.LengthM!.Value / (2 * target.RadiusM)));
             _x = new double[n];
             _y = new double[n];
             double first = target.OffsetM - (n - 1) * target.RadiusM;
