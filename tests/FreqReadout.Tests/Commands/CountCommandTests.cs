@@ -50,6 +50,20 @@ public sealed class CountCommandTests
     }
 
     [Fact]
+    public void Snapshot_captures_report_the_snapshot_regression_estimator()
+    {
+        var (exit, stdout, stderr) = ConsoleCapture.Run("count", Contract("snapshots.edges.csv"), "--gate-seconds", "0.5", "--json");
+        Assert.Equal(0, exit);
+        Assert.Equal(string.Empty, stderr);
+        var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+        Assert.Equal(3, rows.Count);
+        Assert.All(rows, r => Assert.Equal("snapshot-regression", r.GetProperty("estimator").GetString()));
+
+        // Contract README: input exactly 130 kHz; within 3 predicted sigma (common practice, no source).
+        Assert.All(rows, r => Assert.InRange(r.GetProperty("frequency_hz").GetDouble(), 130_000 - 3 * r.GetProperty("error_hz").GetDouble(), 130_000 + 3 * r.GetProperty("error_hz").GetDouble()));
+    }
+
+    [Fact]
     public void Jitter_ticks_raise_the_predicted_error()
     {
         double Error(string jitter)
