@@ -169,6 +169,25 @@ public sealed class CountCommandTests
         Assert.Contains(expected, stderr);
     }
 
+    [Theory]
+    [InlineData(new[] { "count" }, "error: Command 'count' is missing required argument 'capture'")]
+    [InlineData(new[] { "count", "x.csv", "--gate-second", "1" }, "error: Unknown option 'gate-second'")]
+    public void Usage_errors_are_one_line_without_a_stack_trace(string[] args, string expected)
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain(args);
+        Assert.Equal(2, exit);
+        Assert.StartsWith(expected, stderr);
+        Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+    }
+
+    [Fact]
+    public void A_value_that_is_not_a_number_is_named()
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain("count", Contract("minimal.edges.csv"), "--gate-seconds", "0,5");
+        Assert.Equal(CommandOutput.BadOption, exit);
+        Assert.Equal("error: --gate-seconds must be a number > 0 (seconds), got '0,5'\n", stderr);
+    }
+
     [Fact]
     public void Gate_seconds_and_gate_edges_together_are_refused()
     {
