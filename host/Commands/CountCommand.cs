@@ -28,11 +28,11 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
         [CommandOption("--gate-seconds <SECONDS>")]
         [Description("Time gate: a gate closes on the first edge at or after this many seconds (> 0). Default 0.1.")]
-        public double? GateSeconds { get; set; }
+        public string? GateSeconds { get; set; }
 
         [CommandOption("--gate-edges <N>")]
         [Description("Edge gate: a gate closes after N recorded intervals (integer >= 1). Instead of --gate-seconds.")]
-        public int? GateEdges { get; set; }
+        public string? GateEdges { get; set; }
 
         [CommandOption("--estimator <NAME>")]
         [Description("reciprocal (first and last edge) or regression (least squares over every edge). Default regression. Snapshot captures always use snapshot-regression.")]
@@ -40,11 +40,11 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
         [CommandOption("--jitter-ticks <TICKS>")]
         [Description("Timestamp jitter, rms ticks (>= 0), added to the quantisation in the error model. Default 0.")]
-        public double? JitterTicks { get; set; }
+        public string? JitterTicks { get; set; }
 
         [CommandOption("--no-signal-seconds <SECONDS>")]
         [Description("No edge within this many seconds reports no_signal (> 0). Default 0.5.")]
-        public double? NoSignalSeconds { get; set; }
+        public string? NoSignalSeconds { get; set; }
 
         [CommandOption("--json")]
         [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz, edges, error_hz, estimator, state.")]
@@ -56,17 +56,17 @@ public sealed class CountCommand : Command<CountCommand.Settings>
     {
         error = null;
         var options = new CounterSettings();
-        if (settings.GateSeconds.HasValue && settings.GateEdges.HasValue)
+        if (settings.GateSeconds != null && settings.GateEdges != null)
         {
             error = "give either --gate-seconds or --gate-edges, not both";
             return null;
         }
 
-        if (settings.GateSeconds is double seconds)
+        if (settings.GateSeconds != null)
         {
-            if (!(seconds > 0) || !double.IsFinite(seconds))
+            if (!OptionValues.TryNumber(settings.GateSeconds, out double seconds) || !(seconds > 0))
             {
-                error = $"--gate-seconds must be a number > 0 (seconds), got {Num(seconds)}";
+                error = $"--gate-seconds must be a number > 0 (seconds), got '{settings.GateSeconds}'";
                 return null;
             }
 
@@ -74,11 +74,11 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             options.GateSeconds = seconds;
         }
 
-        if (settings.GateEdges is int edges)
+        if (settings.GateEdges != null)
         {
-            if (edges < 1 || edges > EdgeCounter.MaxGateIntervals)
+            if (!int.TryParse(settings.GateEdges, NumberStyles.None, CultureInfo.InvariantCulture, out int edges) || edges < 1 || edges > EdgeCounter.MaxGateIntervals)
             {
-                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got {edges}";
+                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got '{settings.GateEdges}'";
                 return null;
             }
 
@@ -100,22 +100,22 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                 return null;
         }
 
-        if (settings.JitterTicks is double jitter)
+        if (settings.JitterTicks != null)
         {
-            if (!(jitter >= 0) || !double.IsFinite(jitter))
+            if (!OptionValues.TryNumber(settings.JitterTicks, out double jitter) || !(jitter >= 0))
             {
-                error = $"--jitter-ticks must be a number >= 0 (rms ticks), got {Num(jitter)}";
+                error = $"--jitter-ticks must be a number >= 0 (rms ticks), got '{settings.JitterTicks}'";
                 return null;
             }
 
             options.JitterTicks = jitter;
         }
 
-        if (settings.NoSignalSeconds is double noSignal)
+        if (settings.NoSignalSeconds != null)
         {
-            if (!(noSignal > 0) || !double.IsFinite(noSignal))
+            if (!OptionValues.TryNumber(settings.NoSignalSeconds, out double noSignal) || !(noSignal > 0))
             {
-                error = $"--no-signal-seconds must be a number > 0 (seconds), got {Num(noSignal)}";
+                error = $"--no-signal-seconds must be a number > 0 (seconds), got '{settings.NoSignalSeconds}'";
                 return null;
             }
 

@@ -50,6 +50,20 @@ public sealed class CountCommandTests
     }
 
     [Fact]
+    public void Snapshot_captures_report_the_snapshot_regression_estimator()
+    {
+        var (exit, stdout, stderr) = ConsoleCapture.Run("count", Contract("snapshots.edges.csv"), "--gate-seconds", "0.5", "--json");
+        Assert.Equal(0, exit);
+        Assert.Equal(string.Empty, stderr);
+        var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+        Assert.Equal(3, rows.Count);
+        Assert.All(rows, r => Assert.Equal("snapshot-regression", r.GetProperty("estimator").GetString()));
+
+        // Contract README: input exactly 130 kHz; within 3 predicted sigma (common practice, no source).
+        Assert.All(rows, r => Assert.InRange(r.GetProperty("frequency_hz").GetDouble(), 130_000 - 3 * r.GetProperty("error_hz").GetDouble(), 130_000 + 3 * r.GetProperty("error_hz").GetDouble()));
+    }
+
+    [Fact]
     public void Jitter_ticks_raise_the_predicted_error()
     {
         double Error(string jitter)
@@ -153,6 +167,25 @@ public sealed class CountCommandTests
         var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), option, value);
         Assert.Equal(CommandOutput.BadOption, exit);
         Assert.Contains(expected, stderr);
+    }
+
+    [Theory]
+    [InlineData(new[] { "count" }, "error: Command 'count' is missing required argument 'capture'")]
+    [InlineData(new[] { "count", "x.csv", "--gate-second", "1" }, "error: Unknown option 'gate-second'")]
+    public void Usage_errors_are_one_line_without_a_stack_trace(string[] args, string expected)
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain(args);
+        Assert.Equal(2, exit);
+        Assert.StartsWith(expected, stderr);
+        Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+    }
+
+    [Fact]
+    public void A_value_that_is_not_a_number_is_named()
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain("count", Contract("minimal.edges.csv"), "--gate-seconds", "0,5");
+        Assert.Equal(CommandOutput.BadOption, exit);
+        Assert.Equal("error: --gate-seconds must be a number > 0 (seconds), got '0,5'\n", stderr);
     }
 
     [Fact]
