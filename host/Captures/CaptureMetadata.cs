@@ -43,4 +43,31 @@ public sealed class CaptureMetadata
 
     /// <summary>Data columns after the first (<c>tick</c>, or <c>tick,count</c>): any of <c>temp_c</c>, <c>mark</c>, in file order.</summary>
     public List<string> ExtraColumns { get; } = new();
+
+    /// <summary>
+    /// The header lines in the order they were read (keys and comments), so a writer reproduces them;
+    /// empty for metadata built in code (writers then use a fixed order and write only keys that
+    /// differ from their defaults, plus <c>clock_hz</c>).
+    /// </summary>
+    public List<CaptureHeaderLine> HeaderLines { get; } = new();
+
+    /// <summary>True when the capture has a <c>temp_c</c> column.</summary>
+    public bool HasTemperatureColumn => ExtraColumns.Contains(CaptureColumns.TemperatureC);
+
+    /// <summary>True when the capture has a <c>mark</c> column.</summary>
+    public bool HasMarkColumn => ExtraColumns.Contains(CaptureColumns.Mark);
+
+    /// <summary>The value of an unknown key, or null.</summary>
+    public string? GetExtra(string key)
+    {
+        foreach (var pair in Extra)
+        {
+            if (pair.Key == key)
+            {
+                return pair.Value;
+            }
+        }
+
+        return null;
+    }
 }

@@ -24,13 +24,13 @@ namespace FreqReadout.Counting
         /// <summary>Edge gate length in recorded intervals (&gt;= 1). Default 100.</summary>
         public int GateEdges { get; set; } = 100;
 
-        /// <summary>Estimator reported in <see cref="GateResult.FrequencyHz"/>. Default regression.</summary>
+        /// <summary>Estimator reported in <see cref="GateResult.FrequencyHz"/> by <see cref="EdgeCounter"/> (reciprocal or regression; the snapshot counter always uses snapshot regression). Default regression.</summary>
         public EstimatorKind Estimator { get; set; } = EstimatorKind.Regression;
 
-        /// <summary>Configured white timestamp jitter, rms ticks (&gt;= 0), added to the quantisation q^2/12 in the error model. Default 0.</summary>
+        /// <summary>Configured white timestamp jitter, rms ticks (&gt;= 0), added to the quantisation q^2/12 in the error model (for snapshots: the read jitter of the recorded tick). Default 0.</summary>
         public double JitterTicks { get; set; }
 
-        /// <summary>An interval shorter than this fraction of the running period is a double-triggered edge and is rejected (0..1). Default 0.5.</summary>
+        /// <summary>An interval shorter than this fraction of the running period is a double-triggered edge and is rejected (0..1, exclusive). Default 0.5. Edges only.</summary>
         public double GlitchFraction { get; set; } = 0.5;
 
         /// <summary>A gap longer than this many running periods is a dropout that closes the gate (&gt; 1). Default 8.</summary>

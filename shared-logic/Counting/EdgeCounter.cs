@@ -41,7 +41,11 @@ namespace FreqReadout.Counting
     /// The bootstrap interval itself is not checked, so a double trigger on the very first interval
     /// leads to one short dropout gate before the period re-bootstraps.
     /// </para>
-    /// Nothing allocates per edge or per gate.
+    /// <para>
+    /// Empty input: a gate needs at least 2 edges (one interval); until then, and for a gate cut
+    /// short by a gap before its second edge, no result is made (AddEdge returns false), never a
+    /// division by zero. Nothing allocates per edge or per gate.
+    /// </para>
     /// </summary>
     public sealed class EdgeCounter
     {

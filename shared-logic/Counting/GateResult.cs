@@ -7,6 +7,7 @@ namespace FreqReadout.Counting
     /// </summary>
     public struct GateResult
     {
+        /// <summary>Makes a result; every argument is stored in the property of the same name.</summary>
         public GateResult(
             GateState state,
             EstimatorKind estimator,

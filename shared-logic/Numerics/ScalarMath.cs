@@ -13,7 +13,7 @@ namespace FreqReadout.Numerics
 
         /// <summary>
         /// Square root by Newton's iteration y &lt;- (y + m / y) / 2 on the mantissa m scaled into [1, 4)
-        /// by exact powers of four (so the result is exact to about one ulp).
+        /// by exact powers of four, then one correction y + (m - y^2) / (2 y); within one ulp of the exact root.
         /// </summary>
         /// <param name="x">The radicand.</param>
         /// <returns>sqrt(x); 0 for x = 0; NaN for x &lt; 0 or NaN; +infinity for +infinity.</returns>
@@ -73,6 +73,8 @@ namespace FreqReadout.Numerics
                 y = next;
             }
 
+            // One correction in residual form: y + (m - y^2) / (2 y) recovers the last ulp.
+            y += (m - (y * y)) / (2.0 * y);
             return y * scale;
         }
 

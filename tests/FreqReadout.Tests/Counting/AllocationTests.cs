@@ -53,4 +53,41 @@ public class AllocationTests
         Assert.True(c.DropoutsTotal >= 3, "dropouts " + c.DropoutsTotal);
         Assert.True(sink > 0);
     }
+
+    private static long FeedSnapshots(SnapshotCounter c, TimerUnwrapper ut, TimerUnwrapper uc, long from, long count, ref double sink)
+    {
+        long gates = 0;
+        for (long k = from; k < from + count; k++)
+        {
+            if (k % 250_000 > 100 && k % 250_000 < 120) continue;           // a read gap (dropout)
+            long t = k * 1000 + (k * 7919 % 41) - 20;                           // +-20 ticks of read jitter
+            long n = (k % 500_000 > 1000 && k % 500_000 < 1200) ? (k - k % 500_000 + 1000) * 130 : t * 130 / 1000; // a count stall
+            if (k % 100_003 == 5) { if (ut.TryUnwrap((ulong)(t - 5000) & 0xFFFFFFFF, out long bad)) c.AddSnapshot(bad, 0, out _); }
+            if (!ut.TryUnwrap((ulong)t & 0xFFFFFFFF, out long tick) || !uc.TryUnwrap((ulong)n & 0xFFFF, out long cnt)) continue;
+            if (c.AddSnapshot(tick, cnt, out GateResult r))
+            {
+                gates++;
+                sink += r.FrequencyHz + r.ErrorHz + r.EndSeconds;
+            }
+        }
+
+        return gates;
+    }
+
+    [Fact]
+    public void SnapshotCounter_allocates_nothing_over_a_million_snapshots()
+    {
+        var c = new SnapshotCounter(new CounterSettings { ClockHz = 1e6, GateSeconds = 0.1, JitterTicks = 11.5 });
+        var ut = new TimerUnwrapper(32);
+        var uc = new TimerUnwrapper(16, true);
+        double sink = 0;
+        FeedSnapshots(c, ut, uc, 0, 200_000, ref sink);
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        long gates = FeedSnapshots(c, ut, uc, 200_000, 1_100_000, ref sink);
+        long after = GC.GetAllocatedBytesForCurrentThread();
+        Assert.Equal(0, after - before);
+        Assert.True(gates > 10_000, "gates " + gates);
+        Assert.True(c.DropoutsTotal >= 6, "dropouts " + c.DropoutsTotal);
+        Assert.True(sink > 0);
+    }
 }

@@ -234,11 +234,16 @@ public class EdgeCounterTests
     /// true rate within the one-tick bound (Boyes 2003, Fig. 20.75).
     /// </summary>
     [Theory]
-    [InlineData(4294967296L - 800_000_000L)]          // crosses 2^32 ticks in the run
-    [InlineData(3L * 3600 * 80_000_000)]              // three hours of 80 MHz ticks
-    [InlineData(4611686018427387904L)]                // 2^62
-    public void One_second_gates_at_200_kHz_on_80_MHz_stay_exact_far_beyond_two_to_the_32(long start)
+    [InlineData(4294967296L - 800_000_000L, 0)]       // crosses 2^32 ticks in the run
+    [InlineData(4294967296L - 800_000_000L, 32)]      // the same through a 32-bit timer that wraps in the run
+    [InlineData(3L * 3600 * 80_000_000, 0)]           // three hours of 80 MHz ticks
+    [InlineData(3L * 3600 * 80_000_000, 24)]          // ... through a 24-bit timer (wraps every 0.2 s, 100 times)
+    [InlineData(4611686018427387904L, 0)]             // 2^62
+    [InlineData(4611686018427387904L, 64)]            // 2^62 as a raw 64-bit timer value
+    public void One_second_gates_at_200_kHz_on_80_MHz_stay_exact_far_beyond_two_to_the_32(long start, int timerBits)
     {
+        TimerUnwrapper? u = timerBits == 0 ? null : new TimerUnwrapper(timerBits);
+        ulong mask = timerBits == 64 ? ulong.MaxValue : timerBits == 0 ? 0 : (1UL << timerBits) - 1;
         const double clock = 80e6;
         const long num = 800_000_000; // period 8e8/1999993 = 400.0014 ticks: 199 999.3 Hz
         const long den = 1_999_993;
@@ -256,7 +261,14 @@ public class EdgeCounterTests
             Int128 rel = tick - gateFirst;
             si += idx; sii += (Int128)idx * idx; st += rel; sit += idx * rel;
             idx++;
-            if (!c.AddEdge(tick, out GateResult r)) continue;
+            long fed = tick;
+            if (u != null)
+            {
+                Assert.True(u.TryUnwrap((ulong)tick & mask, out fed));
+                Assert.Equal(tick - start, fed);
+            }
+
+            if (!c.AddEdge(fed, out GateResult r)) continue;
             gates++;
             Int128 n = idx;
             Int128 numer = n * sit - si * st;
@@ -270,12 +282,14 @@ public class EdgeCounterTests
             Assert.True(Math.Abs(r.ReciprocalHz - fTrue) <= bound);
             Assert.True(Math.Abs(r.RegressionHz - fTrue) <= bound);
             Assert.Equal(1.0, r.SpanSeconds, 5);
+            Assert.Equal(tick - (u == null ? 0 : start), r.EndTick);
             Assert.InRange(r.Edges, 199_999, 200_002);
             // The closing edge opens the next gate.
             si = 0; sii = 0; st = 0; sit = 0; idx = 1; gateFirst = tick;
         }
 
         Assert.True(c.EdgesTotal > 3_999_000);
+        if (timerBits == 24) Assert.True(u!.Wraps >= 95, "wraps " + u.Wraps);
     }
 
     /// <summary>Glitch guard: a double-triggered edge 10 % of a period after a good edge is rejected and counted; the frequency is unchanged.</summary>
@@ -433,5 +447,56 @@ public class EdgeCounterTests
         for (int k = 0; k <= 10; k++) c.AddEdge(5 + k * 100L, out r);
         Assert.Equal(0.0, r.StartSeconds);
         Assert.Equal(10_000.0, r.FrequencyHz, 9);
+    }
+}
+
+public class EdgeCounterNominalTests
+{
+    /// <summary>
+    /// P0 badly off: the bootstrap interval is 500 ticks but the signal then runs at 400 ticks, so
+    /// the residuals against P0 grow by 100 ticks per edge and pass 2^21 within the first gate; the
+    /// re-nominalised sums must still give the exact least-squares slope (128-bit check) of the same edges.
+    /// </summary>
+    [Fact]
+    public void Badly_off_nominal_period_is_re_nominalised_exactly()
+    {
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 1.0 });
+        var exact = new ExactLine();
+        long tick = 1L << 40;
+        GateResult r = default;
+        bool got = false;
+        for (int k = 0; !got; k++)
+        {
+            if (k == 1) tick += 500;
+            else if (k > 1) tick += 400 + (k % 3 == 0 ? 1 : 0);
+            exact.Add(k, tick);
+            got = c.AddEdge(tick, out r);
+        }
+
+        Assert.InRange(r.Edges, 195_000, 205_000);
+        double exactHz = 80e6 / exact.Slope;
+        Assert.Equal(exactHz, r.RegressionHz, exactHz * 1e-12);
+        double recHz = (r.Edges - 1) * 80e6 / (r.EndTick - r.StartTick);
+        Assert.Equal(recHz, r.ReciprocalHz, recHz * 1e-13);
+    }
+
+    /// <summary>Low beat note with a long gate and a huge period (1.3 Hz on 80 MHz, 61.5 M ticks per edge): no overflow, exact.</summary>
+    [Fact]
+    public void Very_long_periods_stay_exact()
+    {
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 20, NoSignalSeconds = 5 });
+        var exact = new ExactLine();
+        GateResult r = default;
+        bool got = false;
+        for (long k = 0; !got; k++)
+        {
+            long tick = EdgeStreams.QuantisedTick(1L << 62, 7, 800_000_000, 13, k);
+            exact.Add(k, tick);
+            got = c.AddEdge(tick, out r);
+        }
+
+        Assert.Equal(80e6 / exact.Slope, r.RegressionHz, 1e-12);
+        Assert.Equal(1.3, r.RegressionHz, 1e-7);
+        Assert.Equal(1.3, r.ReciprocalHz, 1.3 / (r.EndTick - r.StartTick));
     }
 }

@@ -1,0 +1,92 @@
+namespace FreqReadout.Host.Captures;
+
+/// <summary>
+/// Opens and creates capture files of either format. <see cref="Open"/> picks the format by the
+/// file's first bytes (the binary magic), never by its name.
+/// </summary>
+public static class CaptureFile
+{
+    /// <summary>Opens a capture for streaming, text or binary by content.</summary>
+    /// <exception cref="CaptureFormatException">The header is malformed (names file, line or block, and what was expected).</exception>
+    /// <exception cref="FileNotFoundException">No such file.</exception>
+    public static ICaptureReader Open(string path)
+    {
+        var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 65536, FileOptions.SequentialScan);
+        try
+        {
+            return Open(stream, path);
+        }
+        catch
+        {
+            stream.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>Opens a capture from a stream, text or binary by content. The reader owns the stream.</summary>
+    /// <param name="stream">Capture bytes; need not be seekable.</param>
+    /// <param name="sourceName">Name used in messages.</param>
+    public static ICaptureReader Open(Stream stream, string sourceName)
+    {
+        var buffered = stream.CanSeek ? stream : new BufferedStream(stream, 65536);
+        return DetectFormat(buffered, out Stream rest) == CaptureFileFormat.Binary
+            ? new BinaryCaptureReader(rest, sourceName)
+            : new TextCaptureReader(rest, sourceName);
+    }
+
+    /// <summary>Tells the format of a file by its first bytes.</summary>
+    public static CaptureFileFormat DetectFormat(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        return DetectFormat(stream, out _);
+    }
+
+    /// <summary>Creates (overwrites) a capture file in the given format; the header is written at once.</summary>
+    /// <exception cref="ArgumentException">The metadata is not writable (names the property and its allowed range).</exception>
+    public static ICaptureWriter Create(string path, CaptureMetadata metadata, CaptureFileFormat format)
+    {
+        var stream = new FileStream(path, FileMode.Create, FileAccess.Write, FileShare.None, 65536);
+        try
+        {
+            return Create(stream, metadata, format);
+        }
+        catch
+        {
+            stream.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>Writes a capture to a stream in the given format; the writer owns the stream.</summary>
+    public static ICaptureWriter Create(Stream stream, CaptureMetadata metadata, CaptureFileFormat format)
+    {
+        return format == CaptureFileFormat.Binary
+            ? new BinaryCaptureWriter(stream, metadata)
+            : new TextCaptureWriter(stream, metadata);
+    }
+
+    /// <summary>
+    /// Peeks at the first bytes: the binary magic means binary, anything else is handed to the text
+    /// reader (which reports "not a capture" when the magic line is missing too).
+    /// </summary>
+    private static CaptureFileFormat DetectFormat(Stream stream, out Stream rest)
+    {
+        byte[] magic = BinaryCaptureFormat.Magic;
+        byte[] head = new byte[magic.Length];
+        int n = 0;
+        while (n < head.Length)
+        {
+            int got = stream.Read(head, n, head.Length - n);
+            if (got == 0)
+            {
+                break;
+            }
+
+            n += got;
+        }
+
+        bool binary = n == magic.Length && head.AsSpan().SequenceEqual(magic);
+        rest = new PrefixedStream(head, n, stream);
+        return binary ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+    }
+}

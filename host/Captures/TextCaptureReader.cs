@@ -1,0 +1,426 @@
+using System.Globalization;
+using System.Text;
+
+namespace FreqReadout.Host.Captures;
+
+/// <summary>
+/// Streaming reader of the capture text format (PRODUCT.md, "Capture text format"). The header
+/// (magic line, metadata, column header) is read and checked when the reader is built; data rows
+/// are parsed one line at a time as <see cref="ReadRows"/> is enumerated, so a capture larger than
+/// memory replays. Trailer lines are collected as they are met.
+/// </summary>
+/// <remarks>
+/// Decisions beyond the contract's words: the first non-blank line must be the magic line; a
+/// <c>#</c> line after the column header starts the trailer, and every line after it must be a
+/// <c># key = value</c> line (no comments, no data); trailer keys are unique; every data row has
+/// exactly one field per column; with <c>timer_bits = 64</c> the reader rejects a tick that does not
+/// strictly increase (for narrower timers whether a step is plausible is the unwrapper's concern,
+/// see <c>CaptureGateSource</c>); with <c>count_bits = 64</c> it rejects a count that decreases.
+/// Every error is a <see cref="CaptureFormatException"/> naming the line and what was expected.
+/// </remarks>
+public sealed class TextCaptureReader : ICaptureReader
+{
+    /// <summary>The first line of every text capture.</summary>
+    public const string MagicLine = "# freqreadout capture 1";
+
+    private const string MagicPrefix = "# freqreadout capture";
+
+    private readonly TextReader _reader;
+    private readonly bool _leaveOpen;
+    private readonly List<string> _warnings = new();
+    private readonly List<KeyValuePair<string, string>> _trailer = new();
+    private readonly ColumnKind[] _columns;
+    private readonly string _headerText;
+    private long _lineNumber;
+    private bool _started;
+
+    /// <summary>Reads a text capture from a stream (UTF-8, an optional BOM is skipped).</summary>
+    /// <param name="stream">The capture bytes.</param>
+    /// <param name="sourceName">Name used in messages (usually the file path).</param>
+    /// <param name="leaveOpen">True to leave <paramref name="stream"/> open on dispose.</param>
+    public TextCaptureReader(Stream stream, string sourceName, bool leaveOpen = false)
+        : this(new StreamReader(stream, new UTF8Encoding(false, false), detectEncodingFromByteOrderMarks: false, bufferSize: 65536, leaveOpen: leaveOpen), sourceName, leaveOpen: false)
+    {
+    }
+
+    /// <summary>Reads a text capture from a text reader (a leading U+FEFF is skipped).</summary>
+    /// <param name="reader">The capture text.</param>
+    /// <param name="sourceName">Name used in messages (usually the file path).</param>
+    /// <param name="leaveOpen">True to leave <paramref name="reader"/> open on dispose.</param>
+    public TextCaptureReader(TextReader reader, string sourceName, bool leaveOpen = false)
+    {
+        _reader = reader;
+        _leaveOpen = leaveOpen;
+        SourceName = sourceName;
+        try
+        {
+            (Metadata, _columns, _headerText) = ReadHeader();
+        }
+        catch
+        {
+            if (!leaveOpen)
+            {
+                reader.Dispose();
+            }
+
+            throw;
+        }
+    }
+
+    /// <summary>Opens a text capture file.</summary>
+    public static TextCaptureReader Open(string path)
+    {
+        var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 65536, FileOptions.SequentialScan);
+        return new TextCaptureReader(stream, path);
+    }
+
+    private enum ColumnKind
+    {
+        Tick,
+        Count,
+        TemperatureC,
+        Mark,
+    }
+
+    /// <inheritdoc/>
+    public string SourceName { get; }
+
+    /// <inheritdoc/>
+    public CaptureMetadata Metadata { get; }
+
+    /// <inheritdoc/>
+    public IReadOnlyList<string> Warnings => _warnings;
+
+    /// <inheritdoc/>
+    public IReadOnlyList<KeyValuePair<string, string>> Trailer => _trailer;
+
+    /// <summary>The column header row as read (for messages).</summary>
+    public string ColumnHeader => _headerText;
+
+    /// <inheritdoc/>
+    public IEnumerable<CaptureRow> ReadRows()
+    {
+        if (_started)
+        {
+            throw new InvalidOperationException("ReadRows streams the capture once; open the file again to read it again");
+        }
+
+        _started = true;
+        return Rows();
+    }
+
+    /// <inheritdoc/>
+    public void Dispose()
+    {
+        if (!_leaveOpen)
+        {
+            _reader.Dispose();
+        }
+    }
+
+    private IEnumerable<CaptureRow> Rows()
+    {
+        var md = Metadata;
+        ulong tickLimit = MaxValue(md.TimerBits);
+        ulong countLimit = MaxValue(md.CountBits);
+        var order = new CaptureRowOrder(md);
+        bool inTrailer = false;
+        long firstTrailerLine = 0;
+        var trailerKeys = new Dictionary<string, long>(StringComparer.Ordinal);
+        string? line;
+        while ((line = NextLine()) != null)
+        {
+            if (string.IsNullOrWhiteSpace(line))
+            {
+                continue;
+            }
+
+            ReadOnlySpan<char> span = line.AsSpan().Trim();
+            if (span[0] == '#')
+            {
+                if (!inTrailer)
+                {
+                    inTrailer = true;
+                    firstTrailerLine = _lineNumber;
+                }
+
+                ReadTrailerLine(line.TrimStart().Substring(1), trailerKeys);
+                continue;
+            }
+
+            if (inTrailer)
+            {
+                throw Error(_lineNumber, $"expected only trailer lines '# key = value' after the first trailer line (line {firstTrailerLine}), found a data row; nothing else may follow the trailer");
+            }
+
+            int fields = CountFields(span);
+            if (fields != _columns.Length)
+            {
+                throw Error(_lineNumber, $"expected {_columns.Length} comma-separated field{(_columns.Length == 1 ? "" : "s")} ({_headerText}), found {fields}");
+            }
+
+            ulong tick = 0;
+            ulong count = 0;
+            double? temperature = null;
+            string? mark = null;
+            int field = 0;
+            int start = 0;
+            while (true)
+            {
+                int comma = span.Slice(start).IndexOf(',');
+                ReadOnlySpan<char> text = (comma < 0 ? span.Slice(start) : span.Slice(start, comma)).Trim();
+                switch (_columns[field])
+                {
+                    case ColumnKind.Tick:
+                        tick = ParseUnsigned(text, "tick", md.TimerBits, tickLimit, "timer_bits");
+                        break;
+                    case ColumnKind.Count:
+                        count = ParseUnsigned(text, "count", md.CountBits, countLimit, "count_bits");
+                        break;
+                    case ColumnKind.TemperatureC:
+                        if (!text.IsEmpty)
+                        {
+                            if (!CaptureMetadataParser.TryParseDouble(text, out double t) || t < -273.15)
+                            {
+                                throw Error(_lineNumber, $"expected temp_c as a number in degrees Celsius with '.' as decimal separator (or blank for no new sample), found '{text.ToString()}'");
+                            }
+
+                            temperature = t;
+                        }
+
+                        break;
+                    case ColumnKind.Mark:
+                        if (!text.IsEmpty)
+                        {
+                            mark = text.ToString();
+                        }
+
+                        break;
+                }
+
+                field++;
+                if (comma < 0)
+                {
+                    break;
+                }
+
+                start += comma + 1;
+            }
+
+            var row = new CaptureRow(_lineNumber, tick, count, temperature, mark);
+            string? orderProblem = order.Check(row, "line");
+            if (orderProblem != null)
+            {
+                throw Error(_lineNumber, orderProblem);
+            }
+
+            yield return row;
+        }
+    }
+
+    private static int CountFields(ReadOnlySpan<char> span)
+    {
+        int n = 1;
+        foreach (char c in span)
+        {
+            if (c == ',')
+            {
+                n++;
+            }
+        }
+
+        return n;
+    }
+
+    private void ReadTrailerLine(string afterHash, Dictionary<string, long> keys)
+    {
+        if (!CaptureMetadataParser.TrySplitKeyValue(afterHash, out string key, out string value))
+        {
+            throw Error(_lineNumber, $"expected a trailer line '# key = value' (only trailer metadata may follow the data rows), found '#{afterHash}'");
+        }
+
+        string? syntax = CaptureMetadataParser.CheckKeySyntax(key);
+        if (syntax != null)
+        {
+            throw Error(_lineNumber, syntax);
+        }
+
+        if (keys.TryGetValue(key, out long first))
+        {
+            throw Error(_lineNumber, $"duplicate trailer key '{key}' (first given at line {first}); each key may appear once");
+        }
+
+        keys[key] = _lineNumber;
+        _trailer.Add(new KeyValuePair<string, string>(key, value));
+    }
+
+    private ulong ParseUnsigned(ReadOnlySpan<char> text, string column, int bits, ulong max, string widthKey)
+    {
+        if (text.IsEmpty)
+        {
+            throw Error(_lineNumber, $"expected the {column} as an unsigned integer, found an empty field");
+        }
+
+        foreach (char c in text)
+        {
+            if (c < '0' || c > '9')
+            {
+                throw Error(_lineNumber, $"expected the {column} as an unsigned integer (digits only), found '{text.ToString()}'");
+            }
+        }
+
+        if (!ulong.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out ulong value) || value > max)
+        {
+            throw Error(_lineNumber, $"{column} {text.ToString()} exceeds the {(column == "tick" ? "timer" : "counter")} width: {widthKey} = {bits} allows 0 to {max}");
+        }
+
+        return value;
+    }
+
+    private static ulong MaxValue(int bits) => bits >= 64 ? ulong.MaxValue : (1UL << bits) - 1;
+
+    private (CaptureMetadata, ColumnKind[], string) ReadHeader()
+    {
+        string? line;
+        do
+        {
+            line = NextLine();
+            if (line == null)
+            {
+                throw Error(Math.Max(1, _lineNumber), $"not a capture: expected the first line '{MagicLine}', found an empty file");
+            }
+        }
+        while (string.IsNullOrWhiteSpace(line));
+
+        string magic = line.Trim();
+        if (magic != MagicLine)
+        {
+            if (magic.StartsWith(MagicPrefix, StringComparison.Ordinal))
+            {
+                throw Error(_lineNumber, $"unsupported capture version: expected '{MagicLine}', found '{Shorten(magic)}'");
+            }
+
+            throw Error(_lineNumber, $"not a capture: expected the first line '{MagicLine}', found '{Shorten(magic)}'");
+        }
+
+        var parser = new CaptureMetadataParser(SourceName, _warnings);
+        while (true)
+        {
+            line = NextLine();
+            if (line == null)
+            {
+                throw Error(_lineNumber + 1, "expected the column header row ('tick', or 'tick,count' for kind = snapshots), found the end of the file");
+            }
+
+            if (string.IsNullOrWhiteSpace(line))
+            {
+                continue;
+            }
+
+            string trimmed = line.Trim();
+            if (trimmed[0] == '#')
+            {
+                string afterHash = line.TrimStart().Substring(1);
+                if (CaptureMetadataParser.TrySplitKeyValue(afterHash, out string key, out string value))
+                {
+                    parser.Add(key, value, _lineNumber);
+                }
+                else
+                {
+                    parser.AddComment(afterHash);
+                }
+
+                continue;
+            }
+
+            var md = parser.Metadata;
+            string expected = md.Kind == CaptureKind.Snapshots ? "'tick,count' (kind = snapshots)" : "'tick' (kind = edges)";
+            string[] names = trimmed.Split(',');
+            for (int i = 0; i < names.Length; i++)
+            {
+                names[i] = names[i].Trim();
+            }
+
+            if (names[0] != CaptureColumns.Tick)
+            {
+                throw Error(_lineNumber, $"expected the column header row starting with {expected} before the data rows, found '{Shorten(trimmed)}'");
+            }
+
+            parser.Finish(_lineNumber);
+            var columns = new List<ColumnKind> { ColumnKind.Tick };
+            int first = 1;
+            if (md.Kind == CaptureKind.Snapshots)
+            {
+                if (names.Length < 2 || names[1] != CaptureColumns.Count)
+                {
+                    throw Error(_lineNumber, $"expected the column header row starting with {expected}, found '{Shorten(trimmed)}'");
+                }
+
+                columns.Add(ColumnKind.Count);
+                first = 2;
+            }
+
+            for (int i = first; i < names.Length; i++)
+            {
+                string name = names[i];
+                ColumnKind kind;
+                if (name == CaptureColumns.TemperatureC)
+                {
+                    kind = ColumnKind.TemperatureC;
+                }
+                else if (name == CaptureColumns.Mark)
+                {
+                    kind = ColumnKind.Mark;
+                }
+                else if (name == CaptureColumns.Count)
+                {
+                    throw Error(_lineNumber, "unexpected column 'count': it belongs to kind = snapshots (give '# kind = snapshots' before the column header); expected only temp_c and mark after 'tick'");
+                }
+                else if (name.Length == 0)
+                {
+                    throw Error(_lineNumber, $"empty column name in the column header (column {i + 1}); expected temp_c or mark");
+                }
+                else
+                {
+                    throw Error(_lineNumber, $"unknown column '{name}'; expected only temp_c and mark after {expected}");
+                }
+
+                if (columns.Contains(kind))
+                {
+                    throw Error(_lineNumber, $"column '{name}' appears twice in the column header; each column may appear once");
+                }
+
+                columns.Add(kind);
+                md.ExtraColumns.Add(name);
+            }
+
+            return (md, columns.ToArray(), string.Join(",", names));
+        }
+    }
+
+    private string? NextLine()
+    {
+        string? line = _reader.ReadLine();
+        if (line == null)
+        {
+            return null;
+        }
+
+        _lineNumber++;
+        if (_lineNumber == 1 && line.Length > 0 && line[0] == '\uFEFF')
+        {
+            line = line.Substring(1);
+        }
+
+        if (line.Contains('\uFFFD'))
+        {
+            throw Error(_lineNumber, "expected UTF-8 text: the line holds a byte sequence that is not valid UTF-8");
+        }
+
+        return line;
+    }
+
+    private static string Shorten(string text) => text.Length <= 60 ? text : text.Substring(0, 57) + "...";
+
+    private CaptureFormatException Error(long line, string problem) => new(SourceName, line, problem);
+}

@@ -1,0 +1,221 @@
+using System.Globalization;
+using System.Text;
+
+namespace FreqReadout.Host.Captures;
+
+/// <summary>
+/// Streaming writer of the capture text format (PRODUCT.md): UTF-8 without BOM, LF line ends, the
+/// magic line, the header lines (in the metadata's own order, see <see cref="CaptureMetadata.HeaderLines"/>),
+/// the column header, one line per row, and the trailer on <see cref="Complete"/>. Numbers are
+/// written in the shortest invariant form that reads back to the same value, so a capture read by
+/// <see cref="TextCaptureReader"/> and written again is byte-identical (blank lines and spacing
+/// around '=' aside).
+/// </summary>
+public sealed class TextCaptureWriter : ICaptureWriter
+{
+    private readonly TextWriter _writer;
+    private readonly bool _leaveOpen;
+    private readonly CaptureMetadata _metadata;
+    private readonly bool _hasTemperature;
+    private readonly bool _hasMark;
+    private readonly bool _snapshots;
+    private readonly ulong _tickMax;
+    private readonly ulong _countMax;
+    private readonly CaptureRowOrder _order;
+    private bool _completed;
+
+    /// <summary>Writes a text capture to a stream (UTF-8, no BOM). The header is written at once.</summary>
+    /// <exception cref="ArgumentException">The metadata is not writable (names the property and its allowed range).</exception>
+    public TextCaptureWriter(Stream stream, CaptureMetadata metadata, bool leaveOpen = false)
+        : this(new StreamWriter(stream, new UTF8Encoding(false), 65536, leaveOpen), metadata, leaveOpen: false)
+    {
+    }
+
+    /// <summary>Writes a text capture to a text writer. The header is written at once.</summary>
+    /// <exception cref="ArgumentException">The metadata is not writable (names the property and its allowed range).</exception>
+    public TextCaptureWriter(TextWriter writer, CaptureMetadata metadata, bool leaveOpen = false)
+    {
+        CaptureMetadataFormatter.Validate(metadata);
+        _writer = writer;
+        _leaveOpen = leaveOpen;
+        _metadata = metadata;
+        _snapshots = metadata.Kind == CaptureKind.Snapshots;
+        _hasTemperature = metadata.HasTemperatureColumn;
+        _hasMark = metadata.HasMarkColumn;
+        _tickMax = metadata.TimerBits >= 64 ? ulong.MaxValue : (1UL << metadata.TimerBits) - 1;
+        _countMax = metadata.CountBits >= 64 ? ulong.MaxValue : (1UL << metadata.CountBits) - 1;
+        _order = new CaptureRowOrder(metadata);
+        _writer.NewLine = "\n";
+        _writer.Write(TextCaptureReader.MagicLine);
+        _writer.Write('\n');
+        foreach (var entry in CaptureMetadataFormatter.Entries(metadata))
+        {
+            if (entry.Key is null)
+            {
+                _writer.Write('#');
+                _writer.Write(entry.Text);
+            }
+            else
+            {
+                _writer.Write("# ");
+                _writer.Write(entry.Key);
+                _writer.Write(" = ");
+                _writer.Write(entry.Text);
+            }
+
+            _writer.Write('\n');
+        }
+
+        _writer.Write(CaptureColumns.Tick);
+        if (_snapshots)
+        {
+            _writer.Write(',');
+            _writer.Write(CaptureColumns.Count);
+        }
+
+        foreach (string column in metadata.ExtraColumns)
+        {
+            _writer.Write(',');
+            _writer.Write(column);
+        }
+
+        _writer.Write('\n');
+    }
+
+    /// <summary>Creates a text capture file (overwriting).</summary>
+    public static TextCaptureWriter Create(string path, CaptureMetadata metadata)
+    {
+        var stream = new FileStream(path, FileMode.Create, FileAccess.Write, FileShare.None, 65536);
+        try
+        {
+            return new TextCaptureWriter(stream, metadata);
+        }
+        catch
+        {
+            stream.Dispose();
+            throw;
+        }
+    }
+
+    /// <inheritdoc/>
+    /// <exception cref="ArgumentException">A value the format cannot hold (tick above the timer width, a temperature or mark without its column, a mark with a comma or line break).</exception>
+    public void WriteRow(in CaptureRow row)
+    {
+        if (_completed)
+        {
+            throw new InvalidOperationException("the capture is complete; no rows may follow the trailer");
+        }
+
+        CheckRow(row, _metadata, _tickMax, _countMax);
+        string? orderProblem = _order.Check(row, "row");
+        if (orderProblem != null)
+        {
+            throw new ArgumentException(orderProblem, nameof(row));
+        }
+
+        Span<char> buffer = stackalloc char[24];
+        row.Tick.TryFormat(buffer, out int n, default, CultureInfo.InvariantCulture);
+        _writer.Write(buffer.Slice(0, n));
+        if (_snapshots)
+        {
+            _writer.Write(',');
+            row.Count.TryFormat(buffer, out n, default, CultureInfo.InvariantCulture);
+            _writer.Write(buffer.Slice(0, n));
+        }
+
+        foreach (string column in _metadata.ExtraColumns)
+        {
+            _writer.Write(',');
+            if (column == CaptureColumns.TemperatureC)
+            {
+                if (row.TemperatureC is double t)
+                {
+                    _writer.Write(CaptureMetadataFormatter.FormatDouble(t));
+                }
+            }
+            else if (row.Mark != null)
+            {
+                _writer.Write(row.Mark);
+            }
+        }
+
+        _writer.Write('\n');
+    }
+
+    /// <inheritdoc/>
+    public void Complete(IReadOnlyList<KeyValuePair<string, string>> trailer)
+    {
+        if (_completed)
+        {
+            throw new InvalidOperationException("Complete was already called");
+        }
+
+        CaptureMetadataFormatter.ValidateTrailer(trailer);
+        foreach (var pair in trailer)
+        {
+            _writer.Write("# ");
+            _writer.Write(pair.Key);
+            _writer.Write(" = ");
+            _writer.Write(pair.Value);
+            _writer.Write('\n');
+        }
+
+        _completed = true;
+        _writer.Flush();
+    }
+
+    /// <inheritdoc/>
+    public void Dispose()
+    {
+        if (_leaveOpen)
+        {
+            _writer.Flush();
+        }
+        else
+        {
+            _writer.Dispose();
+        }
+    }
+
+    /// <summary>Checks a row against what the capture can hold; shared with the binary writer.</summary>
+    internal static void CheckRow(in CaptureRow row, CaptureMetadata md, ulong tickMax, ulong countMax)
+    {
+        if (row.Tick > tickMax)
+        {
+            throw new ArgumentException($"tick {row.Tick} exceeds timer_bits = {md.TimerBits} (allowed 0 to {tickMax})", nameof(row));
+        }
+
+        if (md.Kind == CaptureKind.Snapshots ? row.Count > countMax : row.Count != 0)
+        {
+            throw new ArgumentException(md.Kind == CaptureKind.Snapshots
+                ? $"count {row.Count} exceeds count_bits = {md.CountBits} (allowed 0 to {countMax})"
+                : "count must be 0 for kind = edges", nameof(row));
+        }
+
+        if (row.TemperatureC is double t)
+        {
+            if (!md.HasTemperatureColumn)
+            {
+                throw new ArgumentException("the row has a temperature but the capture has no temp_c column (add it to ExtraColumns)", nameof(row));
+            }
+
+            if (!double.IsFinite(t))
+            {
+                throw new ArgumentException("temp_c must be a finite number", nameof(row));
+            }
+        }
+
+        if (row.Mark != null)
+        {
+            if (!md.HasMarkColumn)
+            {
+                throw new ArgumentException("the row has a mark but the capture has no mark column (add it to ExtraColumns)", nameof(row));
+            }
+
+            if (row.Mark.Length == 0 || row.Mark.Contains(',') || row.Mark.Contains('\n') || row.Mark.Contains('\r') || row.Mark.Trim().Length != row.Mark.Length)
+            {
+                throw new ArgumentException($"a mark is non-empty text without commas, line breaks or surrounding spaces, was '{row.Mark}'", nameof(row));
+            }
+        }
+    }
+}

@@ -1,0 +1,168 @@
+using System.ComponentModel;
+using System.Globalization;
+using FreqReadout.Counting;
+using FreqReadout.Host.Captures;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// <c>freqreadout convert &lt;in&gt; &lt;out&gt; [--to text|binary] [--from-s X] [--to-s Y]</c>: rewrites a
+/// capture in the other format (or the one given), losslessly: metadata, comments, columns, rows
+/// and trailer as they were. With a time range, keeps only the rows whose time from the first row
+/// lies in [from, to] (raw values unchanged) and notes the range in a header comment.
+/// </summary>
+public sealed class ConvertCommand : Command<ConvertCommand.Settings>
+{
+    public sealed class Settings : CommandSettings
+    {
+        [CommandArgument(0, "<in>")]
+        [Description("Capture to read, text or binary (picked by content).")]
+        public string Input { get; set; } = string.Empty;
+
+        [CommandArgument(1, "<out>")]
+        [Description("Capture to write (overwritten).")]
+        public string Output { get; set; } = string.Empty;
+
+        [CommandOption("--to <FORMAT>")]
+        [Description("text or binary. Default: the other format than the input's.")]
+        public string? To { get; set; }
+
+        [CommandOption("--from-s <SECONDS>")]
+        [Description("Keep rows from this time on, seconds from the first row (>= 0).")]
+        public double? FromSeconds { get; set; }
+
+        [CommandOption("--to-s <SECONDS>")]
+        [Description("Keep rows up to this time, seconds from the first row (> --from-s).")]
+        public double? ToSeconds { get; set; }
+    }
+
+    public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
+    {
+        CaptureFileFormat? to = null;
+        if (settings.To == "text")
+        {
+            to = CaptureFileFormat.Text;
+        }
+        else if (settings.To == "binary")
+        {
+            to = CaptureFileFormat.Binary;
+        }
+        else if (settings.To != null)
+        {
+            return CommandOutput.Fail($"--to must be text or binary, got '{settings.To}'", CommandOutput.BadOption);
+        }
+
+        double from = settings.FromSeconds ?? 0;
+        double until = settings.ToSeconds ?? double.PositiveInfinity;
+        if (!(from >= 0) || double.IsInfinity(from))
+        {
+            return CommandOutput.Fail($"--from-s must be a number >= 0 (seconds from the first row), got {Num(from)}", CommandOutput.BadOption);
+        }
+
+        if (settings.ToSeconds.HasValue && (!(until > from) || double.IsInfinity(until)))
+        {
+            return CommandOutput.Fail($"--to-s must be a number greater than --from-s ({Num(from)} s), got {Num(until)}", CommandOutput.BadOption);
+        }
+
+        if (Path.GetFullPath(settings.Input) == Path.GetFullPath(settings.Output))
+        {
+            return CommandOutput.Fail("<out> must be another file than <in>", CommandOutput.BadOption);
+        }
+
+        ICaptureReader reader;
+        try
+        {
+            reader = CaptureFile.Open(settings.Input);
+        }
+        catch (CaptureFormatException e)
+        {
+            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return CommandOutput.Fail($"{settings.Input}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+        }
+
+        using (reader)
+        {
+            var inputFormat = reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            var outputFormat = to ?? (inputFormat == CaptureFileFormat.Text ? CaptureFileFormat.Binary : CaptureFileFormat.Text);
+            bool trim = settings.FromSeconds.HasValue || settings.ToSeconds.HasValue;
+            if (trim)
+            {
+                reader.Metadata.HeaderLines.Add(CaptureHeaderLine.ForComment(string.Format(
+                    CultureInfo.InvariantCulture,
+                    " trimmed by freqreadout convert to rows from {0} s to {1} s after the first row of {2}",
+                    Num(from),
+                    settings.ToSeconds.HasValue ? Num(until) : "the end",
+                    Path.GetFileName(settings.Input))));
+            }
+
+            long kept = 0;
+            long read = 0;
+            try
+            {
+                using (var writer = CaptureFile.Create(settings.Output, reader.Metadata, outputFormat))
+                {
+                    var unwrapper = new TimerUnwrapper(reader.Metadata.TimerBits);
+                    double clockHz = reader.Metadata.ClockHz;
+                    foreach (var row in reader.ReadRows())
+                    {
+                        cancellationToken.ThrowIfCancellationRequested();
+                        read++;
+                        if (trim)
+                        {
+                            // A rejected step keeps the last good time (the row stays with its neighbours).
+                            unwrapper.TryUnwrap(row.Tick, out long tick);
+                            double seconds = tick / clockHz;
+                            if (seconds < from || seconds > until)
+                            {
+                                continue;
+                            }
+                        }
+
+                        writer.WriteRow(row);
+                        kept++;
+                    }
+
+                    writer.Complete(reader.Trailer);
+                }
+            }
+            catch (CaptureFormatException e)
+            {
+                TryDelete(settings.Output);
+                return CommandOutput.Fail($"{e.Message} (nothing written: {settings.Output} removed)", CommandOutput.BadInput);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                TryDelete(settings.Output);
+                return CommandOutput.Fail($"{settings.Output}: cannot write the capture: {e.Message}", CommandOutput.BadInput);
+            }
+
+            foreach (string warning in reader.Warnings)
+            {
+                CommandOutput.Diagnostic("warning: " + warning);
+            }
+
+            CommandOutput.Diagnostic($"{settings.Output}: {(outputFormat == CaptureFileFormat.Binary ? "binary" : "text")} capture, {kept} of {read} rows");
+            return 0;
+        }
+    }
+
+    private static void TryDelete(string path)
+    {
+        try
+        {
+            File.Delete(path);
+        }
+        catch (IOException)
+        {
+        }
+        catch (UnauthorizedAccessException)
+        {
+        }
+    }
+
+    private static string Num(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,349 @@
+using System.ComponentModel;
+using System.Globalization;
+using System.Text.Json;
+using FreqReadout.Counting;
+using FreqReadout.Host.Captures;
+using FreqReadout.Host.Counting;
+using Spectre.Console;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// <c>freqreadout count &lt;capture&gt;</c>: the capture's metadata, then a gate-by-gate table (time,
+/// frequency, shift from the first gate, edges, estimator error, state), or with <c>--json</c> one
+/// JSON object per gate (keys fixed in PRODUCT.md, "Machine-readable output"). Text or binary
+/// captures, picked by content. Warnings and errors go to stderr.
+/// </summary>
+public sealed class CountCommand : Command<CountCommand.Settings>
+{
+    /// <summary>Table rows rendered per table block (the table streams in blocks on long captures).</summary>
+    public const int RowsPerTable = 1000;
+
+    public sealed class Settings : CommandSettings
+    {
+        [CommandArgument(0, "<capture>")]
+        [Description("Capture file, text or binary (picked by content).")]
+        public string Capture { get; set; } = string.Empty;
+
+        [CommandOption("--gate-seconds <SECONDS>")]
+        [Description("Time gate: a gate closes on the first edge at or after this many seconds (> 0). Default 0.1.")]
+        public double? GateSeconds { get; set; }
+
+        [CommandOption("--gate-edges <N>")]
+        [Description("Edge gate: a gate closes after N recorded intervals (integer >= 1). Instead of --gate-seconds.")]
+        public int? GateEdges { get; set; }
+
+        [CommandOption("--estimator <NAME>")]
+        [Description("reciprocal (first and last edge) or regression (least squares over every edge). Default regression. Snapshot captures always use snapshot-regression.")]
+        public string? Estimator { get; set; }
+
+        [CommandOption("--jitter-ticks <TICKS>")]
+        [Description("Timestamp jitter, rms ticks (>= 0), added to the quantisation in the error model. Default 0.")]
+        public double? JitterTicks { get; set; }
+
+        [CommandOption("--no-signal-seconds <SECONDS>")]
+        [Description("No edge within this many seconds reports no_signal (> 0). Default 0.5.")]
+        public double? NoSignalSeconds { get; set; }
+
+        [CommandOption("--json")]
+        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz, edges, error_hz, estimator, state.")]
+        public bool Json { get; set; }
+    }
+
+    /// <summary>Builds the counter options from the command-line settings; null with an error naming the option and its range.</summary>
+    public static CounterSettings? BuildOptions(Settings settings, out string? error)
+    {
+        error = null;
+        var options = new CounterSettings();
+        if (settings.GateSeconds.HasValue && settings.GateEdges.HasValue)
+        {
+            error = "give either --gate-seconds or --gate-edges, not both";
+            return null;
+        }
+
+        if (settings.GateSeconds is double seconds)
+        {
+            if (!(seconds > 0) || !double.IsFinite(seconds))
+            {
+                error = $"--gate-seconds must be a number > 0 (seconds), got {Num(seconds)}";
+                return null;
+            }
+
+            options.Mode = GateMode.Time;
+            options.GateSeconds = seconds;
+        }
+
+        if (settings.GateEdges is int edges)
+        {
+            if (edges < 1 || edges > EdgeCounter.MaxGateIntervals)
+            {
+                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got {edges}";
+                return null;
+            }
+
+            options.Mode = GateMode.Edges;
+            options.GateEdges = edges;
+        }
+
+        switch (settings.Estimator)
+        {
+            case null:
+            case "regression":
+                options.Estimator = EstimatorKind.Regression;
+                break;
+            case "reciprocal":
+                options.Estimator = EstimatorKind.Reciprocal;
+                break;
+            default:
+                error = $"--estimator must be reciprocal or regression, got '{settings.Estimator}'";
+                return null;
+        }
+
+        if (settings.JitterTicks is double jitter)
+        {
+            if (!(jitter >= 0) || !double.IsFinite(jitter))
+            {
+                error = $"--jitter-ticks must be a number >= 0 (rms ticks), got {Num(jitter)}";
+                return null;
+            }
+
+            options.JitterTicks = jitter;
+        }
+
+        if (settings.NoSignalSeconds is double noSignal)
+        {
+            if (!(noSignal > 0) || !double.IsFinite(noSignal))
+            {
+                error = $"--no-signal-seconds must be a number > 0 (seconds), got {Num(noSignal)}";
+                return null;
+            }
+
+            options.NoSignalSeconds = noSignal;
+        }
+
+        return options;
+    }
+
+    /// <summary>The <c>estimator</c> value of the JSON contract.</summary>
+    public static string EstimatorName(EstimatorKind kind) => kind switch
+    {
+        EstimatorKind.Reciprocal => "reciprocal",
+        EstimatorKind.Regression => "regression",
+        _ => "snapshot-regression",
+    };
+
+    /// <summary>The <c>state</c> value of the JSON contract.</summary>
+    public static string StateName(GateState state) => state switch
+    {
+        GateState.Ok => "ok",
+        GateState.NoSignal => "no_signal",
+        GateState.Glitch => "glitch",
+        _ => "dropout",
+    };
+
+    public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
+    {
+        var options = BuildOptions(settings, out string? optionError);
+        if (options == null)
+        {
+            return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
+        }
+
+        ICaptureReader reader;
+        try
+        {
+            reader = CaptureFile.Open(settings.Capture);
+        }
+        catch (CaptureFormatException e)
+        {
+            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return CommandOutput.Fail($"{settings.Capture}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+        }
+
+        using (reader)
+        {
+            CaptureGateSource source;
+            try
+            {
+                source = new CaptureGateSource(reader, options);
+            }
+            catch (ArgumentException e)
+            {
+                return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
+            }
+
+            var format = reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            int exit = 0;
+            try
+            {
+                if (settings.Json)
+                {
+                    WriteJson(source, cancellationToken);
+                }
+                else
+                {
+                    WriteTable(source, format, cancellationToken);
+                }
+            }
+            catch (CaptureFormatException e)
+            {
+                exit = CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+            }
+            catch (ArgumentException e)
+            {
+                exit = CommandOutput.Fail(e.Message, CommandOutput.BadOption);
+            }
+
+            foreach (string warning in source.Warnings)
+            {
+                CommandOutput.Diagnostic("warning: " + warning);
+            }
+
+            return exit;
+        }
+    }
+
+    private static void WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
+    {
+        var stdout = Console.Out;
+        var buffer = new System.Buffers.ArrayBufferWriter<byte>(256);
+        bool hasTemp = source.Metadata.HasTemperatureColumn;
+        bool hasMark = source.Metadata.HasMarkColumn;
+        double? reference = null;
+        foreach (var item in source.ReadGates())
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var gate = item.Gate;
+            if (gate.HasFrequency && reference == null)
+            {
+                reference = gate.FrequencyHz;
+            }
+
+            buffer.Clear();
+            using (var json = new Utf8JsonWriter(buffer))
+            {
+                json.WriteStartObject();
+                json.WriteNumber("time_s", gate.EndSeconds);
+                WriteNullable(json, "frequency_hz", gate.HasFrequency ? gate.FrequencyHz : null);
+                WriteNullable(json, "shift_hz", gate.HasFrequency ? gate.FrequencyHz - reference!.Value : null);
+                json.WriteNumber("edges", gate.Edges);
+                WriteNullable(json, "error_hz", gate.HasFrequency ? gate.ErrorHz : null);
+                json.WriteString("estimator", EstimatorName(gate.Estimator));
+                json.WriteString("state", StateName(gate.State));
+                json.WriteNumber("start_s", gate.StartSeconds);
+                json.WriteNumber("glitches", gate.Glitches);
+                if (hasTemp)
+                {
+                    WriteNullable(json, "temp_c", item.TemperatureC);
+                }
+
+                if (hasMark)
+                {
+                    json.WriteStartArray("marks");
+                    foreach (string mark in item.Marks)
+                    {
+                        json.WriteStringValue(mark);
+                    }
+
+                    json.WriteEndArray();
+                }
+
+                json.WriteEndObject();
+            }
+
+            stdout.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.WrittenSpan));
+        }
+
+        stdout.Flush();
+    }
+
+    private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
+    {
+        if (value is double v && double.IsFinite(v))
+        {
+            json.WriteNumber(name, v);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+
+    private static void WriteTable(CaptureGateSource source, CaptureFileFormat format, CancellationToken cancellationToken)
+    {
+        var console = CommandOutput.Stdout();
+        CaptureMetadataView.Write(console, source.Reader, format);
+        var s = source.Settings;
+        string gateText = s.Mode == GateMode.Edges
+            ? $"{s.GateEdges} recorded intervals"
+            : $"{Num(s.GateSeconds)} s";
+        console.WriteLine($"gate {gateText}, estimator {EstimatorName(s.Estimator)}, jitter {Num(s.JitterTicks)} ticks rms; frequencies of the {(s.Signal == SignalKind.Beat ? "beat note" : "search oscillator")} before the prescaler");
+        console.WriteLine();
+
+        double? reference = null;
+        long gates = 0;
+        long withFrequency = 0;
+        Table? table = null;
+        foreach (var item in source.ReadGates())
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var gate = item.Gate;
+            if (gate.HasFrequency && reference == null)
+            {
+                reference = gate.FrequencyHz;
+            }
+
+            table ??= NewTable();
+            table.AddRow(
+                new Text(Num(gate.EndSeconds, "0.000000")),
+                new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
+                new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
+                new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
+                new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
+                new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+            gates++;
+            if (gate.HasFrequency)
+            {
+                withFrequency++;
+            }
+
+            if (table.Rows.Count >= RowsPerTable)
+            {
+                console.Write(table);
+                table = null;
+            }
+        }
+
+        if (table != null)
+        {
+            console.Write(table);
+        }
+
+        console.WriteLine();
+        console.WriteLine($"{gates} gates ({withFrequency} with a frequency) from {source.RowsRead} rows; {source.FlaggedSteps} rows skipped");
+        if (gates == 0)
+        {
+            console.WriteLine("no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)");
+        }
+
+        CaptureMetadataView.WriteTrailer(console, source.Reader);
+    }
+
+    private static Table NewTable()
+    {
+        var table = new Table().Border(TableBorder.Simple);
+        table.AddColumn(new TableColumn("time s").RightAligned());
+        table.AddColumn(new TableColumn("frequency Hz").RightAligned());
+        table.AddColumn(new TableColumn("shift Hz").RightAligned());
+        table.AddColumn(new TableColumn("edges").RightAligned());
+        table.AddColumn(new TableColumn("error Hz").RightAligned());
+        table.AddColumn(new TableColumn("state"));
+        return table;
+    }
+
+    private static string Num(double value, string format = "R") => value.ToString(format, CultureInfo.InvariantCulture);
+}

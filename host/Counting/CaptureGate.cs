@@ -1,0 +1,37 @@
+using FreqReadout.Counting;
+
+namespace FreqReadout.Host.Counting;
+
+/// <summary>
+/// One gate of a capture replay: the counter's result plus what the capture's rows carried inside
+/// that gate (rows after the gate's opening edge up to and including its closing edge; the very
+/// first gate also includes its opening row).
+/// </summary>
+public readonly struct CaptureGate
+{
+    private static readonly string[] NoMarks = Array.Empty<string>();
+
+    public CaptureGate(GateResult gate, double? temperatureC, double? latestTemperatureC, IReadOnlyList<string>? marks, long lastLineNumber)
+    {
+        Gate = gate;
+        TemperatureC = temperatureC;
+        LatestTemperatureC = latestTemperatureC;
+        Marks = marks ?? NoMarks;
+        LastLineNumber = lastLineNumber;
+    }
+
+    /// <summary>The counter's result for this gate (frequency of the counted signal before the prescaler, state, error).</summary>
+    public GateResult Gate { get; }
+
+    /// <summary>Mean of the <c>temp_c</c> samples that fell in this gate, degrees C; null when no new sample fell in it.</summary>
+    public double? TemperatureC { get; }
+
+    /// <summary>The most recent <c>temp_c</c> sample at or before this gate's end (carried forward), degrees C; null before the first sample.</summary>
+    public double? LatestTemperatureC { get; }
+
+    /// <summary>The marks of the rows in this gate, in row order (<c>rebaseline</c>, <c>hold</c>, <c>release</c> or free text); empty when none.</summary>
+    public IReadOnlyList<string> Marks { get; }
+
+    /// <summary>Line (text) or row ordinal (binary) of the last row fed before this gate was reported, for messages.</summary>
+    public long LastLineNumber { get; }
+}

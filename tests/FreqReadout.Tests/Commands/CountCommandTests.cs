@@ -1,0 +1,193 @@
+using System.Text.Json;
+using FreqReadout.Host.Commands;
+using static FreqReadout.Tests.Captures.CaptureTestFiles;
+
+namespace FreqReadout.Tests.Commands;
+
+/// <summary><c>freqreadout count</c> run in-process on the contract samples.</summary>
+[Collection(ConsoleCollection.Name)]
+public sealed class CountCommandTests
+{
+    [Fact]
+    public void Json_lines_carry_the_contract_keys_and_50000_Hz_exactly_for_minimal()
+    {
+        // Contract README: minimal.edges.csv is 50 kHz exactly (101 edges, 200 ticks at 10 MHz).
+        var (exit, stdout, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--gate-edges", "25", "--json");
+        Assert.Equal(0, exit);
+        Assert.Equal(string.Empty, stderr);
+        var lines = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal(4, lines.Length); // 100 intervals in gates of 25
+        double previous = 0;
+        foreach (string line in lines)
+        {
+            using var doc = JsonDocument.Parse(line);
+            var o = doc.RootElement;
+            foreach (string key in new[] { "time_s", "frequency_hz", "shift_hz", "edges", "error_hz", "estimator", "state" })
+            {
+                Assert.True(o.TryGetProperty(key, out _), $"missing key {key} in {line}");
+            }
+
+            Assert.Equal(50_000.0, o.GetProperty("frequency_hz").GetDouble());
+            Assert.Equal(0.0, o.GetProperty("shift_hz").GetDouble());
+            Assert.Equal(26, o.GetProperty("edges").GetInt32()); // gates share their boundary edge
+            Assert.Equal("regression", o.GetProperty("estimator").GetString());
+            Assert.Equal("ok", o.GetProperty("state").GetString());
+            Assert.True(o.GetProperty("error_hz").GetDouble() > 0);
+            double t = o.GetProperty("time_s").GetDouble();
+            Assert.Equal(previous + 0.0005, t, 12); // 25 x 200 ticks at 10 MHz
+            previous = t;
+        }
+    }
+
+    [Fact]
+    public void Reciprocal_estimator_is_named_in_the_json()
+    {
+        var (exit, stdout, _) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--gate-edges", "100", "--estimator", "reciprocal", "--json");
+        Assert.Equal(0, exit);
+        using var doc = JsonDocument.Parse(stdout.Trim());
+        Assert.Equal("reciprocal", doc.RootElement.GetProperty("estimator").GetString());
+        Assert.Equal(50_000.0, doc.RootElement.GetProperty("frequency_hz").GetDouble());
+    }
+
+    [Fact]
+    public void Jitter_ticks_raise_the_predicted_error()
+    {
+        double Error(string jitter)
+        {
+            var (_, stdout, _) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--gate-edges", "100", "--jitter-ticks", jitter, "--json");
+            using var doc = JsonDocument.Parse(stdout.Trim());
+            return doc.RootElement.GetProperty("error_hz").GetDouble();
+        }
+
+        // Error model sigma_x^2 = 1/12 + jitter^2 (PRODUCT.md: quantisation q^2/12 plus the configured jitter):
+        // the ratio of errors for jitter 3 and 0 is sqrt((1/12 + 9) / (1/12)).
+        Assert.Equal(Math.Sqrt((1.0 / 12 + 9) * 12), Error("3") / Error("0"), 9);
+    }
+
+    [Fact]
+    public void Shift_is_from_the_first_gate_of_the_counted_signal()
+    {
+        // wrap16: 30 kHz; gates of 20 recorded intervals each read within a tick of it, shifts from gate 1 are small and the first is 0.
+        var (exit, stdout, _) = ConsoleCapture.Run("count", Contract("wrap16.edges.csv"), "--gate-edges", "20", "--json");
+        Assert.Equal(0, exit);
+        var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+        Assert.Equal(9, rows.Count); // 199 intervals / 20
+        double first = rows[0].GetProperty("frequency_hz").GetDouble();
+        Assert.Equal(0.0, rows[0].GetProperty("shift_hz").GetDouble());
+        foreach (var row in rows)
+        {
+            Assert.Equal(row.GetProperty("frequency_hz").GetDouble() - first, row.GetProperty("shift_hz").GetDouble(), 9);
+            Assert.InRange(row.GetProperty("frequency_hz").GetDouble(), 29_990.0, 30_010.0);
+        }
+    }
+
+    [Fact]
+    public void Table_shows_metadata_unknown_keys_and_the_gates()
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-count").FullName;
+        try
+        {
+            string path = Path.Combine(dir, "rig.csv");
+            File.WriteAllText(path, "# freqreadout capture 1\n# clock_hz = 1000000\n# rig_id = bench-7\n# beat_side = above\ntick,mark\n0,\n1000,\n2000,hold\n3000,\n4000,\n# frames_lost = 0\n");
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--gate-edges", "2");
+            Assert.Equal(0, exit);
+            Assert.Contains("rig_id (unknown key)", stdout);
+            Assert.Contains("bench-7", stdout);
+            Assert.Contains("clock_hz", stdout);
+            Assert.Contains("frequency Hz", stdout);
+            Assert.Contains("1000.000", stdout);
+            Assert.Contains("ok (hold)", stdout);
+            Assert.Contains("frames_lost", stdout);
+            Assert.Contains("2 gates (2 with a frequency) from 5 rows", stdout);
+            Assert.Contains("warning: ", stderr);
+            Assert.Contains("beat_side is ignored: signal = search", stderr);
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    public static TheoryData<string, string> BadFiles() => new()
+    {
+        { "bad-no-magic.edges.csv", ":1: not a capture" },
+        { "bad-no-clock.edges.csv", ":3: missing required metadata key 'clock_hz'" },
+        { "bad-tick-text.edges.csv", ":6: expected the tick as an unsigned integer (digits only), found '2x0'" },
+        { "bad-beat-no-side.edges.csv", ":3: signal = beat needs the key 'beat_side'" },
+        { "bad-tick-too-wide.edges.csv", ":6: tick 70000 exceeds the timer width" },
+        { "bad-no-header-row.edges.csv", ":3: expected the column header row" },
+    };
+
+    [Theory]
+    [MemberData(nameof(BadFiles))]
+    public void A_bad_file_gives_one_clear_message_and_a_nonzero_exit(string name, string expected)
+    {
+        foreach (var json in new[] { false, true })
+        {
+            var args = new List<string> { "count", Contract(name) };
+            if (json)
+            {
+                args.Add("--json");
+            }
+
+            var (exit, stdout, stderr) = ConsoleCapture.Run(args.ToArray());
+            Assert.Equal(CommandOutput.BadInput, exit);
+            string line = Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+            Assert.Equal("error: " + Contract(name) + expected, line.Substring(0, ("error: " + Contract(name) + expected).Length));
+            Assert.DoesNotContain("   at ", stderr); // no stack trace
+            if (json)
+            {
+                Assert.Equal(string.Empty, stdout);
+            }
+        }
+    }
+
+    [Theory]
+    [InlineData("--gate-seconds", "0", "--gate-seconds must be a number > 0")]
+    [InlineData("--gate-edges", "0", "--gate-edges must be an integer from 1 to 1048576")]
+    [InlineData("--estimator", "median", "--estimator must be reciprocal or regression, got 'median'")]
+    [InlineData("--jitter-ticks", "-1", "--jitter-ticks must be a number >= 0")]
+    [InlineData("--no-signal-seconds", "-1", "--no-signal-seconds must be a number > 0")]
+    public void A_bad_option_is_named_with_its_range(string option, string value, string expected)
+    {
+        var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), option, value);
+        Assert.Equal(CommandOutput.BadOption, exit);
+        Assert.Contains(expected, stderr);
+    }
+
+    [Fact]
+    public void Gate_seconds_and_gate_edges_together_are_refused()
+    {
+        var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--gate-seconds", "0.001", "--gate-edges", "5");
+        Assert.Equal(CommandOutput.BadOption, exit);
+        Assert.Contains("either --gate-seconds or --gate-edges, not both", stderr);
+    }
+
+    [Fact]
+    public void A_missing_file_is_a_clear_error()
+    {
+        var (exit, _, stderr) = ConsoleCapture.Run("count", "no-such-capture.csv");
+        Assert.Equal(CommandOutput.BadInput, exit);
+        Assert.StartsWith("error: no-such-capture.csv: cannot open the capture", stderr);
+    }
+
+    [Fact]
+    public void Count_reads_binary_captures_by_content()
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-count").FullName;
+        try
+        {
+            string binary = Path.Combine(dir, "minimal.csv"); // a binary file with a text-like name
+            var (convertExit, _, _) = ConsoleCapture.Run("convert", Contract("minimal.edges.csv"), binary, "--to", "binary");
+            Assert.Equal(0, convertExit);
+            var fromText = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--gate-edges", "10", "--json");
+            var fromBinary = ConsoleCapture.Run("count", binary, "--gate-edges", "10", "--json");
+            Assert.Equal(0, fromBinary.Exit);
+            Assert.Equal(fromText.Out, fromBinary.Out);
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+}
