@@ -36,6 +36,10 @@ public static class Program
                 .WithDescription("Count a capture gate by gate: frequency, shift from the first gate, edges, error, state.");
             config.AddCommand<ConvertCommand>("convert")
                 .WithDescription("Convert a capture between the text and binary formats, losslessly, optionally trimmed to a time range.");
+            config.AddCommand<SimulateCommand>("simulate")
+                .WithDescription("Generate a capture from physics (scene file or built-in demo scene) plus a truth file.");
+            config.AddCommand<CoilCommand>("coil")
+                .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
         });
         return app;
     }
