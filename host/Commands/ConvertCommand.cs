@@ -70,23 +70,16 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             return CommandOutput.Fail("<out> must be another file than <in>", CommandOutput.BadOption);
         }
 
-        ICaptureReader reader;
-        try
+        int openExit = CommandOutput.TryOpenCapture(settings.Input, out ICaptureReader? opened);
+        if (opened == null)
         {
-            reader = CaptureFile.Open(settings.Input);
-        }
-        catch (CaptureFormatException e)
-        {
-            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{settings.Input}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+            return openExit;
         }
 
+        ICaptureReader reader = opened;
         using (reader)
         {
-            var inputFormat = reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            var inputFormat = CommandOutput.FormatOf(reader);
             var outputFormat = to ?? (inputFormat == CaptureFileFormat.Text ? CaptureFileFormat.Binary : CaptureFileFormat.Text);
             bool trim = settings.FromSeconds != null || settings.ToSeconds != null;
             if (trim)

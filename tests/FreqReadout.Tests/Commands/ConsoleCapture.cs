@@ -6,7 +6,7 @@ namespace FreqReadout.Tests.Commands;
 [CollectionDefinition(Name, DisableParallelization = true)]
 public sealed class ConsoleCollection
 {
-    public const string Name = "Console output";
+    public const string Name = "Console"; // shared with the other command tests that swap Console.Out (e.g. Simulation)
 }
 
 /// <summary>Runs the CLI in-process through <see cref="Program.BuildApp"/>, capturing stdout and stderr.</summary>
