@@ -67,9 +67,13 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         [Description("Conductivity, S/m (required for custom; overrides a preset).")]
         public double? Conductivity { get; set; }
 
-        [CommandOption("--distances-mm <LIST>")]
-        [Description("Coil-plane-to-target-centre distances on the axis, mm, comma separated (default 20,50,80,100,150,200,300).")]
-        public string Distances { get; set; } = "20,50,80,100,150,200,300";
+        [CommandOption("--depths-mm <LIST>")]
+        [Description("Target-centre depths below the surface, mm, comma separated, target on the coil axis (default 20,50,80,100,150,200,300).")]
+        public string Depths { get; set; } = "20,50,80,100,150,200,300";
+
+        [CommandOption("--height-mm <MM>")]
+        [Description("Height of the coil plane above the surface, mm (>= 0, default 0).")]
+        public double HeightMm { get; set; }
 
         [CommandOption("--json")]
         [Description("One JSON object on stdout (snake_case keys with units).")]
@@ -192,19 +196,29 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             throw new SceneException("--mu-r and --conductivity describe a target: give --material too");
         }
 
-        var distances = new List<double>();
-        foreach (string part in s.Distances.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        if (!(s.HeightMm >= 0 && s.HeightMm <= 5000))
         {
-            if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out double mm) || !(mm > 0 && mm <= 100_000))
+            throw new SceneException($"--height-mm must be in [0, 5000] mm (got {Fmt(s.HeightMm)})");
+        }
+
+        var depths = new List<double>();
+        foreach (string part in s.Depths.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        {
+            if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out double mm) || !(mm >= 0 && mm <= 100_000) || mm + s.HeightMm <= 0)
             {
-                throw new SceneException($"--distances-mm must be a comma-separated list of distances in (0, 100000] mm (got '{part}')");
+                throw new SceneException($"--depths-mm must be a comma-separated list of depths in [0, 100000] mm, not all zero with --height-mm 0 (got '{part}')");
             }
 
-            distances.Add(mm / 1000);
+            depths.Add(mm / 1000);
+        }
+
+        if (depths.Count == 0)
+        {
+            throw new SceneException("--depths-mm must list at least one depth");
         }
 
         var searchCoil = coil.ToSearchCoil();
-        return CoilReport.Create(searchCoil, coil.InductanceModel, osc.FrequencyHz, osc.TuningCapacitanceNf * 1e-9, material, s.RadiusMm / 1000, distances);
+        return CoilReport.Create(searchCoil, coil.InductanceModel, osc.FrequencyHz, osc.TuningCapacitanceNf * 1e-9, material, s.RadiusMm / 1000, depths, s.HeightMm / 1000);
     }
 
     private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
@@ -249,7 +263,8 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             console.MarkupLine("non-magnetic: no crossover; the frequency rises at every operating frequency");
         }
 
-        var table = new Table().Title("expected shift, target on the coil axis")
+        var table = new Table().Title($"expected shift, target on the coil axis, coil {(t.HeightM * 1000).ToString("F0", ci)} mm above the surface")
+            .AddColumn(new TableColumn("depth mm").RightAligned())
             .AddColumn(new TableColumn("distance mm").RightAligned())
             .AddColumn(new TableColumn("radii").RightAligned())
             .AddColumn(new TableColumn("dL nH").RightAligned())
@@ -258,6 +273,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         foreach (var row in t.Table)
         {
             table.AddRow(
+                (row.DepthM * 1000).ToString("F0", ci),
                 (row.DistanceM * 1000).ToString("F0", ci),
                 row.DistanceRadii.ToString("F1", ci) + (row.DistanceRadii < 10 ? "*" : ""),
                 row.InductanceChangeNh.ToString("G4", ci),

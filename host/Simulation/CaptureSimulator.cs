@@ -410,6 +410,7 @@ public sealed class CaptureSimulator
             WhiteFmAdev1s = s.Oscillator.WhiteFmAdev1s,
             FlickerAdev = s.Oscillator.FlickerAdev,
             DropoutS = s.Faults.DropoutS,
+            Parameters = s,
         };
         double tc = m.TempcoPpmPerK * 1e-6;
         truth.DriftSearchHz = m.SearchNominalHz * tc * (truth.TempEndC - truth.TempStartC);

@@ -25,8 +25,11 @@ public sealed class CoilReport
     public double CapacitanceNf { get; set; }
     public CoilTargetReport? Target { get; set; }
 
-    /// <summary>Builds the report; <paramref name="distancesM"/> are coil-plane-to-target-centre distances on the axis.</summary>
-    public static CoilReport Create(SearchCoil coil, InductanceModel model, double? frequencyHz, double? capacitanceF, Material? material, double radiusM, IReadOnlyList<double> distancesM)
+    /// <summary>
+    /// Builds the report; <paramref name="depthsM"/> are target-centre depths below the surface, the target on the coil axis and
+    /// the coil plane <paramref name="heightM"/> above the surface (distance = height + depth).
+    /// </summary>
+    public static CoilReport Create(SearchCoil coil, InductanceModel model, double? frequencyHz, double? capacitanceF, Material? material, double radiusM, IReadOnlyList<double> depthsM, double heightM)
     {
         double l = model == Simulation.InductanceModel.ThinLoop ? coil.ThinLoopInductanceH : coil.WheelerInductanceH;
         double f = frequencyHz ?? LcResonance.FrequencyHz(l, capacitanceF!.Value);
@@ -68,13 +71,16 @@ public sealed class CoilReport
             SignRuleClass = n.Real > 0 ? "ferrous" : "non-ferrous",
             CrossoverHz = double.IsNaN(fx) ? null : fx,
             AboveCrossover = double.IsNaN(fx) ? null : f > fx,
+            HeightM = heightM,
         };
-        foreach (double z in distancesM)
+        foreach (double depth in depthsM)
         {
+            double z = heightM + depth;
             double dl = CoilTargetCoupling.InductanceChangeH(coil, m, 0.0, z);
             double frac = LcResonance.FractionalShift(l, dl);
             t.Table.Add(new CoilShiftRow
             {
+                DepthM = depth,
                 DistanceM = z,
                 DistanceRadii = z / radiusM,
                 InductanceChangeNh = dl * 1e9,

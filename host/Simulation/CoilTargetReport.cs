@@ -17,6 +17,9 @@ public sealed class CoilTargetReport
     public double? CrossoverHz { get; set; }
     public bool? AboveCrossover { get; set; }
 
-    /// <summary>Expected shift against on-axis distance.</summary>
+    /// <summary>Coil plane above the surface, m.</summary>
+    public double HeightM { get; set; }
+
+    /// <summary>Expected shift against depth (target on the coil axis).</summary>
     public List<CoilShiftRow> Table { get; set; } = new();
 }

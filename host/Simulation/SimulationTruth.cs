@@ -58,6 +58,9 @@ public sealed class SimulationTruth
 
     public List<TargetTruth> Targets { get; set; } = new();
 
+    /// <summary>The complete scene that produced the capture (after command-line overrides).</summary>
+    public Scene? Parameters { get; set; }
+
     /// <summary>Warnings about the scene (dipole model stretched, beat near zero, ...).</summary>
     public List<string> Warnings { get; set; } = new();
 

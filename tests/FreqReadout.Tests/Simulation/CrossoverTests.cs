@@ -35,6 +35,21 @@ public class CrossoverTests
         Assert.Equal(4.0, ratio, 0.02);
     }
 
+    [Theory]
+    [InlineData(1.05)]
+    [InlineData(2.0)]
+    [InlineData(10.0)]
+    [InlineData(1000.0)]
+    public void RootFinder_FindsReMZero_OverAWideRangeOfPermeability(double mur)
+    {
+        // Re M changes sign exactly once (from 2 (mu_r - 1)/(mu_r + 2) > 0 to -1, Wait 1951 limits): the root must make it 0.
+        double fx = SpherePolarizability.CrossoverFrequencyHz(0.005, 6.99e6, mur);
+        Assert.True(fx > 0 && double.IsFinite(fx));
+        Assert.Equal(0.0, SpherePolarizability.Normalised(0.005, 6.99e6, mur, fx).Real, 1e-8);
+        Assert.True(SpherePolarizability.Normalised(0.005, 6.99e6, mur, fx * 0.9).Real > 0);
+        Assert.True(SpherePolarizability.Normalised(0.005, 6.99e6, mur, fx * 1.1).Real < 0);
+    }
+
     [Fact]
     public void NonMagneticHasNoCrossover()
     {

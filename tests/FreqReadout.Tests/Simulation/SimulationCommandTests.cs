@@ -33,7 +33,7 @@ public class SimulationCommandTests
         // The worked coil of REFERENCES.md (Wheeler 358.82 uH) with the 1 cm steel check sphere (sigma 6e6, mu_r 100):
         // crossover 69.25 kHz (REFERENCES.md, calculated); at 10 kHz and 100 mm on axis dL = +18.27 nH.
         var (code, output, err) = RunCli("coil", "--turns", "30", "--diameter-mm", "200", "--winding-length-mm", "10", "--winding-depth-mm", "10",
-            "--frequency-hz", "10000", "--material", "custom", "--conductivity", "6e6", "--mu-r", "100", "--radius-mm", "10", "--distances-mm", "100,200", "--json");
+            "--frequency-hz", "10000", "--material", "custom", "--conductivity", "6e6", "--mu-r", "100", "--radius-mm", "10", "--depths-mm", "80,180", "--height-mm", "20", "--json");
         Assert.True(code == 0, err);
         using var doc = JsonDocument.Parse(output);
         var root = doc.RootElement;
@@ -44,7 +44,8 @@ public class SimulationCommandTests
         Assert.Equal(69.25e3, target.GetProperty("crossover_hz").GetDouble(), 10.0);
         Assert.Equal("ferrous", target.GetProperty("sign_rule_class").GetString());
         var row = target.GetProperty("table")[0];
-        Assert.Equal(0.1, row.GetProperty("distance_m").GetDouble());
+        Assert.Equal(0.1, row.GetProperty("distance_m").GetDouble(), 1e-12);
+        Assert.Equal(0.08, row.GetProperty("depth_m").GetDouble(), 1e-12);
         Assert.Equal(18.27, row.GetProperty("inductance_change_nh").GetDouble(), 0.01);
     }
 
