@@ -64,6 +64,74 @@ public sealed class CountCommandTests
     }
 
     [Fact]
+    public void Json_states_name_glitch_dropout_and_no_signal_with_null_frequencies()
+    {
+        // 1 kHz edges on a 1 MHz clock with a double-triggered edge, a 20-period gap (dropout) and 2 s of silence (no signal).
+        var sb = new System.Text.StringBuilder("# freqreadout capture 1\n# clock_hz = 1000000\ntick\n");
+        long t = 0;
+        for (int i = 0; i < 300; i++)
+        {
+            sb.Append(t).Append('\n');
+            if (i == 60)
+            {
+                sb.Append(t + 100).Append('\n');
+            }
+
+            t += i == 120 ? 20_000 : i == 170 ? 2_000_000 : 1000;
+        }
+
+        string dir = Directory.CreateTempSubdirectory("freqreadout-states").FullName;
+        try
+        {
+            string path = Path.Combine(dir, "states.csv");
+            File.WriteAllText(path, sb.ToString());
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--gate-seconds", "0.05", "--json");
+            Assert.Equal(0, exit);
+            Assert.Equal(string.Empty, stderr);
+            var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+            var states = rows.Select(r => r.GetProperty("state").GetString()).ToList();
+            Assert.Contains("ok", states);
+            Assert.Contains("glitch", states);
+            Assert.Contains("dropout", states);
+            Assert.Equal(3, states.Count(s => s == "no_signal"));
+            foreach (var r in rows.Where(r => r.GetProperty("state").GetString() == "no_signal"))
+            {
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("frequency_hz").ValueKind);
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("shift_hz").ValueKind);
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("error_hz").ValueKind);
+            }
+
+            foreach (var r in rows.Where(r => r.GetProperty("state").GetString() != "no_signal"))
+            {
+                Assert.Equal(1000.0, r.GetProperty("frequency_hz").GetDouble(), 6);
+            }
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    [Fact]
+    public void A_fast_wrapping_timer_is_warned_about_on_stderr()
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-wrap").FullName;
+        try
+        {
+            string path = Path.Combine(dir, "fast.csv");
+            File.WriteAllText(path, FreqReadout.Tests.Captures.CaptureGateSourceTests.EdgeCapture(8e6, 16, 900, 400));
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--json");
+            Assert.Equal(0, exit);
+            Assert.NotEmpty(stdout);
+            Assert.StartsWith($"warning: {path}: timer_bits = 16: the timer wraps every 65536 ticks", stderr);
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    [Fact]
     public void Jitter_ticks_raise_the_predicted_error()
     {
         double Error(string jitter)
