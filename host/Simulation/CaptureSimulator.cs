@@ -20,6 +20,9 @@ namespace FreqReadout.Host.Simulation;
 public sealed class CaptureSimulator
 {
     private const int MaxListed = 10000;
+
+    /// <summary>Below this counted frequency (beat mode near zero beat) the oscillators are taken as locked: no edges, Hz.</summary>
+    public const double MinCountedHz = 1.0;
     private readonly SceneModel _model;
     private readonly Scene _scene;
 
@@ -109,7 +112,7 @@ public sealed class CaptureSimulator
         double tempRes = h.TempResolutionC;
 
         // Time of the current recorded edge in true-clock ticks: whole + fraction.
-        double f0 = control.FrequencyAt(0.0);
+        double f0 = Math.Max(MinCountedHz, control.FrequencyAt(0.0));
         long whole = 0;
         double frac = rngStart.NextDouble() * prescale / f0 * trueClock;
         Normalise(ref whole, ref frac);
@@ -120,6 +123,7 @@ public sealed class CaptureSimulator
         bool dropListed = false;
 
         long lastRecorded = long.MinValue;
+        bool locked = false;
         long rows = 0;
         long clamps = 0;
         long progressCounter = 0;
@@ -134,15 +138,6 @@ public sealed class CaptureSimulator
             }
 
             double f = control.FrequencyAt(t);
-            double intervalS = prescale / f;
-            double sigmaAbs = control.WhiteSigmaHzRootS;
-            double noisyF = sigmaAbs > 0 ? f + sigmaAbs / Math.Sqrt(intervalS) * rngSearch.NextGaussian() : f;
-            if (noisyF < 0.05 * f)
-            {
-                noisyF = 0.05 * f;
-            }
-
-            double stepTicks = prescale / noisyF * trueClock;
 
             // Dropout bookkeeping.
             while (t >= dropEnd)
@@ -170,7 +165,7 @@ public sealed class CaptureSimulator
                 if (t >= nextGlitch)
                 {
                     double u = 0.05 + 0.2 * rngFaults.NextDouble();
-                    double gFrac = frac + u * stepTicks;
+                    double gFrac = frac + u * prescale / Math.Max(f, MinCountedHz) * trueClock;
                     long gWhole = whole;
                     Normalise(ref gWhole, ref gFrac);
                     Emit(gWhole, gFrac);
@@ -187,8 +182,20 @@ public sealed class CaptureSimulator
                 nextGlitch += rngFaults.NextExponential(1.0 / _scene.Faults.GlitchesPerS);
             }
 
-            frac += stepTicks;
-            Normalise(ref whole, ref frac);
+            // Cycles of the deterministic (linear-in-step) frequency until the next recorded edge: P, scaled so that the
+            // interval's mean frequency carries the white-FM offset (std sigma_abs / sqrt(T)).
+            double needed = prescale;
+            double sigmaAbs = control.WhiteSigmaHzRootS;
+            if (sigmaAbs > 0 && f >= MinCountedHz)
+            {
+                double delta = sigmaAbs / Math.Sqrt(prescale / f) * rngSearch.NextGaussian();
+                needed = prescale / Math.Max(0.05, 1.0 + delta / f);
+            }
+
+            if (!Advance(needed))
+            {
+                break;
+            }
 
             if (++progressCounter >= 65536)
             {
@@ -205,6 +212,62 @@ public sealed class CaptureSimulator
         truth.Rows = rows;
         truth.JitterClamps = clamps;
         truth.TimerWraps = bits == 64 ? 0 : (long)(((ulong)lastRecorded + tickOffset) >> bits);
+
+        // Moves (whole, frac) on by the given number of cycles, integrating the frequency exactly where it is linear within
+        // each control step (fa dt + k dt^2 / 2 = cycles). Steps where the beat is below MinCountedHz count as locked
+        // oscillators: time passes, no cycles. False when the capture's end is reached first.
+        bool Advance(double cycles)
+        {
+            while (true)
+            {
+                double tS = (whole + frac) / trueClock;
+                if (tS >= duration)
+                {
+                    return false;
+                }
+
+                control.Segment(tS, out double fa, out double fb, out double endS);
+                double spanTicks = (endS * trueClock - whole) - frac;
+                if (!(spanTicks > 0))
+                {
+                    spanTicks = 1e-6;
+                }
+
+                double spanS = spanTicks / trueClock;
+                if (fa < MinCountedHz && fb < MinCountedHz)
+                {
+                    if (!locked)
+                    {
+                        locked = true;
+                        truth.LockedCount++;
+                        if (truth.LockedStartTimesS.Count < MaxListed)
+                        {
+                            truth.LockedStartTimesS.Add(tS);
+                        }
+                    }
+
+                    frac += spanTicks;
+                    Normalise(ref whole, ref frac);
+                    continue;
+                }
+
+                locked = false;
+                double available = 0.5 * (fa + fb) * spanS;
+                if (available >= cycles)
+                {
+                    double k = (fb - fa) / spanS;
+                    double disc = Math.Max(0.0, fa * fa + 2.0 * k * cycles);
+                    double dt = 2.0 * cycles / (fa + Math.Sqrt(disc));
+                    frac += Math.Min(dt * trueClock, spanTicks);
+                    Normalise(ref whole, ref frac);
+                    return true;
+                }
+
+                cycles -= available;
+                frac += spanTicks;
+                Normalise(ref whole, ref frac);
+            }
+        }
 
         void Emit(long w, double fr)
         {
@@ -563,10 +626,18 @@ public sealed class CaptureSimulator
             return i * _step;
         }
 
-        /// <summary>Counted frequency at t (t must not go back by more than one step), Hz.</summary>
-        public double FrequencyAt(double timeS)
+        /// <summary>
+        /// The control step holding t (t never decreasing between calls): frequency at t, at the step's end, and the end time.
+        /// A t within 1e-12 relative of a boundary belongs to the next step.
+        /// </summary>
+        public void Segment(double timeS, out double frequencyAtHz, out double endFrequencyHz, out double endS)
         {
             long i = (long)Math.Floor(timeS / _step);
+            if ((i + 1) * _step - timeS <= 1e-12 * Math.Max(1.0, timeS))
+            {
+                i++;
+            }
+
             while (_index < i)
             {
                 _index++;
@@ -575,8 +646,17 @@ public sealed class CaptureSimulator
                 _sigmaA = sigma;
             }
 
-            double u = timeS / _step - i;
-            return _fa + (_fb - _fa) * Math.Clamp(u, 0.0, 1.0);
+            endS = (_index + 1) * _step;
+            double u = Math.Clamp(timeS / _step - _index, 0.0, 1.0);
+            frequencyAtHz = _fa + (_fb - _fa) * u;
+            endFrequencyHz = _fb;
+        }
+
+        /// <summary>Counted frequency at t (t never decreasing between calls; a boundary belongs to the next step), Hz.</summary>
+        public double FrequencyAt(double timeS)
+        {
+            Segment(timeS, out double f, out _, out _);
+            return f;
         }
 
         private double Counted(double timeS, out double sigmaAbs)

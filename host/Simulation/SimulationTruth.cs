@@ -50,6 +50,10 @@ public sealed class SimulationTruth
     public long DropoutCount { get; set; }
     public double DropoutS { get; set; }
 
+    /// <summary>Times the beat fell below 1 Hz and the oscillators were taken as locked (no edges until it rose again), s (first 10000).</summary>
+    public List<double> LockedStartTimesS { get; set; } = new();
+    public long LockedCount { get; set; }
+
     /// <summary>Edges whose jittered stamp would not have increased and were placed one tick after the previous.</summary>
     public long JitterClamps { get; set; }
 

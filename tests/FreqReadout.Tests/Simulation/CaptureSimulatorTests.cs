@@ -240,6 +240,75 @@ public class CaptureSimulatorTests
     }
 
     [Fact]
+    public void LowBeatOnARamp_EdgesSitAtWholeCyclesOfTheExactPhase()
+    {
+        // Phase integration check (derived): the beat falls linearly from 60 Hz to 20 Hz over 4 s (search ramps up by
+        // 40 Hz towards the reference), so the phase is exactly phi(t) = 60 t - 5 t^2 cycles. Recorded edges must sit at
+        // whole cycles of it: |phi(t_n) - phi(t_0) - n| < 1e-4 cycles (1 GHz clock: 1 ns quantisation is < 6e-8 cycles).
+        var scene = Quiet(100_000, 4.0);
+        scene.Reference = new SceneReference { FrequencyHz = 100_060, WhiteFmAdev1s = 0, FlickerAdev = 0 };
+        scene.Oscillator.TempcoPpmPerK = 100; // 10 Hz/K
+        scene.Temperature = new SceneTemperature { Kind = TemperatureProfileKind.Ramps, StartC = 20, Points = { new TemperaturePoint { TimeS = 4, TempC = 24 } } };
+        scene.Hardware.ClockHz = 1e9;
+        var (w, _, _) = Run(scene);
+        var t = Unwrap(w.Rows, 64);
+        long offset = (long)w.Rows[0].Tick; // the unwrapped list starts at the first raw tick
+        double Phi(long tick) { double x = (tick - offset + FirstEdgeTicks(scene, w)) / 1e9; return 60 * x - 5 * x * x; }
+        double p0 = Phi(t[0]);
+        Assert.InRange(w.Rows.Count, 159, 161); // integral of the beat over 4 s = 160 cycles
+        for (int n = 0; n < t.Count; n++)
+        {
+            Assert.True(Math.Abs(Phi(t[n]) - p0 - n) < 1e-4, $"edge {n}: phase error {Phi(t[n]) - p0 - n}");
+        }
+    }
+
+    /// <summary>The first edge's true time (ticks) after t = 0: found from the phase so that edge 1 is exactly one cycle later.</summary>
+    private static double FirstEdgeTicks(Scene scene, MemoryCaptureWriter w)
+    {
+        // Solve 60 (x0 + d) - 5 (x0 + d)^2 - (60 x0 - 5 x0^2) = 1 for x0, with d = interval between the first two edges.
+        double d = (double)(w.Rows[1].Tick - w.Rows[0].Tick) / 1e9;
+        // 60 d - 10 x0 d - 5 d^2 = 1  ->  x0 = (60 d - 5 d^2 - 1) / (10 d)
+        return (60 * d - 5 * d * d - 1) / (10 * d) * 1e9;
+    }
+
+    [Fact]
+    public void LongRun_NoAccumulatedTimingError()
+    {
+        // 200 s at exactly 100 kHz divided by 1000 on a 1 GHz 64-bit clock (2e11 ticks): edge n lies at n * 1e7 ticks after
+        // the first within one tick (quantisation) - the long + fraction time keeps no rounding drift.
+        var scene = Quiet(100_000, 200.0);
+        scene.Hardware.ClockHz = 1e9;
+        scene.Hardware.Prescale = 1000;
+        var (w, _, _) = Run(scene);
+        var t = Unwrap(w.Rows, 64);
+        Assert.InRange(t.Count, 19_999, 20_001);
+        for (int n = 0; n < t.Count; n += 997)
+        {
+            Assert.InRange(t[n] - t[0] - n * 10_000_000L, -1, 1);
+        }
+
+        Assert.InRange(t[^1] - t[0] - (t.Count - 1) * 10_000_000L, -1, 1);
+    }
+
+    [Fact]
+    public void BeatThroughZero_LocksWithoutEdges_AndRecovers()
+    {
+        // The search drifts from 20 Hz below the reference to 20 Hz above it in 4 s: the beat passes zero at 2 s, where
+        // real oscillators lock; the simulator emits no edges below 1 Hz, says so in the truth, and goes on afterwards.
+        var scene = Quiet(100_000, 4.0);
+        scene.Reference = new SceneReference { FrequencyHz = 100_020, WhiteFmAdev1s = 0, FlickerAdev = 0 };
+        scene.Oscillator.TempcoPpmPerK = 100; // 10 Hz/K
+        scene.Temperature = new SceneTemperature { Kind = TemperatureProfileKind.Ramps, StartC = 20, Points = { new TemperaturePoint { TimeS = 4, TempC = 24 } } };
+        scene.Hardware.ClockHz = 1e6;
+        var (w, truth, _) = Run(scene);
+        Assert.Equal(1, truth.LockedCount);
+        Assert.InRange(truth.LockedStartTimesS[0], 1.85, 2.0);
+        Assert.Contains(truth.Warnings, x => x.Contains("near zero beat"));
+        long lastTick = (long)w.Rows[^1].Tick - (long)w.Rows[0].Tick;
+        Assert.True(lastTick > 3.9e6, "edges resume after the lock");
+    }
+
+    [Fact]
     public void Snapshots_CountGrowsAtTheIntendedRate_AndWraps()
     {
         var scene = Quiet(130_000, 1.0);
