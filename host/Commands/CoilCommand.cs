@@ -1,0 +1,292 @@
+using System.ComponentModel;
+using System.Globalization;
+using System.Text.Json;
+using FreqReadout.Host.Simulation;
+using Spectre.Console;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// <c>freqreadout coil</c>: a search coil's figures (Wheeler and thin-loop inductance side by side, frequency or capacitance)
+/// and, for a chosen target, its expected shift against distance on the coil axis and its ferrous crossover frequency.
+/// </summary>
+public sealed class CoilCommand : Command<CoilCommand.Settings>
+{
+    public sealed class Settings : CommandSettings
+    {
+        [CommandOption("--scene <FILE>")]
+        [Description("Take coil and oscillator from a scene file (options below override).")]
+        public string? Scene { get; set; }
+
+        [CommandOption("--turns <N>")]
+        [Description("Turns, 1..100000 (default 45).")]
+        public int? Turns { get; set; }
+
+        [CommandOption("--diameter-mm <MM>")]
+        [Description("Mean winding diameter, mm (default 180).")]
+        public double? DiameterMm { get; set; }
+
+        [CommandOption("--winding-length-mm <MM>")]
+        [Description("Axial winding length, mm; 0 = from the wire (default).")]
+        public double? WindingLengthMm { get; set; }
+
+        [CommandOption("--winding-depth-mm <MM>")]
+        [Description("Radial winding depth, mm; 0 = from the wire (default).")]
+        public double? WindingDepthMm { get; set; }
+
+        [CommandOption("--wire-mm <MM>")]
+        [Description("Wire diameter, mm (default 0.5).")]
+        public double? WireMm { get; set; }
+
+        [CommandOption("--inductance-model <MODEL>")]
+        [Description("wheeler (default) or thin_loop: which L sets the frequency.")]
+        public string? InductanceModel { get; set; }
+
+        [CommandOption("--frequency-hz <HZ>")]
+        [Description("Operating frequency, Hz (the capacitance follows). Default 100000.")]
+        public double? FrequencyHz { get; set; }
+
+        [CommandOption("--capacitance-nf <NF>")]
+        [Description("Tuning capacitance, nF (the frequency follows).")]
+        public double? CapacitanceNf { get; set; }
+
+        [CommandOption("--material <NAME>")]
+        [Description("Target material: silver, copper, aluminium, brass, cupronickel, stainless, carbon_steel or custom.")]
+        public string? Material { get; set; }
+
+        [CommandOption("--radius-mm <MM>")]
+        [Description("Target sphere radius, mm (default 10).")]
+        public double RadiusMm { get; set; } = 10;
+
+        [CommandOption("--mu-r <MU>")]
+        [Description("Relative permeability (carbon steel default 100; custom default 1).")]
+        public double? MuR { get; set; }
+
+        [CommandOption("--conductivity <S_PER_M>")]
+        [Description("Conductivity, S/m (required for custom; overrides a preset).")]
+        public double? Conductivity { get; set; }
+
+        [CommandOption("--depths-mm <LIST>")]
+        [Description("Target-centre depths below the surface, mm, comma separated, target on the coil axis (default 20,50,80,100,150,200,300).")]
+        public string Depths { get; set; } = "20,50,80,100,150,200,300";
+
+        [CommandOption("--height-mm <MM>")]
+        [Description("Height of the coil plane above the surface, mm (>= 0, default 0).")]
+        public double HeightMm { get; set; }
+
+        [CommandOption("--json")]
+        [Description("One JSON object on stdout (snake_case keys with units).")]
+        public bool Json { get; set; }
+    }
+
+    public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
+    {
+        CoilReport report;
+        try
+        {
+            report = Build(settings);
+        }
+        catch (SceneException ex)
+        {
+            return CommandErrors.Fail(ex.Message);
+        }
+        catch (ArgumentOutOfRangeException ex)
+        {
+            return CommandErrors.Fail(ex.Message);
+        }
+
+        if (settings.Json)
+        {
+            Console.Out.WriteLine(JsonSerializer.Serialize(report, CompactOptions));
+            return 0;
+        }
+
+        Print(report);
+        return 0;
+    }
+
+    private static readonly JsonSerializerOptions CompactOptions = new(FreqReadout.Host.Simulation.Scene.JsonOptions) { WriteIndented = false };
+
+    /// <summary>Builds the report from the settings; throws <see cref="SceneException"/> naming the option and its range.</summary>
+    internal static CoilReport Build(Settings s)
+    {
+        var coil = new SceneCoil();
+        var osc = new SceneOscillator { FrequencyHz = 100_000 };
+        if (s.Scene is not null)
+        {
+            var scene = FreqReadout.Host.Simulation.Scene.Load(s.Scene);
+            coil = scene.Coil;
+            osc = scene.Oscillator;
+        }
+
+        if (s.Turns.HasValue) coil.Turns = s.Turns.Value;
+        if (s.DiameterMm.HasValue) coil.MeanDiameterM = s.DiameterMm.Value / 1000;
+        if (s.WindingLengthMm.HasValue) coil.WindingLengthM = s.WindingLengthMm.Value / 1000;
+        if (s.WindingDepthMm.HasValue) coil.WindingDepthM = s.WindingDepthMm.Value / 1000;
+        if (s.WireMm.HasValue) coil.WireDiameterM = s.WireMm.Value / 1000;
+        if (s.InductanceModel is not null)
+        {
+            coil.InductanceModel = s.InductanceModel.Trim().ToLowerInvariant() switch
+            {
+                "wheeler" => Simulation.InductanceModel.Wheeler,
+                "thin_loop" or "thin-loop" => Simulation.InductanceModel.ThinLoop,
+                _ => throw new SceneException($"--inductance-model must be wheeler or thin_loop (got {s.InductanceModel})"),
+            };
+        }
+
+        if (s.FrequencyHz.HasValue && s.CapacitanceNf.HasValue)
+        {
+            throw new SceneException("give --frequency-hz or --capacitance-nf, not both");
+        }
+
+        if (s.FrequencyHz.HasValue)
+        {
+            osc.FrequencyHz = s.FrequencyHz;
+            osc.TuningCapacitanceNf = null;
+        }
+        else if (s.CapacitanceNf.HasValue)
+        {
+            osc.TuningCapacitanceNf = s.CapacitanceNf;
+            osc.FrequencyHz = null;
+        }
+
+        if (osc.FrequencyHz.HasValue && !(osc.FrequencyHz > 100 && osc.FrequencyHz <= 20e6))
+        {
+            throw new SceneException($"--frequency-hz must be in (100, 2e7] Hz (got {Fmt(osc.FrequencyHz.Value)})");
+        }
+
+        if (osc.TuningCapacitanceNf.HasValue && !(osc.TuningCapacitanceNf > 0.001 && osc.TuningCapacitanceNf <= 1e6))
+        {
+            throw new SceneException($"--capacitance-nf must be in (0.001, 1e6] nF (got {Fmt(osc.TuningCapacitanceNf.Value)})");
+        }
+
+        // Coil geometry checks with option names.
+        var probe = new FreqReadout.Host.Simulation.Scene { Coil = coil, Oscillator = new SceneOscillator { FrequencyHz = 100_000 } };
+        try
+        {
+            probe.Validate("coil");
+        }
+        catch (SceneException ex)
+        {
+            throw new SceneException(ex.Message
+                .Replace("coil.turns", "--turns").Replace("coil.mean_diameter_m", "--diameter-mm (as metres)")
+                .Replace("coil.wire_diameter_m", "--wire-mm (as metres)").Replace("coil.winding_length_m", "--winding-length-mm (as metres)")
+                .Replace("coil.winding_depth_m", "--winding-depth-mm (as metres)"));
+        }
+
+        Material? material = null;
+        if (s.Material is not null)
+        {
+            if (!(s.RadiusMm > 0 && s.RadiusMm <= 1000))
+            {
+                throw new SceneException($"--radius-mm must be in (0, 1000] mm (got {Fmt(s.RadiusMm)})");
+            }
+
+            var target = new SceneTarget { Material = s.Material, MuR = s.MuR, ConductivitySPerM = s.Conductivity };
+            if (!FreqReadout.Host.Simulation.Scene.TryResolveMaterial(target, out Material m, out string? why))
+            {
+                throw new SceneException($"--material must be {why!.Replace("conductivity_s_per_m", "--conductivity").Replace("mu_r", "--mu-r")} (got {s.Material})");
+            }
+
+            material = m;
+        }
+        else if (s.MuR.HasValue || s.Conductivity.HasValue)
+        {
+            throw new SceneException("--mu-r and --conductivity describe a target: give --material too");
+        }
+
+        if (!(s.HeightMm >= 0 && s.HeightMm <= 5000))
+        {
+            throw new SceneException($"--height-mm must be in [0, 5000] mm (got {Fmt(s.HeightMm)})");
+        }
+
+        var depths = new List<double>();
+        foreach (string part in s.Depths.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        {
+            if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out double mm) || !(mm >= 0 && mm <= 100_000) || mm + s.HeightMm <= 0)
+            {
+                throw new SceneException($"--depths-mm must be a comma-separated list of depths in [0, 100000] mm, not all zero with --height-mm 0 (got '{part}')");
+            }
+
+            depths.Add(mm / 1000);
+        }
+
+        if (depths.Count == 0)
+        {
+            throw new SceneException("--depths-mm must list at least one depth");
+        }
+
+        var searchCoil = coil.ToSearchCoil();
+        return CoilReport.Create(searchCoil, coil.InductanceModel, osc.FrequencyHz, osc.TuningCapacitanceNf * 1e-9, material, s.RadiusMm / 1000, depths, s.HeightMm / 1000);
+    }
+
+    private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
+
+    private static void Print(CoilReport r)
+    {
+        var console = CommandErrors.Stdout();
+        var ci = CultureInfo.InvariantCulture;
+        var coil = new Table().Title("search coil").AddColumn("figure").AddColumn(new TableColumn("value").RightAligned());
+        coil.AddRow("turns", r.Turns.ToString(ci));
+        coil.AddRow("mean diameter", (r.MeanDiameterM * 1000).ToString("F1", ci) + " mm");
+        coil.AddRow("winding length x depth", $"{(r.WindingLengthM * 1000).ToString("F2", ci)} x {(r.WindingDepthM * 1000).ToString("F2", ci)} mm");
+        coil.AddRow("inductance, Wheeler multilayer", r.InductanceWheelerUh.ToString("F2", ci) + " uH");
+        coil.AddRow("inductance, thin loop (round bundle)", r.InductanceThinLoopUh.ToString("F2", ci) + " uH");
+        coil.AddRow("thin loop vs Wheeler", r.InductanceDifferencePct.ToString("+0.00;-0.00", ci) + " %");
+        coil.AddRow("frequency (" + r.InductanceModel + ")", r.FrequencyHz.ToString("F1", ci) + " Hz");
+        coil.AddRow("tuning capacitance", r.CapacitanceNf.ToString("F4", ci) + " nF");
+        console.Write(coil);
+        if (Math.Abs(r.InductanceDifferencePct) > 2)
+        {
+            console.MarkupLine("the two inductances differ by more than 2 %: Wheeler's formula is meant for windings whose length and depth are comparable terms; " +
+                "for a compact bundle it stays finite as the bundle shrinks while the true inductance grows as ln(8R/a), so the thin-loop figure is the better guide (--inductance-model thin_loop).");
+        }
+
+        if (r.Target is not { } t)
+        {
+            return;
+        }
+
+        console.MarkupLine(Markup.Escape(
+            $"target: {t.Material} sphere, radius {(t.RadiusM * 1000).ToString("F1", ci)} mm, sigma {t.ConductivitySPerM.ToString("G3", ci)} S/m, mu_r {t.MuR.ToString("G4", ci)}; " +
+            $"skin depth {(t.SkinDepthM * 1000).ToString("F3", ci)} mm; M/(2 pi a^3) = {t.PolarizabilityRe.ToString("F5", ci)} {t.PolarizabilityIm.ToString("+0.00000;-0.00000", ci)}i"));
+        if (t.CrossoverHz is double fx)
+        {
+            string side = t.AboveCrossover == true
+                ? "the operating frequency is ABOVE it: this iron part raises the frequency and the sign rule reads it as non-ferrous"
+                : "the operating frequency is below it: the part lowers the frequency and reads ferrous";
+            console.MarkupLine(Markup.Escape($"ferrous crossover of this part: {(fx / 1000).ToString("F2", ci)} kHz; {side}"));
+        }
+        else
+        {
+            console.MarkupLine("non-magnetic: no crossover; the frequency rises at every operating frequency");
+        }
+
+        var table = new Table().Title($"expected shift, target on the coil axis, coil {(t.HeightM * 1000).ToString("F0", ci)} mm above the surface")
+            .AddColumn(new TableColumn("depth mm").RightAligned())
+            .AddColumn(new TableColumn("distance mm").RightAligned())
+            .AddColumn(new TableColumn("radii").RightAligned())
+            .AddColumn(new TableColumn("dL nH").RightAligned())
+            .AddColumn(new TableColumn("shift Hz").RightAligned())
+            .AddColumn(new TableColumn("shift ppm").RightAligned());
+        foreach (var row in t.Table)
+        {
+            table.AddRow(
+                (row.DepthM * 1000).ToString("F0", ci),
+                (row.DistanceM * 1000).ToString("F0", ci),
+                row.DistanceRadii.ToString("F1", ci) + (row.DistanceRadii < 10 ? "*" : ""),
+                row.InductanceChangeNh.ToString("G4", ci),
+                row.ShiftHz.ToString("G4", ci),
+                row.ShiftPpm.ToString("G4", ci));
+        }
+
+        console.Write(table);
+        if (t.Table.Exists(x => x.DistanceRadii < 10))
+        {
+            console.MarkupLine("* closer than about 10 target radii: the small-dipole model is stretched there, figures approximate");
+        }
+
+        console.MarkupLine("[grey]A small or absent shift is not proof that nothing is there: isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local codes and licensed practice.[/]");
+    }
+}

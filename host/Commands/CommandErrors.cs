@@ -1,0 +1,21 @@
+using Spectre.Console;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>Prints a user error (setting or file named, with the allowed range) to stderr; commands then return 2.</summary>
+internal static class CommandErrors
+{
+    public const int UsageError = 2;
+
+    public static int Fail(string message)
+    {
+        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+        err.MarkupLine("[red]error:[/] " + Markup.Escape(message));
+        return UsageError;
+    }
+
+    /// <summary>A console over the current <see cref="Console.Out"/> (not the cached static one, so redirection is honoured).</summary>
+    public static IAnsiConsole Stdout() => AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Out) });
+
+    public static IAnsiConsole Stderr() => AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+}
