@@ -39,26 +39,19 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
-        CounterSettings? options = settings.BuildCounterOptions(out string? optionError);
+        CounterSettings? options = settings.BuildOptions(out string? optionError);
         if (options == null)
         {
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
         }
 
-        ICaptureReader reader;
-        try
+        int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
+        if (opened == null)
         {
-            reader = CaptureFile.Open(settings.Capture);
-        }
-        catch (CaptureFormatException e)
-        {
-            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{settings.Capture}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+            return openError;
         }
 
+        ICaptureReader reader = opened;
         using (reader)
         {
             ReadoutSettings? readout = settings.BuildReadoutSettings(reader.Metadata, out string? readoutError);
