@@ -36,6 +36,14 @@ public static class TempcoCalibration
             return false;
         }
 
+        double lowest = points.Min(p => p.TemperatureC);
+        double highest = points.Max(p => p.TemperatureC);
+        if (!(highest > lowest))
+        {
+            error = $"the target-free readings all lie at one temperature ({lowest.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)} deg C): there is no temperature change to fit";
+            return false;
+        }
+
         double s = SignRule.SearchSignPerCounted(signal, side);
         var x = points.Select(p => p.TemperatureC).ToArray();
         var y = points.Select(p => s * (p.FrequencyHz - mean) / reference * 1e6).ToArray();

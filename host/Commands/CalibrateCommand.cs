@@ -17,12 +17,17 @@ namespace FreqReadout.Host.Commands;
 /// through the readout pipeline without temperature compensation, averages the counted frequency of
 /// the target-free readings between temperature samples, and fits the search oscillator's tempco
 /// (ppm/K with its standard error, least squares, <see cref="TempcoCalibration"/>). The device takes
-/// the number as its tempco_ppm_per_k setting; replay takes it as --tempco-ppm-per-k.
+/// the number as its tempco_ppm_per_k setting; replay takes it as --tempco-ppm-per-k. Unless
+/// --persistent-shift-s is given, calibrate uses 3 s, so that a temperature step is soon re-baselined
+/// and the stretch after it counts as target-free again.
 /// </summary>
 public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
 {
     /// <summary>Below this temperature span the fit is flagged as weak.</summary>
     public const double MinUsefulSpanK = 1.0;
+
+    /// <summary>persistent_shift_s used by calibrate unless given: longer than a coil pass, short enough that a temperature step soon becomes a new baseline.</summary>
+    public const double DefaultPersistentShiftSeconds = 3.0;
 
     public sealed class Settings : ReadoutCommandSettings
     {
@@ -56,8 +61,13 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
                 return CommandOutput.Fail(readoutError!, CommandOutput.BadOption);
             }
 
-            // The fit needs the uncompensated frequencies.
+            // The fit needs the uncompensated frequencies; and a temperature step must not hide as a long
+            // "target": unless told otherwise, a shift lasting longer than a coil pass is re-baselined soon.
             readout.TempcoPpmPerK = 0;
+            if (settings.PersistentShiftSeconds == null)
+            {
+                readout.PersistentShiftSeconds = DefaultPersistentShiftSeconds;
+            }
             CaptureGateSource source;
             try
             {

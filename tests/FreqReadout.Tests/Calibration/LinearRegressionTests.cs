@@ -83,4 +83,12 @@ public class LinearRegressionTests
         Assert.False(TempcoCalibration.TryFit(points, SignalKind.Beat, BeatSide.Above, 0, out _, out string? error));
         Assert.Contains("search_hz", error);
     }
+
+    [Fact]
+    public void One_temperature_only_is_said_plainly()
+    {
+        var points = new[] { new TempcoPoint(21, 1000, 0, 1), new TempcoPoint(21, 999, 1, 1), new TempcoPoint(21, 998, 2, 1) };
+        Assert.False(TempcoCalibration.TryFit(points, SignalKind.Search, BeatSide.None, 0, out _, out string? error));
+        Assert.Contains("all lie at one temperature (21 deg C)", error);
+    }
 }
