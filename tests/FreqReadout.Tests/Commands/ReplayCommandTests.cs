@@ -326,4 +326,21 @@ public sealed class ReplayCommandTests : IDisposable
         Assert.Equal("ferrous", events[1].GetProperty("class").GetString());
         Assert.InRange(events[0].GetProperty("peak_s").GetDouble(), 14.5, 15.6);
     }
+
+    [Fact]
+    public void Binary_capture_replays_exactly_like_its_text_original()
+    {
+        var capture = new SyntheticEdgeCapture { DurationSeconds = 25, SearchHzAt = t => F0 + new TargetPass(15, 1.0, -2.0).ShiftAt(t) };
+        capture.Marks.Add((18.0, "rebaseline"));
+        string text = PathOf("orig.edges.csv");
+        string binary = PathOf("orig.bin");
+        capture.Write(text);
+        Assert.Equal(0, ConsoleCapture.Run("convert", text, binary, "--to", "binary").Exit);
+
+        var (e1, fromText, err1) = ConsoleCapture.Run("replay", text, "--json");
+        var (e2, fromBinary, err2) = ConsoleCapture.Run("replay", binary, "--json");
+        Assert.True(e1 == 0 && e2 == 0, err1 + err2);
+        Assert.Equal(fromText, fromBinary);
+        Assert.Equal(1, ParseSingleObject(fromText).GetProperty("events").GetArrayLength());
+    }
 }
