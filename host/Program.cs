@@ -8,7 +8,17 @@ public static class Program
 {
     public static int Main(string[] args)
     {
-        return BuildApp().Run(args);
+        try
+        {
+            return BuildApp().Run(args);
+        }
+        catch (CommandAppException e)
+        {
+            // Usage errors (unknown option, missing argument, a value of the wrong type): one line, no stack trace.
+            string detail = e.InnerException is { } inner && inner.Message != e.Message ? " (" + inner.Message + ")" : string.Empty;
+            Console.Error.WriteLine("error: " + e.Message.TrimEnd('.') + detail + "; see freqreadout --help");
+            return 2;
+        }
     }
 
     /// <summary>The command tree; tests run commands through this too.</summary>
@@ -19,6 +29,7 @@ public static class Program
         {
             config.SetApplicationName("freqreadout");
             config.PropagateExceptions();
+            config.UseStrictParsing(); // an unknown or misspelt option is an error, never silently ignored
             config.AddCommand<DemoCommand>("demo")
                 .WithDescription("Run the whole pipeline on a built-in invented scenario.");
             config.AddCommand<CountCommand>("count")

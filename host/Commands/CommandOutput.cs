@@ -1,3 +1,4 @@
+using FreqReadout.Host.Captures;
 using Spectre.Console;
 
 namespace FreqReadout.Host.Commands;
@@ -36,4 +37,31 @@ public static class CommandOutput
         Console.Error.WriteLine("error: " + message);
         return exitCode;
     }
+
+    /// <summary>
+    /// Opens a capture (text or binary, by content) for a command; on failure writes the one-line
+    /// error ("file:line: what was expected", or why the file cannot be opened) and gives the exit code.
+    /// </summary>
+    /// <returns>0 with <paramref name="reader"/> set, or <see cref="BadInput"/> with it null.</returns>
+    public static int TryOpenCapture(string path, out ICaptureReader? reader)
+    {
+        reader = null;
+        try
+        {
+            reader = CaptureFile.Open(path);
+            return 0;
+        }
+        catch (CaptureFormatException e)
+        {
+            return Fail(e.Message, BadInput);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return Fail($"{path}: cannot open the capture: {e.Message}", BadInput);
+        }
+    }
+
+    /// <summary>The format of an opened capture.</summary>
+    public static CaptureFileFormat FormatOf(ICaptureReader reader) =>
+        reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
 }

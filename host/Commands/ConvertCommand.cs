@@ -30,11 +30,11 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
 
         [CommandOption("--from-s <SECONDS>")]
         [Description("Keep rows from this time on, seconds from the first row (>= 0).")]
-        public double? FromSeconds { get; set; }
+        public string? FromSeconds { get; set; }
 
         [CommandOption("--to-s <SECONDS>")]
         [Description("Keep rows up to this time, seconds from the first row (> --from-s).")]
-        public double? ToSeconds { get; set; }
+        public string? ToSeconds { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -53,16 +53,16 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             return CommandOutput.Fail($"--to must be text or binary, got '{settings.To}'", CommandOutput.BadOption);
         }
 
-        double from = settings.FromSeconds ?? 0;
-        double until = settings.ToSeconds ?? double.PositiveInfinity;
-        if (!(from >= 0) || double.IsInfinity(from))
+        double from = 0;
+        double until = double.PositiveInfinity;
+        if (settings.FromSeconds != null && (!OptionValues.TryNumber(settings.FromSeconds, out from) || !(from >= 0)))
         {
-            return CommandOutput.Fail($"--from-s must be a number >= 0 (seconds from the first row), got {Num(from)}", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--from-s must be a number >= 0 (seconds from the first row), got '{settings.FromSeconds}'", CommandOutput.BadOption);
         }
 
-        if (settings.ToSeconds.HasValue && (!(until > from) || double.IsInfinity(until)))
+        if (settings.ToSeconds != null && (!OptionValues.TryNumber(settings.ToSeconds, out until) || !(until > from)))
         {
-            return CommandOutput.Fail($"--to-s must be a number greater than --from-s ({Num(from)} s), got {Num(until)}", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--to-s must be a number greater than --from-s ({Num(from)} s), got '{settings.ToSeconds}'", CommandOutput.BadOption);
         }
 
         if (Path.GetFullPath(settings.Input) == Path.GetFullPath(settings.Output))
@@ -70,32 +70,25 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             return CommandOutput.Fail("<out> must be another file than <in>", CommandOutput.BadOption);
         }
 
-        ICaptureReader reader;
-        try
+        int openExit = CommandOutput.TryOpenCapture(settings.Input, out ICaptureReader? opened);
+        if (opened == null)
         {
-            reader = CaptureFile.Open(settings.Input);
-        }
-        catch (CaptureFormatException e)
-        {
-            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{settings.Input}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+            return openExit;
         }
 
+        ICaptureReader reader = opened;
         using (reader)
         {
-            var inputFormat = reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            var inputFormat = CommandOutput.FormatOf(reader);
             var outputFormat = to ?? (inputFormat == CaptureFileFormat.Text ? CaptureFileFormat.Binary : CaptureFileFormat.Text);
-            bool trim = settings.FromSeconds.HasValue || settings.ToSeconds.HasValue;
+            bool trim = settings.FromSeconds != null || settings.ToSeconds != null;
             if (trim)
             {
                 reader.Metadata.HeaderLines.Add(CaptureHeaderLine.ForComment(string.Format(
                     CultureInfo.InvariantCulture,
                     " trimmed by freqreadout convert to rows from {0} s to {1} s after the first row of {2}",
                     Num(from),
-                    settings.ToSeconds.HasValue ? Num(until) : "the end",
+                    settings.ToSeconds != null ? Num(until) : "the end",
                     Path.GetFileName(settings.Input))));
             }
 

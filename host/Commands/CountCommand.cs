@@ -20,109 +20,15 @@ public sealed class CountCommand : Command<CountCommand.Settings>
     /// <summary>Table rows rendered per table block (the table streams in blocks on long captures).</summary>
     public const int RowsPerTable = 1000;
 
-    public sealed class Settings : CommandSettings
+    public sealed class Settings : CounterOptionSettings
     {
         [CommandArgument(0, "<capture>")]
         [Description("Capture file, text or binary (picked by content).")]
         public string Capture { get; set; } = string.Empty;
 
-        [CommandOption("--gate-seconds <SECONDS>")]
-        [Description("Time gate: a gate closes on the first edge at or after this many seconds (> 0). Default 0.1.")]
-        public double? GateSeconds { get; set; }
-
-        [CommandOption("--gate-edges <N>")]
-        [Description("Edge gate: a gate closes after N recorded intervals (integer >= 1). Instead of --gate-seconds.")]
-        public int? GateEdges { get; set; }
-
-        [CommandOption("--estimator <NAME>")]
-        [Description("reciprocal (first and last edge) or regression (least squares over every edge). Default regression. Snapshot captures always use snapshot-regression.")]
-        public string? Estimator { get; set; }
-
-        [CommandOption("--jitter-ticks <TICKS>")]
-        [Description("Timestamp jitter, rms ticks (>= 0), added to the quantisation in the error model. Default 0.")]
-        public double? JitterTicks { get; set; }
-
-        [CommandOption("--no-signal-seconds <SECONDS>")]
-        [Description("No edge within this many seconds reports no_signal (> 0). Default 0.5.")]
-        public double? NoSignalSeconds { get; set; }
-
         [CommandOption("--json")]
         [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz, edges, error_hz, estimator, state.")]
         public bool Json { get; set; }
-    }
-
-    /// <summary>Builds the counter options from the command-line settings; null with an error naming the option and its range.</summary>
-    public static CounterSettings? BuildOptions(Settings settings, out string? error)
-    {
-        error = null;
-        var options = new CounterSettings();
-        if (settings.GateSeconds.HasValue && settings.GateEdges.HasValue)
-        {
-            error = "give either --gate-seconds or --gate-edges, not both";
-            return null;
-        }
-
-        if (settings.GateSeconds is double seconds)
-        {
-            if (!(seconds > 0) || !double.IsFinite(seconds))
-            {
-                error = $"--gate-seconds must be a number > 0 (seconds), got {Num(seconds)}";
-                return null;
-            }
-
-            options.Mode = GateMode.Time;
-            options.GateSeconds = seconds;
-        }
-
-        if (settings.GateEdges is int edges)
-        {
-            if (edges < 1 || edges > EdgeCounter.MaxGateIntervals)
-            {
-                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got {edges}";
-                return null;
-            }
-
-            options.Mode = GateMode.Edges;
-            options.GateEdges = edges;
-        }
-
-        switch (settings.Estimator)
-        {
-            case null:
-            case "regression":
-                options.Estimator = EstimatorKind.Regression;
-                break;
-            case "reciprocal":
-                options.Estimator = EstimatorKind.Reciprocal;
-                break;
-            default:
-                error = $"--estimator must be reciprocal or regression, got '{settings.Estimator}'";
-                return null;
-        }
-
-        if (settings.JitterTicks is double jitter)
-        {
-            if (!(jitter >= 0) || !double.IsFinite(jitter))
-            {
-                error = $"--jitter-ticks must be a number >= 0 (rms ticks), got {Num(jitter)}";
-                return null;
-            }
-
-            options.JitterTicks = jitter;
-        }
-
-        if (settings.NoSignalSeconds is double noSignal)
-        {
-            if (!(noSignal > 0) || !double.IsFinite(noSignal))
-            {
-                error = $"--no-signal-seconds must be a number > 0 (seconds), got {Num(noSignal)}";
-                return null;
-            }
-
-            options.NoSignalSeconds = noSignal;
-        }
-
-        return options;
     }
 
     /// <summary>The <c>estimator</c> value of the JSON contract.</summary>
@@ -144,26 +50,19 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
-        var options = BuildOptions(settings, out string? optionError);
+        var options = settings.BuildOptions(out string? optionError);
         if (options == null)
         {
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
         }
 
-        ICaptureReader reader;
-        try
+        int openExit = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
+        if (opened == null)
         {
-            reader = CaptureFile.Open(settings.Capture);
-        }
-        catch (CaptureFormatException e)
-        {
-            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{settings.Capture}: cannot open the capture: {e.Message}", CommandOutput.BadInput);
+            return openExit;
         }
 
+        ICaptureReader reader = opened;
         using (reader)
         {
             CaptureGateSource source;
@@ -176,7 +75,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                 return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
             }
 
-            var format = reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            var format = CommandOutput.FormatOf(reader);
             int exit = 0;
             try
             {

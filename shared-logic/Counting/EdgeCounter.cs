@@ -38,8 +38,9 @@ namespace FreqReadout.Counting
     /// interval is measured from the last accepted edge. Dropout: an interval above DropoutPeriods x P
     /// (or at least NoSignalSeconds) closes the gate at the last good edge (a result with state Dropout
     /// when the gate has at least 2 edges, else none) and the edge after the gap opens the next gate.
-    /// The bootstrap interval itself is not checked, so a double trigger on the very first interval
-    /// leads to one short dropout gate before the period re-bootstraps.
+    /// The bootstrap interval itself cannot be checked: a gap seen while the period rests on that one
+    /// interval alone gives no result (it is counted as a dropout) and the period is learnt again, so
+    /// a double trigger on the very first interval never produces a number.
     /// </para>
     /// <para>
     /// Empty input: a gate needs at least 2 edges (one interval); until then, and for a gate cut
@@ -77,6 +78,7 @@ namespace FreqReadout.Counting
         private long _lastTick;
         private bool _hasPeriod;
         private double _period;
+        private int _periodSamples;
 
         // Open gate.
         private bool _gateOpen;
@@ -258,7 +260,13 @@ namespace FreqReadout.Counting
             {
                 _dropoutsTotal++;
                 bool closed = false;
-                if (_gateN >= 2)
+                if (_periodSamples < 2)
+                {
+                    // The running period rests on its bootstrap interval alone, which may itself have been
+                    // a double trigger: give no result from it and learn the period again.
+                    _hasPeriod = false;
+                }
+                else if (_gateN >= 2)
                 {
                     result = CloseGate(GateState.Dropout, 1);
                     closed = true;
@@ -283,11 +291,16 @@ namespace FreqReadout.Counting
             if (_hasPeriod)
             {
                 _period += (d - _period) * RunningPeriodWeight;
+                if (_periodSamples < 2)
+                {
+                    _periodSamples++;
+                }
             }
             else
             {
                 _period = d;
                 _hasPeriod = true;
+                _periodSamples = 1;
             }
 
             Append(tick);
@@ -364,6 +377,7 @@ namespace FreqReadout.Counting
             _lastTick = 0;
             _hasPeriod = false;
             _period = 0;
+            _periodSamples = 0;
             _gateOpen = false;
             _gateStart = 0;
             _gateN = 0;

@@ -10,7 +10,10 @@ namespace FreqReadout.Counting
     /// <para>
     /// Input: unwrapped ticks and unwrapped counts. A hardware counter of count_bits width is
     /// unwrapped with <c>new TimerUnwrapper(countBits, true)</c> (an unchanged count is valid), the
-    /// read time with <c>new TimerUnwrapper(timerBits)</c>.
+    /// read time with <c>new TimerUnwrapper(timerBits)</c>. The counts expected per read are
+    /// <see cref="RunningIntervalTicks"/> / <see cref="RunningCountPeriodTicks"/>; pass that to the count
+    /// unwrapper's <see cref="TimerUnwrapper.TryGetWrapWarning"/> (a narrow counter at a high rate can
+    /// wrap within a few reads, and a missed read could then hide a whole wrap).
     /// </para>
     /// <para>
     /// Gates as for edges: they share their boundary snapshot; a time gate closes on the first

@@ -117,5 +117,86 @@ namespace FreqReadout.Numerics
 
             return t;
         }
+
+        /// <summary>ln 2.</summary>
+        public const double Ln2 = 0.69314718055994530942;
+
+        /// <summary>The larger of a and b.</summary>
+        public static double Max(double a, double b)
+        {
+            return a >= b ? a : b;
+        }
+
+        /// <summary>The smaller of a and b.</summary>
+        public static double Min(double a, double b)
+        {
+            return a <= b ? a : b;
+        }
+
+        /// <summary>x limited to [lo, hi] (lo &lt;= hi).</summary>
+        public static double Clamp(double x, double lo, double hi)
+        {
+            if (x < lo)
+            {
+                return lo;
+            }
+
+            return x > hi ? hi : x;
+        }
+
+        /// <summary>True when x is neither NaN nor infinite.</summary>
+        public static bool IsFinite(double x)
+        {
+            // NaN fails every comparison; infinities fail the bounds.
+            return x >= -double.MaxValue && x <= double.MaxValue;
+        }
+
+        /// <summary>
+        /// e^x by range reduction x = k ln2 + r, |r| &lt;= ln2 / 2, a Taylor series of e^r to the 16th
+        /// power (truncation below 1e-17 relative), then scaling by 2^k. Returns 0 below -745,
+        /// +infinity above 709.78, NaN for NaN.
+        /// </summary>
+        public static double Exp(double x)
+        {
+            if (double.IsNaN(x))
+            {
+                return x;
+            }
+
+            if (x < -745.0)
+            {
+                return 0.0;
+            }
+
+            if (x > 709.78)
+            {
+                return double.PositiveInfinity;
+            }
+
+            double kd = x / Ln2;
+            long k = (long)(kd >= 0 ? kd + 0.5 : kd - 0.5);
+            double r = x - (k * Ln2);
+            double term = 1.0;
+            double sum = 1.0;
+            for (int n = 1; n <= 16; n++)
+            {
+                term *= r / n;
+                sum += term;
+            }
+
+            while (k > 0)
+            {
+                sum *= 2.0;
+                k--;
+            }
+
+            while (k < 0)
+            {
+                sum *= 0.5;
+                k++;
+            }
+
+            return sum;
+        }
     }
 }

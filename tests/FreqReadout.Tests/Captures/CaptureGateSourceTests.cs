@@ -63,6 +63,63 @@ public sealed class CaptureGateSourceTests
     }
 
     [Fact]
+    public void Snapshots_give_130000_Hz_within_the_regression_error_model()
+    {
+        // Contract README: "input exactly 130 kHz, 2001 reads ... regression of count on time gives
+        // 130 000 Hz within its error model". The model (white count quantisation and read-time
+        // resolution) is SnapshotCounter's; 3 sigma per gate is the usual acceptance band (common practice, no source).
+        var gates = Replay(Contract("snapshots.edges.csv"), new CounterSettings { GateSeconds = 0.1 }, out var source);
+        Assert.Equal(19, gates.Count);
+        Assert.All(gates, g => Assert.Equal(EstimatorKind.SnapshotRegression, g.Gate.Estimator));
+        Assert.All(gates, g => Assert.InRange(g.Gate.FrequencyHz, 130_000.0 - 3 * g.Gate.ErrorHz, 130_000.0 + 3 * g.Gate.ErrorHz));
+
+        // The scatter of the 19 gates matches the predicted 1-sigma error: for 18 degrees of freedom the
+        // ratio of sample to true sigma lies in about 0.68..1.31 at 95 % (chi-square); 0.6..1.4 here.
+        double rms = Math.Sqrt(gates.Sum(g => Math.Pow(g.Gate.FrequencyHz - 130_000.0, 2)) / gates.Count);
+        double predicted = gates.Average(g => g.Gate.ErrorHz);
+        Assert.InRange(rms / predicted, 0.6, 1.4);
+        Assert.Equal(2001, source.RowsFed);
+
+        // One gate over the whole capture.
+        var whole = Assert.Single(Replay(Contract("snapshots.edges.csv"), new CounterSettings { GateSeconds = 1.9 }, out _)).Gate;
+        Assert.InRange(whole.FrequencyHz, 130_000.0 - 3 * whole.ErrorHz, 130_000.0 + 3 * whole.ErrorHz);
+        Assert.True(whole.ErrorHz < 0.05, $"error {whole.ErrorHz} Hz over 1.9 s");
+    }
+
+    [Fact]
+    public void A_narrow_pulse_counter_is_unwrapped()
+    {
+        // 16-bit counter and 16-bit timer read every 1000 ticks at 1 MHz, input 50 kHz: 50 counts per read,
+        // the counter wraps every 1311 reads (no warning), the timer every 65.5 reads.
+        var sb = new StringBuilder("# freqreadout capture 1\n# kind = snapshots\n# clock_hz = 1000000\n# timer_bits = 16\n# count_bits = 16\ntick,count\n");
+        for (int i = 0; i < 5000; i++)
+        {
+            sb.Append((i * 1000L) % 65536).Append(',').Append((i * 50L) % 65536).Append('\n');
+        }
+
+        var gates = ReplayText(sb.ToString(), new CounterSettings { GateSeconds = 0.5 }, out var source);
+        Assert.Equal(9, gates.Count);
+        Assert.All(gates, g => Assert.Equal(50_000.0, g.Gate.FrequencyHz, 6));
+        Assert.Empty(source.Warnings);
+    }
+
+    [Fact]
+    public void A_pulse_counter_wrapping_within_8_reads_gives_a_warning()
+    {
+        // 16-bit counter, input 10 MHz read every 1000 ticks at 1 MHz: 10 000 counts per read, 6.6 reads per wrap.
+        var sb = new StringBuilder("# freqreadout capture 1\n# kind = snapshots\n# clock_hz = 1000000\n# count_bits = 16\ntick,count\n");
+        for (int i = 0; i < 500; i++)
+        {
+            sb.Append(i * 1000L).Append(',').Append((i * 10_000L) % 65536).Append('\n');
+        }
+
+        var gates = ReplayText(sb.ToString(), new CounterSettings { GateSeconds = 0.1 }, out var source);
+        Assert.All(gates, g => Assert.Equal(10_000_000.0, g.Gate.FrequencyHz, 3));
+        var warning = Assert.Single(source.Warnings);
+        Assert.Contains("count_bits = 16: the pulse counter wraps every 65536 counts, only 6.6 snapshot intervals", warning);
+    }
+
+    [Fact]
     public void Settings_take_clock_prescale_and_signal_from_the_capture()
     {
         using var reader = CaptureFile.Open(Contract("wrap16.edges.csv"));

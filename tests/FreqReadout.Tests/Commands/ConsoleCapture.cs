@@ -6,13 +6,18 @@ namespace FreqReadout.Tests.Commands;
 [CollectionDefinition(Name, DisableParallelization = true)]
 public sealed class ConsoleCollection
 {
-    public const string Name = "Console output";
+    public const string Name = "Console"; // shared with the other command tests that swap Console.Out (e.g. Simulation)
 }
 
 /// <summary>Runs the CLI in-process through <see cref="Program.BuildApp"/>, capturing stdout and stderr.</summary>
 internal static class ConsoleCapture
 {
-    public static (int Exit, string Out, string Err) Run(params string[] args)
+    public static (int Exit, string Out, string Err) Run(params string[] args) => Capture(() => Program.BuildApp().Run(args));
+
+    /// <summary>Runs <see cref="Program.Main"/> (which also turns usage errors into one line).</summary>
+    public static (int Exit, string Out, string Err) RunMain(params string[] args) => Capture(() => Program.Main(args));
+
+    private static (int Exit, string Out, string Err) Capture(Func<int> run)
     {
         var savedOut = Console.Out;
         var savedErr = Console.Error;
@@ -22,7 +27,7 @@ internal static class ConsoleCapture
         {
             Console.SetOut(stdout);
             Console.SetError(stderr);
-            int exit = Program.BuildApp().Run(args);
+            int exit = run();
             return (exit, stdout.ToString(), stderr.ToString());
         }
         finally

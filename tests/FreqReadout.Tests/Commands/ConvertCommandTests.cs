@@ -67,7 +67,7 @@ public sealed class ConvertCommandTests : IDisposable
     [Theory]
     [InlineData("--to", "csv", "--to must be text or binary, got 'csv'")]
     [InlineData("--from-s", "-1", "--from-s must be a number >= 0")]
-    [InlineData("--to-s", "0", "--to-s must be a number greater than --from-s (0 s), got 0")]
+    [InlineData("--to-s", "0", "--to-s must be a number greater than --from-s (0 s), got '0'")]
     public void Bad_options_are_named(string option, string value, string expected)
     {
         var (exit, _, stderr) = ConsoleCapture.Run("convert", Contract("minimal.edges.csv"), Path.Combine(_dir, "x.frb"), option, value);

@@ -50,6 +50,88 @@ public sealed class CountCommandTests
     }
 
     [Fact]
+    public void Snapshot_captures_report_the_snapshot_regression_estimator()
+    {
+        var (exit, stdout, stderr) = ConsoleCapture.Run("count", Contract("snapshots.edges.csv"), "--gate-seconds", "0.5", "--json");
+        Assert.Equal(0, exit);
+        Assert.Equal(string.Empty, stderr);
+        var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+        Assert.Equal(3, rows.Count);
+        Assert.All(rows, r => Assert.Equal("snapshot-regression", r.GetProperty("estimator").GetString()));
+
+        // Contract README: input exactly 130 kHz; within 3 predicted sigma (common practice, no source).
+        Assert.All(rows, r => Assert.InRange(r.GetProperty("frequency_hz").GetDouble(), 130_000 - 3 * r.GetProperty("error_hz").GetDouble(), 130_000 + 3 * r.GetProperty("error_hz").GetDouble()));
+    }
+
+    [Fact]
+    public void Json_states_name_glitch_dropout_and_no_signal_with_null_frequencies()
+    {
+        // 1 kHz edges on a 1 MHz clock with a double-triggered edge, a 20-period gap (dropout) and 2 s of silence (no signal).
+        var sb = new System.Text.StringBuilder("# freqreadout capture 1\n# clock_hz = 1000000\ntick\n");
+        long t = 0;
+        for (int i = 0; i < 300; i++)
+        {
+            sb.Append(t).Append('\n');
+            if (i == 60)
+            {
+                sb.Append(t + 100).Append('\n');
+            }
+
+            t += i == 120 ? 20_000 : i == 170 ? 2_000_000 : 1000;
+        }
+
+        string dir = Directory.CreateTempSubdirectory("freqreadout-states").FullName;
+        try
+        {
+            string path = Path.Combine(dir, "states.csv");
+            File.WriteAllText(path, sb.ToString());
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--gate-seconds", "0.05", "--json");
+            Assert.Equal(0, exit);
+            Assert.Equal(string.Empty, stderr);
+            var rows = stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => JsonDocument.Parse(l).RootElement).ToList();
+            var states = rows.Select(r => r.GetProperty("state").GetString()).ToList();
+            Assert.Contains("ok", states);
+            Assert.Contains("glitch", states);
+            Assert.Contains("dropout", states);
+            Assert.Equal(3, states.Count(s => s == "no_signal"));
+            foreach (var r in rows.Where(r => r.GetProperty("state").GetString() == "no_signal"))
+            {
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("frequency_hz").ValueKind);
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("shift_hz").ValueKind);
+                Assert.Equal(JsonValueKind.Null, r.GetProperty("error_hz").ValueKind);
+            }
+
+            foreach (var r in rows.Where(r => r.GetProperty("state").GetString() != "no_signal"))
+            {
+                Assert.Equal(1000.0, r.GetProperty("frequency_hz").GetDouble(), 6);
+            }
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    [Fact]
+    public void A_fast_wrapping_timer_is_warned_about_on_stderr()
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-wrap").FullName;
+        try
+        {
+            string path = Path.Combine(dir, "fast.csv");
+            File.WriteAllText(path, FreqReadout.Tests.Captures.CaptureGateSourceTests.EdgeCapture(8e6, 16, 900, 400));
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--json");
+            Assert.Equal(0, exit);
+            Assert.NotEmpty(stdout);
+            Assert.StartsWith($"warning: {path}: timer_bits = 16: the timer wraps every 65536 ticks", stderr);
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    [Fact]
     public void Jitter_ticks_raise_the_predicted_error()
     {
         double Error(string jitter)
@@ -153,6 +235,25 @@ public sealed class CountCommandTests
         var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), option, value);
         Assert.Equal(CommandOutput.BadOption, exit);
         Assert.Contains(expected, stderr);
+    }
+
+    [Theory]
+    [InlineData(new[] { "count" }, "error: Command 'count' is missing required argument 'capture'")]
+    [InlineData(new[] { "count", "x.csv", "--gate-second", "1" }, "error: Unknown option 'gate-second'")]
+    public void Usage_errors_are_one_line_without_a_stack_trace(string[] args, string expected)
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain(args);
+        Assert.Equal(2, exit);
+        Assert.StartsWith(expected, stderr);
+        Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+    }
+
+    [Fact]
+    public void A_value_that_is_not_a_number_is_named()
+    {
+        var (exit, _, stderr) = ConsoleCapture.RunMain("count", Contract("minimal.edges.csv"), "--gate-seconds", "0,5");
+        Assert.Equal(CommandOutput.BadOption, exit);
+        Assert.Equal("error: --gate-seconds must be a number > 0 (seconds), got '0,5'\n", stderr);
     }
 
     [Fact]

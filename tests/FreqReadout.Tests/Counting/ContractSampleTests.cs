@@ -4,8 +4,8 @@ using FreqReadout.Counting;
 namespace FreqReadout.Tests.Counting;
 
 /// <summary>
-/// The counting core on the capture-format contract samples (verbatim copies in Data/Counting, see
-/// its README; invented data whose truth the contract README states). Parsed here with a minimal
+/// The counting core on the capture-format contract samples (verbatim copies in Data/contracts, see
+/// the contract README; invented data whose truth that README states). Parsed here with a minimal
 /// reader: the real capture reader is host code with its own tests.
 /// </summary>
 public class ContractSampleTests
@@ -15,7 +15,7 @@ public class ContractSampleTests
         var meta = new Dictionary<string, string>();
         var rows = new List<ulong[]>();
         bool header = false;
-        foreach (string raw in File.ReadLines(Path.Combine(AppContext.BaseDirectory, "Data", "Counting", name)))
+        foreach (string raw in File.ReadLines(Path.Combine(AppContext.BaseDirectory, "Data", "contracts", name)))
         {
             string line = raw.Trim();
             if (line.Length == 0) continue;
@@ -31,6 +31,34 @@ public class ContractSampleTests
         }
 
         return (meta, rows);
+    }
+
+    /// <summary>minimal.edges.csv: 50 kHz exactly, 10 MHz clock, 200 ticks per edge, 101 edges (contract README): both estimators give 50 000 Hz.</summary>
+    [Fact]
+    public void Minimal_sample_gives_50_kHz_exactly()
+    {
+        var (meta, rows) = Load("minimal.edges.csv");
+        var u = new TimerUnwrapper(meta.TryGetValue("timer_bits", out string? bits) ? int.Parse(bits) : 64);
+        var c = new EdgeCounter(new CounterSettings
+        {
+            ClockHz = double.Parse(meta["clock_hz"], CultureInfo.InvariantCulture),
+            Mode = GateMode.Edges,
+            GateEdges = 100,
+        });
+        GateResult r = default;
+        bool got = false;
+        foreach (ulong[] row in rows)
+        {
+            Assert.True(u.TryUnwrap(row[0], out long tick));
+            got = c.AddEdge(tick, out r);
+        }
+
+        Assert.Equal(101, rows.Count);
+        Assert.True(got);
+        Assert.Equal(101, r.Edges);
+        Assert.Equal(50_000.0, r.ReciprocalHz, 1e-9);
+        Assert.Equal(50_000.0, r.RegressionHz, 1e-9);
+        Assert.Equal(0.002, r.SpanSeconds, 12); // 100 intervals x 200 ticks at 10 MHz
     }
 
     /// <summary>wrap16.edges.csv: 16-bit timer at 8 MHz, prescale 4, input 30 kHz: 30 000 Hz within quantisation (contract README), i.e. the one-tick bound of Boyes 2003, Fig. 20.75.</summary>

@@ -433,6 +433,25 @@ public class EdgeCounterTests
     }
 
     [Fact]
+    public void Double_trigger_on_the_very_first_interval_never_produces_a_number()
+    {
+        var c = new EdgeCounter(Settings(80e6, mode: GateMode.Edges, gateEdges: 100));
+        var results = new List<GateResult>();
+        Assert.False(c.AddEdge(0, out _));
+        Assert.False(c.AddEdge(20, out _));          // double trigger: becomes the bootstrap interval
+        for (long k = 1; k <= 1000; k++)
+        {
+            if (c.AddEdge(400 * k, out GateResult r)) results.Add(r);
+        }
+
+        Assert.NotEmpty(results);
+        Assert.All(results, r => Assert.Equal(200_000.0, r.FrequencyHz, 1e-6));
+        Assert.All(results, r => Assert.Equal(GateState.Ok, r.State));
+        Assert.Equal(1, c.DropoutsTotal);
+        Assert.Equal(400.0, c.RunningPeriodTicks, 1e-9);
+    }
+
+    [Fact]
     public void Reset_forgets_everything()
     {
         var c = new EdgeCounter(Settings(1e6, mode: GateMode.Edges, gateEdges: 10));

@@ -1,0 +1,552 @@
+using FreqReadout.Counting;
+using FreqReadout.Detection;
+using FreqReadout.Numerics;
+using FreqReadout.Tracking;
+
+namespace FreqReadout.Readout
+{
+    /// <summary>
+    /// The readout that the device and the host both run: gate results in, one <see cref="Reading"/>
+    /// per gate out, plus queued <see cref="DetectionEvent"/>s and <see cref="RebaselineNotice"/>s.
+    /// <para>
+    /// Per gate: (1) temperature compensation, x = f - tempco 1e-6 f_nom (T - T_0) s (s = +1 search or
+    /// beat above, -1 beat below; T_0 the first temperature sample; off when tempco = 0);
+    /// (2) settling: after start, a re-baseline request, an automatic re-baseline or the return of the
+    /// signal, wait settling_s, then capture baseline_s of gates (<see cref="BaselineCapture"/>:
+    /// resistant line, MAD noise, Hampel outlier rejection); readings say Settling meanwhile;
+    /// (3) tracking: residual r = x - P(t) from the <see cref="DriftTracker"/> (Holt level and slope),
+    /// search shift = s r, z = |shift| / sigma with sigma = max(running MAD noise, noise_floor_hz, the
+    /// gate's predicted error); (4) detection (<see cref="TargetDetector"/>): threshold, hysteresis,
+    /// minimum duration, sign rule; (5) target-free readings reach the tracker tracker_delay_gates late
+    /// through a delay line, which is emptied when a target opens and refilled only after as many
+    /// gates past its end, so neither edge of a target is absorbed; fed residuals are clipped to
+    /// +-guard_sigma sigma; the running noise is 1.482602218505602 x the median |r| of the last
+    /// noise_window_gates fed residuals; (6) an event lasting persistent_shift_s outside hold mode is
+    /// dropped and re-baselined automatically (reason Auto, with the shift it absorbed).
+    /// </para>
+    /// <para>
+    /// The first baseline takes the capture's own slope; later ones keep the tracked slope (filtered
+    /// over tracker_slope_s, better than a few seconds of capture). Nothing here allocates after the
+    /// constructor; Process, the setters and the TryTake methods are safe for a device loop.
+    /// </para>
+    /// </summary>
+    public sealed class ReadoutPipeline
+    {
+        private const int QueueCapacity = 16;
+        private const int MinCaptureGates = 5;
+        private const double TimeEpsilonSeconds = 1e-6;
+
+        private const int PhaseSettling = 0;
+        private const int PhaseCapturing = 1;
+        private const int PhaseTracking = 2;
+
+        private readonly ReadoutSettings settings;
+        private readonly double sideSign;
+        private readonly DriftTracker tracker;
+        private readonly BaselineCapture capture;
+        private readonly MedianWindow noiseWindow;
+        private readonly TargetDetector detector;
+        private readonly DetectionEventQueue events;
+        private readonly RebaselineNoticeQueue notices;
+        private readonly double[] delayTimes;
+        private readonly double[] delayValues;
+        private readonly double[] delaySpans;
+        private readonly bool[] delayValid;
+        private readonly int delayGates;
+
+        private int delayHead;
+        private int delayCount;
+        private int blankRemaining;
+        private int phase;
+        private bool started;
+        private bool noSignal;
+        private double phaseStartSeconds;
+        private double captureStartSeconds;
+        private double captureMaxErrorHz;
+        private RebaselineReason pendingReason;
+        private double requestedSeconds;
+        private bool hasOld;
+        private double oldLevelHz;
+        private double oldSlopeHzPerSecond;
+        private double oldTimeSeconds;
+        private bool everBaselined;
+        private double runningNoiseHz;
+        private bool manualRequested;
+        private bool hold;
+        private bool hasTemperature;
+        private double temperatureC;
+        private bool hasReferenceTemperature;
+        private double referenceTemperatureC;
+        private double lastTimeSeconds;
+        private ReadoutState state;
+        private bool hasFirstBaseline;
+        private double firstBaselineHz;
+
+        /// <summary>Creates a pipeline; the settings are copied.</summary>
+        /// <exception cref="System.ArgumentException">The settings are invalid (message from <see cref="ReadoutSettings.TryValidate"/>).</exception>
+        public ReadoutPipeline(ReadoutSettings settings)
+        {
+            if (settings == null)
+            {
+                throw new System.ArgumentNullException("settings");
+            }
+
+            string error;
+            if (!settings.TryValidate(out error))
+            {
+                throw new System.ArgumentException(error);
+            }
+
+            this.settings = settings.Clone();
+            sideSign = SignRule.SearchSignPerCounted(settings.Signal, settings.BeatSide);
+            tracker = new DriftTracker(settings.TrackerLevelSeconds, settings.TrackerSlopeSeconds);
+            capture = new BaselineCapture(settings.BaselineMaxGates);
+            noiseWindow = new MedianWindow(settings.NoiseWindowGates);
+            detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.ReleaseSeconds, settings.UnclearBandSigma, settings.Polarity));
+            events = new DetectionEventQueue(QueueCapacity);
+            notices = new RebaselineNoticeQueue(QueueCapacity);
+            delayGates = settings.TrackerDelayGates;
+            delayTimes = new double[delayGates + 1];
+            delayValues = new double[delayGates + 1];
+            delaySpans = new double[delayGates + 1];
+            delayValid = new bool[delayGates + 1];
+            state = ReadoutState.Settling;
+        }
+
+        /// <summary>A copy of the settings in use.</summary>
+        public ReadoutSettings Settings
+        {
+            get { return settings.Clone(); }
+        }
+
+        /// <summary>State at the last reading.</summary>
+        public ReadoutState State
+        {
+            get { return state; }
+        }
+
+        /// <summary>True while a baseline is tracked.</summary>
+        public bool HasBaseline
+        {
+            get { return phase == PhaseTracking && !noSignal; }
+        }
+
+        /// <summary>Tracked baseline of the counted signal at the last reading, Hz (0 without a baseline).</summary>
+        public double BaselineHz
+        {
+            get { return HasBaseline ? tracker.Predict(lastTimeSeconds) : 0.0; }
+        }
+
+        /// <summary>Running robust noise (before floors), Hz.</summary>
+        public double NoiseHz
+        {
+            get { return runningNoiseHz; }
+        }
+
+        /// <summary>True once the first baseline was captured.</summary>
+        public bool HasFirstBaseline
+        {
+            get { return hasFirstBaseline; }
+        }
+
+        /// <summary>The first captured baseline of the counted signal, Hz.</summary>
+        public double FirstBaselineHz
+        {
+            get { return firstBaselineHz; }
+        }
+
+        /// <summary>Hold mode is on.</summary>
+        public bool HoldActive
+        {
+            get { return hold; }
+        }
+
+        /// <summary>Events dropped because nobody took them from the queue (16 deep).</summary>
+        public int DroppedEvents
+        {
+            get { return events.Dropped; }
+        }
+
+        /// <summary>Re-baseline notices dropped because nobody took them from the queue (16 deep).</summary>
+        public int DroppedNotices
+        {
+            get { return notices.Dropped; }
+        }
+
+        /// <summary>Asks for a manual re-baseline; it starts at the next gate (an open event is closed and reported).</summary>
+        public void RequestRebaseline()
+        {
+            manualRequested = true;
+        }
+
+        /// <summary>
+        /// Hold mode on or off. While on, automatic re-baselining is suspended (a still target stays an
+        /// event); the tracker still follows target-free readings. Turning it off restarts the
+        /// persistence clock of an open event.
+        /// </summary>
+        public void SetHold(bool on)
+        {
+            if (hold && !on)
+            {
+                detector.RestartPersistence(lastTimeSeconds);
+            }
+
+            hold = on;
+        }
+
+        /// <summary>A new temperature sample, deg C (used from the next gate; the first sample is the reference T_0). Non-finite values are ignored.</summary>
+        public void SetTemperature(double celsius)
+        {
+            if (!ScalarMath.IsFinite(celsius))
+            {
+                return;
+            }
+
+            temperatureC = celsius;
+            hasTemperature = true;
+            if (!hasReferenceTemperature)
+            {
+                referenceTemperatureC = celsius;
+                hasReferenceTemperature = true;
+            }
+        }
+
+        /// <summary>Takes the oldest finished event.</summary>
+        public bool TryTakeEvent(out DetectionEvent detectionEvent)
+        {
+            return events.TryDequeue(out detectionEvent);
+        }
+
+        /// <summary>Takes the oldest re-baseline notice (the first baseline has reason Initial).</summary>
+        public bool TryTakeRebaseline(out RebaselineNotice notice)
+        {
+            return notices.TryDequeue(out notice);
+        }
+
+        /// <summary>End of a replay: closes an open event at its last reading above the release level (End = EndOfRun). An unconfirmed candidate is dropped.</summary>
+        public bool TryCloseOpenEvent(out DetectionEvent detectionEvent)
+        {
+            return detector.ForceClose(EventEnd.EndOfRun, out detectionEvent);
+        }
+
+        /// <summary>
+        /// Consumes one gate result and gives its reading.
+        /// </summary>
+        /// <returns>True when the reading carries a shift (a baseline is tracked); false while settling or without signal.</returns>
+        public bool Process(GateResult gate, out Reading reading)
+        {
+            double t = gate.EndSeconds;
+            double span = gate.SpanSeconds;
+            if (!gate.HasFrequency || gate.State == GateState.NoSignal)
+            {
+                EnterNoSignal();
+                lastTimeSeconds = t;
+                state = ReadoutState.NoSignal;
+                reading = new Reading(ReadoutState.NoSignal, t, span, false, 0, false, 0, 0, false, 0, 0, 0, 0, 0, false, hold, false, TargetClass.None);
+                return false;
+            }
+
+            if (!started)
+            {
+                started = true;
+                BeginRebaseline(RebaselineReason.Initial, gate.StartSeconds);
+            }
+            else if (noSignal)
+            {
+                noSignal = false;
+                BeginRebaseline(RebaselineReason.SignalRestored, gate.StartSeconds);
+            }
+
+            if (manualRequested)
+            {
+                manualRequested = false;
+                DetectionEvent closedByRequest;
+                if (phase == PhaseTracking && detector.ForceClose(EventEnd.Rebaseline, out closedByRequest))
+                {
+                    events.Enqueue(closedByRequest);
+                }
+
+                BeginRebaseline(RebaselineReason.Manual, gate.StartSeconds);
+            }
+
+            lastTimeSeconds = t;
+            double frequency = gate.FrequencyHz;
+            double correction = TemperatureCorrectionHz(frequency);
+            double x = frequency - correction;
+            bool belowFloor = settings.Signal == SignalKind.Beat && frequency < settings.BeatFloorHz;
+
+            if (phase == PhaseSettling && gate.StartSeconds - phaseStartSeconds + TimeEpsilonSeconds >= settings.SettlingSeconds)
+            {
+                phase = PhaseCapturing;
+                capture.Clear();
+                captureStartSeconds = gate.StartSeconds;
+                captureMaxErrorHz = 0;
+            }
+
+            if (phase == PhaseCapturing)
+            {
+                capture.Add(t, x);
+                captureMaxErrorHz = ScalarMath.Max(captureMaxErrorHz, gate.ErrorHz);
+                if ((t - captureStartSeconds + TimeEpsilonSeconds >= settings.BaselineSeconds && capture.Count >= MinCaptureGates) || capture.IsFull)
+                {
+                    CompleteCapture();
+                }
+
+                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                return false;
+            }
+
+            if (phase == PhaseSettling)
+            {
+                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                return false;
+            }
+
+            double predicted = tracker.Predict(t);
+            double shift = sideSign * (x - predicted);
+            double sigma = Sigma(gate.ErrorHz);
+            double ppmReference = PpmReferenceHz(predicted);
+            DetectionEvent closed;
+            bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, out closed);
+            if (ended)
+            {
+                events.Enqueue(closed);
+                blankRemaining = delayGates;
+            }
+
+            if (detector.JustStarted)
+            {
+                InvalidateDelayLine();
+            }
+
+            if (detector.EventOpen && !hold && t - detector.PersistSinceSeconds + TimeEpsilonSeconds >= settings.PersistentShiftSeconds)
+            {
+                detector.Discard();
+                BeginRebaseline(RebaselineReason.Auto, t);
+                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                return false;
+            }
+
+            bool present = detector.TargetPresent;
+            bool valid = !present && !ended && blankRemaining == 0;
+            if (!present && !ended && blankRemaining > 0)
+            {
+                blankRemaining--;
+            }
+
+            PushDelayLine(t, span, x, valid);
+
+            TargetClass live = TargetClass.None;
+            if (present)
+            {
+                double peak = detector.PeakShiftHz;
+                live = SignRule.Classify(peak, ScalarMath.Abs(peak) / sigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, belowFloor);
+            }
+
+            state = hold ? ReadoutState.Hold : (present ? ReadoutState.Target : ReadoutState.Tracking);
+            bool hasPpm = ppmReference > 0;
+            reading = new Reading(
+                state,
+                t,
+                span,
+                true,
+                frequency,
+                true,
+                predicted,
+                shift,
+                hasPpm,
+                hasPpm ? shift / ppmReference * 1e6 : 0.0,
+                ScalarMath.Abs(shift) / sigma,
+                sigma,
+                tracker.SlopeHzPerSecond,
+                correction,
+                present,
+                hold,
+                belowFloor,
+                live);
+            return true;
+        }
+
+        private Reading SettlingReading(double t, double span, double frequency, double correction, bool belowFloor)
+        {
+            state = ReadoutState.Settling;
+            return new Reading(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None);
+        }
+
+        private double Sigma(double gateErrorHz)
+        {
+            return ScalarMath.Max(ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), gateErrorHz);
+        }
+
+        private double PpmReferenceHz(double baselineCountedHz)
+        {
+            if (settings.Signal == SignalKind.Search)
+            {
+                return baselineCountedHz > 0 ? baselineCountedHz : 0.0;
+            }
+
+            return settings.SearchHz;
+        }
+
+        private double TemperatureCorrectionHz(double countedHz)
+        {
+            if (settings.TempcoPpmPerK == 0 || !hasTemperature)
+            {
+                return 0.0;
+            }
+
+            double nominal = settings.SearchHz > 0 ? settings.SearchHz : countedHz;
+            return sideSign * settings.TempcoPpmPerK * 1e-6 * nominal * (temperatureC - referenceTemperatureC);
+        }
+
+        private void EnterNoSignal()
+        {
+            if (noSignal)
+            {
+                return;
+            }
+
+            if (phase == PhaseTracking)
+            {
+                DetectionEvent closed;
+                if (detector.ForceClose(EventEnd.NoSignal, out closed))
+                {
+                    events.Enqueue(closed);
+                }
+
+                SnapshotTracker();
+            }
+
+            detector.Discard();
+            phase = PhaseSettling;
+            capture.Clear();
+            noSignal = started;
+        }
+
+        private void SnapshotTracker()
+        {
+            hasOld = true;
+            oldLevelHz = tracker.LevelHz;
+            oldSlopeHzPerSecond = tracker.SlopeHzPerSecond;
+            oldTimeSeconds = tracker.TimeSeconds;
+        }
+
+        private void BeginRebaseline(RebaselineReason reason, double timeSeconds)
+        {
+            if (phase == PhaseTracking)
+            {
+                SnapshotTracker();
+            }
+
+            pendingReason = everBaselined ? reason : RebaselineReason.Initial;
+            requestedSeconds = timeSeconds;
+            phase = PhaseSettling;
+            phaseStartSeconds = timeSeconds;
+            capture.Clear();
+            detector.Discard();
+            ClearDelayLine();
+            blankRemaining = 0;
+        }
+
+        private void CompleteCapture()
+        {
+            BaselineEstimate estimate;
+            capture.TryEstimate(settings.OutlierSigma, out estimate);
+            noiseWindow.Clear();
+            capture.CopyAbsoluteResiduals(noiseWindow);
+            runningNoiseHz = estimate.NoiseHz;
+            double sigma = ScalarMath.Max(ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), captureMaxErrorHz);
+            double ppmReference = PpmReferenceHz(estimate.LevelHz);
+            bool hasPpm = ppmReference > 0;
+            double shift = 0;
+            if (hasOld)
+            {
+                double oldPrediction = oldLevelHz + (oldSlopeHzPerSecond * (estimate.TimeSeconds - oldTimeSeconds));
+                shift = sideSign * (estimate.LevelHz - oldPrediction);
+            }
+
+            notices.Enqueue(new RebaselineNotice(
+                pendingReason,
+                requestedSeconds,
+                estimate.TimeSeconds,
+                estimate.LevelHz,
+                sigma,
+                hasOld,
+                shift,
+                hasPpm && hasOld,
+                hasPpm && hasOld ? shift / ppmReference * 1e6 : 0.0,
+                estimate.Gates,
+                estimate.Outliers));
+
+            double slope = hasOld ? oldSlopeHzPerSecond : estimate.SlopeHzPerSecond;
+            tracker.Reset(estimate.LevelHz, slope, estimate.TimeSeconds);
+            detector.Discard();
+            ClearDelayLine();
+            blankRemaining = 0;
+            phase = PhaseTracking;
+            everBaselined = true;
+            if (!hasFirstBaseline)
+            {
+                hasFirstBaseline = true;
+                firstBaselineHz = estimate.LevelHz;
+            }
+        }
+
+        private void ClearDelayLine()
+        {
+            delayHead = 0;
+            delayCount = 0;
+        }
+
+        private void InvalidateDelayLine()
+        {
+            for (int i = 0; i < delayValid.Length; i++)
+            {
+                delayValid[i] = false;
+            }
+        }
+
+        private void PushDelayLine(double t, double span, double x, bool valid)
+        {
+            if (delayGates == 0)
+            {
+                if (valid)
+                {
+                    Feed(t, span, x);
+                }
+
+                return;
+            }
+
+            int slot = (delayHead + delayCount) % delayTimes.Length;
+            delayTimes[slot] = t;
+            delayValues[slot] = x;
+            delaySpans[slot] = span;
+            delayValid[slot] = valid;
+            delayCount++;
+            if (delayCount > delayGates)
+            {
+                double ot = delayTimes[delayHead];
+                double ox = delayValues[delayHead];
+                double os = delaySpans[delayHead];
+                bool ov = delayValid[delayHead];
+                delayHead = (delayHead + 1) % delayTimes.Length;
+                delayCount--;
+                if (ov)
+                {
+                    Feed(ot, os, ox);
+                }
+            }
+        }
+
+        private void Feed(double t, double span, double x)
+        {
+            double predicted = tracker.Predict(t);
+            double r = x - predicted;
+            double limit = settings.GuardSigma * Sigma(0);
+            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit), span);
+            noiseWindow.Add(ScalarMath.Abs(r));
+            runningNoiseHz = RobustStatistics.MadToSigma * noiseWindow.Median();
+        }
+    }
+}

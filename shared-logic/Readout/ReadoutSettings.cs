@@ -1,0 +1,226 @@
+using FreqReadout.Counting;
+using FreqReadout.Detection;
+
+namespace FreqReadout.Readout
+{
+    /// <summary>
+    /// Settings of <see cref="ReadoutPipeline"/>: plain settable properties with documented defaults.
+    /// Call <see cref="TryValidate"/> before use; its error names the setting (snake_case, as the host
+    /// CLI and device settings spell it) and the allowed range. Times are seconds, levels are in noise sigmas.
+    /// </summary>
+    public sealed class ReadoutSettings
+    {
+        /// <summary>signal: search (default) or beat. Must match the counter.</summary>
+        public SignalKind Signal { get; set; } = SignalKind.Search;
+
+        /// <summary>beat_side: above or below (required in beat mode; ignored for search).</summary>
+        public BeatSide BeatSide { get; set; } = BeatSide.None;
+
+        /// <summary>search_hz: nominal search-oscillator frequency for ppm in beat mode and for the tempco; 0 = unknown (default). In search mode the tracked baseline is the ppm reference.</summary>
+        public double SearchHz { get; set; }
+
+        /// <summary>settling_s: wait after start or a re-baseline request before capturing, [0, 3600]. Default 1 s.</summary>
+        public double SettlingSeconds { get; set; } = 1.0;
+
+        /// <summary>baseline_s: length of the baseline capture, (0, 600]. Default 5 s.</summary>
+        public double BaselineSeconds { get; set; } = 5.0;
+
+        /// <summary>baseline_max_gates: capture buffer size (a capture also ends when full), [8, 8192]. Default 512.</summary>
+        public int BaselineMaxGates { get; set; } = 512;
+
+        /// <summary>outlier_sigma: capture points beyond this many robust sigmas are rejected, [2, 20]. Default 3 (Hampel's rule).</summary>
+        public double OutlierSigma { get; set; } = 3.0;
+
+        /// <summary>noise_window_gates: running robust noise over the last target-free residuals, [16, 4096]. Default 512 (relative standard error of the MAD about 1.17 / sqrt(512) = 5 %).</summary>
+        public int NoiseWindowGates { get; set; } = 512;
+
+        /// <summary>noise_floor_hz: least noise sigma used (the gate's predicted error is a floor too), (0, 1e6]. Default 0.001 Hz.</summary>
+        public double NoiseFloorHz { get; set; } = 0.001;
+
+        /// <summary>tracker_level_s: Holt level time constant tau_L, (0, 3600]. Default 2 s.</summary>
+        public double TrackerLevelSeconds { get; set; } = 2.0;
+
+        /// <summary>tracker_slope_s: Holt slope time constant tau_b, (0, 36000]. Default 10 s.</summary>
+        public double TrackerSlopeSeconds { get; set; } = 10.0;
+
+        /// <summary>tracker_delay_gates: readings reach the tracker this many gates late, so the rising edge of a target found later is never absorbed (and as many after an event are skipped), [0, 1000]. Default 5.</summary>
+        public int TrackerDelayGates { get; set; } = 5;
+
+        /// <summary>guard_sigma: a residual fed to the tracker is clipped to +-guard sigmas, (0, 100]. Default 3.</summary>
+        public double GuardSigma { get; set; } = 3.0;
+
+        /// <summary>threshold_sigma: detection threshold on |shift| / sigma, [1, 1000]. Default 5 (about 5.7e-7 false crossings per reading for white Gaussian noise).</summary>
+        public double ThresholdSigma { get; set; } = 5.0;
+
+        /// <summary>hysteresis_sigma: an event ends below threshold - hysteresis, [0, threshold_sigma). Default 2.</summary>
+        public double HysteresisSigma { get; set; } = 2.0;
+
+        /// <summary>min_duration_s: gate time at or above the release level needed to confirm an event, [0, 60]. Default 0.1 s.</summary>
+        public double MinDurationSeconds { get; set; } = 0.1;
+
+        /// <summary>release_s: gate time below the release level that ends an event, [0, 60]. Default 0.2 s.</summary>
+        public double ReleaseSeconds { get; set; } = 0.2;
+
+        /// <summary>unclear_band_sigma: peaks below threshold + band are classed unclear, [0, 1000]. Default 1.</summary>
+        public double UnclearBandSigma { get; set; } = 1.0;
+
+        /// <summary>polarity: normal (positive search shift = non-ferrous, default) or inverted.</summary>
+        public Polarity Polarity { get; set; } = Polarity.Normal;
+
+        /// <summary>persistent_shift_s: an event lasting this long outside hold mode becomes the new baseline (auto re-baseline), [1, 86400]. Default 30 s.</summary>
+        public double PersistentShiftSeconds { get; set; } = 30.0;
+
+        /// <summary>beat_floor_hz: in beat mode a beat note below this is flagged and its sign unclear, [0, 1e9]. Default 50 Hz.</summary>
+        public double BeatFloorHz { get; set; } = 50.0;
+
+        /// <summary>tempco_ppm_per_k: search-oscillator tempco removed before tracking; 0 = off (default), [-1000, 1000]. Needs search_hz in beat mode.</summary>
+        public double TempcoPpmPerK { get; set; }
+
+        /// <summary>
+        /// Checks every setting against its allowed range.
+        /// </summary>
+        /// <param name="error">The first bad setting, named with its allowed range and the value given; null when all are valid.</param>
+        /// <returns>True when every setting is valid.</returns>
+        public bool TryValidate(out string error)
+        {
+            error = null;
+            if (Signal != SignalKind.Search && Signal != SignalKind.Beat)
+            {
+                error = "signal must be search or beat";
+                return false;
+            }
+
+            if (Signal == SignalKind.Beat && BeatSide != BeatSide.Above && BeatSide != BeatSide.Below)
+            {
+                error = "beat_side must be above or below when signal = beat";
+                return false;
+            }
+
+            if (!InRange(SearchHz, 0, 1e12))
+            {
+                return Bad(out error, "search_hz", "[0, 1e12] (0 = unknown)", SearchHz);
+            }
+
+            if (!InRange(SettlingSeconds, 0, 3600))
+            {
+                return Bad(out error, "settling_s", "[0, 3600]", SettlingSeconds);
+            }
+
+            if (!InRange(BaselineSeconds, 0, 600) || BaselineSeconds == 0)
+            {
+                return Bad(out error, "baseline_s", "(0, 600]", BaselineSeconds);
+            }
+
+            if (BaselineMaxGates < 8 || BaselineMaxGates > 8192)
+            {
+                return Bad(out error, "baseline_max_gates", "integer [8, 8192]", BaselineMaxGates);
+            }
+
+            if (!InRange(OutlierSigma, 2, 20))
+            {
+                return Bad(out error, "outlier_sigma", "[2, 20]", OutlierSigma);
+            }
+
+            if (NoiseWindowGates < 16 || NoiseWindowGates > 4096)
+            {
+                return Bad(out error, "noise_window_gates", "integer [16, 4096]", NoiseWindowGates);
+            }
+
+            if (!InRange(NoiseFloorHz, 0, 1e6) || NoiseFloorHz == 0)
+            {
+                return Bad(out error, "noise_floor_hz", "(0, 1e6]", NoiseFloorHz);
+            }
+
+            if (!InRange(TrackerLevelSeconds, 0, 3600) || TrackerLevelSeconds == 0)
+            {
+                return Bad(out error, "tracker_level_s", "(0, 3600]", TrackerLevelSeconds);
+            }
+
+            if (!InRange(TrackerSlopeSeconds, 0, 36000) || TrackerSlopeSeconds == 0)
+            {
+                return Bad(out error, "tracker_slope_s", "(0, 36000]", TrackerSlopeSeconds);
+            }
+
+            if (TrackerDelayGates < 0 || TrackerDelayGates > 1000)
+            {
+                return Bad(out error, "tracker_delay_gates", "integer [0, 1000]", TrackerDelayGates);
+            }
+
+            if (!InRange(GuardSigma, 0, 100) || GuardSigma == 0)
+            {
+                return Bad(out error, "guard_sigma", "(0, 100]", GuardSigma);
+            }
+
+            if (!InRange(ThresholdSigma, 1, 1000))
+            {
+                return Bad(out error, "threshold_sigma", "[1, 1000]", ThresholdSigma);
+            }
+
+            if (!InRange(HysteresisSigma, 0, 1000) || !(HysteresisSigma < ThresholdSigma))
+            {
+                return Bad(out error, "hysteresis_sigma", "[0, threshold_sigma) (threshold_sigma = " + ThresholdSigma.ToString() + ")", HysteresisSigma);
+            }
+
+            if (!InRange(MinDurationSeconds, 0, 60))
+            {
+                return Bad(out error, "min_duration_s", "[0, 60]", MinDurationSeconds);
+            }
+
+            if (!InRange(ReleaseSeconds, 0, 60))
+            {
+                return Bad(out error, "release_s", "[0, 60]", ReleaseSeconds);
+            }
+
+            if (!InRange(UnclearBandSigma, 0, 1000))
+            {
+                return Bad(out error, "unclear_band_sigma", "[0, 1000]", UnclearBandSigma);
+            }
+
+            if (Polarity != Polarity.Normal && Polarity != Polarity.Inverted)
+            {
+                error = "polarity must be normal or inverted";
+                return false;
+            }
+
+            if (!InRange(PersistentShiftSeconds, 1, 86400))
+            {
+                return Bad(out error, "persistent_shift_s", "[1, 86400]", PersistentShiftSeconds);
+            }
+
+            if (!InRange(BeatFloorHz, 0, 1e9))
+            {
+                return Bad(out error, "beat_floor_hz", "[0, 1e9]", BeatFloorHz);
+            }
+
+            if (!InRange(TempcoPpmPerK, -1000, 1000))
+            {
+                return Bad(out error, "tempco_ppm_per_k", "[-1000, 1000] (0 = off)", TempcoPpmPerK);
+            }
+
+            if (TempcoPpmPerK != 0 && Signal == SignalKind.Beat && SearchHz == 0)
+            {
+                error = "tempco_ppm_per_k needs search_hz > 0 when signal = beat (the tempco is relative to the search frequency)";
+                return false;
+            }
+
+            return true;
+        }
+
+        /// <summary>A copy with the same values.</summary>
+        public ReadoutSettings Clone()
+        {
+            return (ReadoutSettings)MemberwiseClone();
+        }
+
+        private static bool InRange(double value, double lo, double hi)
+        {
+            return value >= lo && value <= hi;
+        }
+
+        private static bool Bad(out string error, string name, string range, double value)
+        {
+            error = name + " must be in " + range + ", got " + value.ToString();
+            return false;
+        }
+    }
+}

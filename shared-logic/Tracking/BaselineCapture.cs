@@ -1,0 +1,198 @@
+using FreqReadout.Numerics;
+
+namespace FreqReadout.Tracking
+{
+    /// <summary>
+    /// Collects the gates of a baseline capture into fixed arrays (allocated once) and estimates level,
+    /// slope and robust noise with outlier rejection.
+    /// <para>
+    /// Method: (1) resistant line (Tukey's three-group line): b = (median x_R - median x_L) /
+    /// (median t_R - median t_L) over the first and last thirds of the points, a = median(x_i - b t_i)
+    /// (fewer than 6 points: b = 0); (2) residuals r_i = x_i - a - b t_i, robust sigma
+    /// s = 1.482602218505602 * median |r_i| (MAD scaled to sigma; Hampel 1974, Rousseeuw and Croux 1993);
+    /// (3) points with |r_i| &gt; k s (k = OutlierSigma, Hampel's 3-sigma rule by default) are rejected and
+    /// steps 1-2 are repeated once on the rest. The level is reported at the last point:
+    /// L = a + b t_last. A drift during the capture therefore neither biases the level nor inflates the noise.
+    /// </para>
+    /// </summary>
+    public sealed class BaselineCapture
+    {
+        private readonly double[] times;
+        private readonly double[] values;
+        private readonly double[] keptTimes;
+        private readonly double[] keptValues;
+        private readonly double[] residuals;
+        private readonly double[] scratch;
+        private int count;
+        private int keptCount;
+        private double originSeconds;
+        private double fitA;
+        private double fitB;
+
+        /// <summary>Creates a capture buffer.</summary>
+        /// <param name="capacity">Most gates one capture holds (&gt;= 1).</param>
+        public BaselineCapture(int capacity)
+        {
+            if (capacity < 1)
+            {
+                throw new System.ArgumentException("capacity must be >= 1");
+            }
+
+            times = new double[capacity];
+            values = new double[capacity];
+            keptTimes = new double[capacity];
+            keptValues = new double[capacity];
+            residuals = new double[capacity];
+            scratch = new double[capacity];
+        }
+
+        /// <summary>Gates held now.</summary>
+        public int Count
+        {
+            get { return count; }
+        }
+
+        /// <summary>Most gates one capture holds.</summary>
+        public int Capacity
+        {
+            get { return times.Length; }
+        }
+
+        /// <summary>True when no more gates fit.</summary>
+        public bool IsFull
+        {
+            get { return count == times.Length; }
+        }
+
+        /// <summary>Starts a new capture.</summary>
+        public void Clear()
+        {
+            count = 0;
+            keptCount = 0;
+        }
+
+        /// <summary>Adds one gate (time s, frequency Hz). False when full or the value is not finite.</summary>
+        public bool Add(double timeSeconds, double valueHz)
+        {
+            if (count == times.Length || !ScalarMath.IsFinite(valueHz) || !ScalarMath.IsFinite(timeSeconds))
+            {
+                return false;
+            }
+
+            if (count == 0)
+            {
+                originSeconds = timeSeconds;
+            }
+
+            times[count] = timeSeconds - originSeconds;
+            values[count] = valueHz;
+            count++;
+            return true;
+        }
+
+        /// <summary>
+        /// Estimates the baseline from the gates held (method in the class summary).
+        /// </summary>
+        /// <param name="outlierSigma">Rejection limit k in robust sigmas (&gt; 0).</param>
+        /// <param name="estimate">The estimate; default when false is returned.</param>
+        /// <returns>False when no gate is held.</returns>
+        public bool TryEstimate(double outlierSigma, out BaselineEstimate estimate)
+        {
+            estimate = new BaselineEstimate();
+            if (count == 0)
+            {
+                return false;
+            }
+
+            for (int i = 0; i < count; i++)
+            {
+                keptTimes[i] = times[i];
+                keptValues[i] = values[i];
+            }
+
+            keptCount = count;
+            double sigma = Fit();
+            int outliers = 0;
+            if (sigma > 0)
+            {
+                double limit = outlierSigma * sigma;
+                int n = 0;
+                for (int i = 0; i < count; i++)
+                {
+                    double r = values[i] - fitA - (fitB * times[i]);
+                    if (ScalarMath.Abs(r) <= limit)
+                    {
+                        keptTimes[n] = times[i];
+                        keptValues[n] = values[i];
+                        n++;
+                    }
+                }
+
+                outliers = count - n;
+                if (outliers > 0 && n > 0)
+                {
+                    keptCount = n;
+                    sigma = Fit();
+                }
+            }
+
+            double last = times[count - 1];
+            estimate = new BaselineEstimate(fitA + (fitB * last), fitB, sigma, last + originSeconds, count, outliers);
+            return true;
+        }
+
+        /// <summary>
+        /// Copies |r_i| of the kept points of the last estimate into a running window (to seed the
+        /// running noise estimate).
+        /// </summary>
+        public void CopyAbsoluteResiduals(MedianWindow window)
+        {
+            for (int i = 0; i < keptCount; i++)
+            {
+                window.Add(ScalarMath.Abs(keptValues[i] - fitA - (fitB * keptTimes[i])));
+            }
+        }
+
+        // Resistant line over keptTimes/keptValues[0..keptCount); sets fitA, fitB; returns the robust sigma.
+        private double Fit()
+        {
+            int n = keptCount;
+            fitB = 0;
+            if (n >= 6)
+            {
+                int third = n / 3;
+                double tLeft = RobustStatistics.Median(keptTimes, third, scratch);
+                double xLeft = RobustStatistics.Median(keptValues, third, scratch);
+                for (int i = 0; i < third; i++)
+                {
+                    residuals[i] = keptTimes[n - third + i];
+                }
+
+                double tRight = RobustStatistics.Median(residuals, third, scratch);
+                for (int i = 0; i < third; i++)
+                {
+                    residuals[i] = keptValues[n - third + i];
+                }
+
+                double xRight = RobustStatistics.Median(residuals, third, scratch);
+                if (tRight > tLeft)
+                {
+                    fitB = (xRight - xLeft) / (tRight - tLeft);
+                }
+            }
+
+            for (int i = 0; i < n; i++)
+            {
+                residuals[i] = keptValues[i] - (fitB * keptTimes[i]);
+            }
+
+            fitA = RobustStatistics.Median(residuals, n, scratch);
+            for (int i = 0; i < n; i++)
+            {
+                residuals[i] -= fitA;
+            }
+
+            return RobustStatistics.MadSigma(residuals, n, 0.0, scratch);
+        }
+    }
+}

@@ -1,0 +1,34 @@
+namespace FreqReadout.Tracking
+{
+    /// <summary>The result of one baseline capture (counted signal, after temperature compensation).</summary>
+    public struct BaselineEstimate
+    {
+        public BaselineEstimate(double levelHz, double slopeHzPerSecond, double noiseHz, double timeSeconds, int gates, int outliers)
+        {
+            LevelHz = levelHz;
+            SlopeHzPerSecond = slopeHzPerSecond;
+            NoiseHz = noiseHz;
+            TimeSeconds = timeSeconds;
+            Gates = gates;
+            Outliers = outliers;
+        }
+
+        /// <summary>Baseline level at <see cref="TimeSeconds"/> (the last captured gate), Hz.</summary>
+        public double LevelHz { get; }
+
+        /// <summary>Drift rate over the capture (resistant line), Hz/s.</summary>
+        public double SlopeHzPerSecond { get; }
+
+        /// <summary>Robust sigma of the residuals about the line (MAD scaled to sigma), Hz; 0 if the capture was constant.</summary>
+        public double NoiseHz { get; }
+
+        /// <summary>Time of the last captured gate, s.</summary>
+        public double TimeSeconds { get; }
+
+        /// <summary>Gates captured.</summary>
+        public int Gates { get; }
+
+        /// <summary>Gates rejected as outliers (beyond OutlierSigma robust sigmas of the first fit).</summary>
+        public int Outliers { get; }
+    }
+}

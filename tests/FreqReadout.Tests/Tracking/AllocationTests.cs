@@ -1,0 +1,75 @@
+using FreqReadout.Counting;
+using FreqReadout.Detection;
+using FreqReadout.Readout;
+using FreqReadout.Tracking;
+
+namespace FreqReadout.Tests.Tracking;
+
+/// <summary>The device's garbage collector is slow: the pipeline allocates nothing per reading.</summary>
+public class AllocationTests
+{
+    [Fact]
+    public void Process_and_the_queue_calls_allocate_nothing_per_reading()
+    {
+        var stream = new SyntheticGateStream { DurationSeconds = 600, DriftHz = t => 0.01 * t, ExtraHz = t => t > 300 && t < 350 ? 3.0 : 0 };
+        for (double c = 20; c < 600; c += 7)
+        {
+            stream.Passes.Add(new TargetPass(c, 0.8, c % 2 < 1 ? 2.0 : -2.0));
+        }
+
+        GateResult[] gates = stream.Gates().ToArray();
+        var pipeline = new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 });
+
+        // Warm up (JIT, first baseline) on the first 100 gates.
+        int k = 0;
+        int events = 0;
+        int notices = 0;
+        for (; k < 100; k++)
+        {
+            pipeline.Process(gates[k], out _);
+        }
+
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (; k < gates.Length; k++)
+        {
+            if (k % 50 == 0)
+            {
+                pipeline.SetTemperature(20 + (k * 1e-4));
+            }
+
+            if (k == 2000 || k == 4500)
+            {
+                pipeline.RequestRebaseline();
+            }
+
+            if (k == 3200)
+            {
+                pipeline.SetHold(true);
+            }
+
+            if (k == 3300)
+            {
+                pipeline.SetHold(false);
+            }
+
+            GateResult g = k >= 5000 && k < 5020 ? new GateResult(GateState.NoSignal, EstimatorKind.Regression, SignalKind.Search, false, 0, 0, 0, 0, 0, 1, 0, 0, gates[k].StartSeconds, gates[k].EndSeconds, 0, 0) : gates[k];
+            pipeline.Process(g, out Reading reading);
+            while (pipeline.TryTakeEvent(out DetectionEvent e))
+            {
+                events++;
+            }
+
+            while (pipeline.TryTakeRebaseline(out RebaselineNotice n))
+            {
+                notices++;
+            }
+        }
+
+        long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+        Assert.Equal(0, allocated);
+
+        // The loop went through targets, re-baselines and no-signal (it exercised the paths it claims to).
+        Assert.True(events > 50, "events " + events);
+        Assert.True(notices >= 4, "notices " + notices);
+    }
+}
