@@ -32,9 +32,9 @@ public class CoilInductanceTests
     public void Wheeler_CheckValues()
     {
         // Wheeler, Proc. IRE 16(10):1398, 1928 (REFERENCES.md check values, calculated):
-        // a = 1 in, b = 1 in, c = 0.5 in, n = 100 -> 400.0 uH (inch form 0.8 a^2 n^2 / (6a + 9b + 10c)); 0.05 % (the SI constant 31.496 is rounded).
+        // a = 1 in, b = 1 in, c = 0.5 in, n = 100 -> 400.0 uH (inch form 0.8 a^2 n^2 / (6a + 9b + 10c)); 0.05 uH (half the last digit given).
         double l1 = SearchCoil.WheelerH(1 * Inch, 1 * Inch, 0.5 * Inch, 100);
-        Assert.Equal(400.0e-6, l1, 400.0e-6 * 5e-4);
+        Assert.Equal(400.0e-6, l1, 0.05e-6);
         // a = 0.1 m, b = c = 0.01 m, N = 30 -> 358.82 uH; 0.005 uH.
         var coil = new SearchCoil(30, 0.2, 0.01, 0.01, 0.0005);
         Assert.Equal(358.82e-6, coil.WheelerInductanceH, 0.005e-6);
@@ -43,7 +43,7 @@ public class CoilInductanceTests
     [Fact]
     public void ThinLoop_CheckValues()
     {
-        // Thin N-turn loop, Maxwell 1865; Makarov et al., Low-Frequency Electromagnetic Modeling, Wiley 2015, eq. 10.11
+        // Thin N-turn loop (Maxwell 1865; Rosa and Grover; Makarov et al., Low-Frequency Electromagnetic Modeling, Wiley 2015, eq. 10.11)
         // (REFERENCES.md): R = 5 cm, a = 2 mm, N = 1: 207.24 nH (-2, skin effect), 222.95 nH (-1.75, uniform); 0.01 nH.
         Assert.Equal(207.24e-9, SearchCoil.ThinLoopH(0.05, 0.002, 1, ThinLoopCurrent.SkinEffect), 0.01e-9);
         Assert.Equal(222.95e-9, SearchCoil.ThinLoopH(0.05, 0.002, 1, ThinLoopCurrent.Uniform), 0.01e-9);

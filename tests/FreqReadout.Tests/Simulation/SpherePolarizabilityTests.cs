@@ -5,7 +5,7 @@ namespace FreqReadout.Tests.Simulation;
 
 public class SpherePolarizabilityTests
 {
-    // All check values: Wait, Geophysics 16:666, 1951 (form of Ledger and Lionheart), REFERENCES.md "Coil and target
+    // All check values: J. R. Wait, Geophysics 16:666, 1951 (form as in Ledger and Lionheart's polarizability papers), REFERENCES.md "Coil and target
     // physics", M / (2 pi a^3), a = 1 cm, calculated; these use sigma = 5.8e7 (copper) and 6e6 (steel), not the presets.
     // Tolerance 2e-5 absolute: the values are given to 5 decimals.
     private const double Tol = 2e-5;
@@ -70,7 +70,8 @@ public class SpherePolarizabilityTests
     {
         // Issue 4: a 5 cm copper sphere at 1 MHz: |ka| ~ 770, so sin/cos of ka overflow double range. The asymptotic form
         // (cot -> i, j2/j0 -> -1) must give finite values near the high-frequency limit -1 (REFERENCES.md limit), with the
-        // first-order correction -1 + 3/(ka) (derived from the asymptotic form: j2/j0 ~ -1 - 3i/(ka)); 1e-4.
+        // asymptotic value itself, M/(2 pi a^3) = 3/(ka)^2 - 1 - 3 cot(ka)/(ka) with cot -> i (derived from the REFERENCES.md
+        // non-magnetic form); 1e-4.
         double a = 0.05;
         double f = 1e6;
         Complex m = SpherePolarizability.Normalised(a, 5.8e7, 1.0, f);
@@ -81,7 +82,8 @@ public class SpherePolarizabilityTests
         Assert.Equal(expected.Real, m.Real, 1e-4);
         Assert.Equal(expected.Imaginary, m.Imaginary, 1e-4);
         Assert.True(m.Imaginary <= 0);
-        // And the steel sphere of the same size at 1 MHz, mu_r 100.
+        // And the steel sphere of the same size at 1 MHz, mu_r 100: far above its crossover (about 6 kHz by the REFERENCES.md
+        // estimate 1.641 mu_r / (pi mu0 sigma a^2)), so finite with -1 < Re M < 0.
         Complex s = SpherePolarizability.Normalised(a, 6.99e6, 100.0, f);
         Assert.True(double.IsFinite(s.Real) && double.IsFinite(s.Imaginary));
         Assert.True(s.Real < 0 && s.Real > -1.0);
