@@ -187,39 +187,45 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         long gates = 0;
         long withFrequency = 0;
         Table? table = null;
-        foreach (var item in source.ReadGates())
+        try
         {
-            cancellationToken.ThrowIfCancellationRequested();
-            var gate = item.Gate;
-            if (gate.HasFrequency && reference == null)
+            foreach (var item in source.ReadGates())
             {
-                reference = gate.FrequencyHz;
-            }
+                cancellationToken.ThrowIfCancellationRequested();
+                var gate = item.Gate;
+                if (gate.HasFrequency && reference == null)
+                {
+                    reference = gate.FrequencyHz;
+                }
 
-            table ??= NewTable();
-            table.AddRow(
-                new Text(Num(gate.EndSeconds, "0.000000")),
-                new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
-                new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
-                new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
-                new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
-                new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
-            gates++;
-            if (gate.HasFrequency)
-            {
-                withFrequency++;
-            }
+                table ??= NewTable();
+                table.AddRow(
+                    new Text(Num(gate.EndSeconds, "0.000000")),
+                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
+                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
+                    new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
+                    new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
+                    new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+                gates++;
+                if (gate.HasFrequency)
+                {
+                    withFrequency++;
+                }
 
-            if (table.Rows.Count >= RowsPerTable)
-            {
-                console.Write(table);
-                table = null;
+                if (table.Rows.Count >= RowsPerTable)
+                {
+                    console.Write(table);
+                    table = null;
+                }
             }
         }
-
-        if (table != null)
+        finally
         {
-            console.Write(table);
+            // Gates counted before a malformed row (or a corrupt binary block) are still shown.
+            if (table != null)
+            {
+                console.Write(table);
+            }
         }
 
         console.WriteLine();

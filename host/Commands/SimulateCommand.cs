@@ -75,7 +75,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {
-                return CommandErrors.Fail($"{settings.SaveScene}: cannot write the scene file ({ex.Message})");
+                return CommandErrors.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}");
             }
         }
 
@@ -114,7 +114,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{settings.Out}: cannot write the capture ({ex.Message})");
+            return CommandErrors.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}");
         }
 
         try
@@ -123,7 +123,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{truthPath}: cannot write the truth file ({ex.Message})");
+            return CommandErrors.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}");
         }
 
         PrintSummary(settings.Out, truthPath, truth);
@@ -233,7 +233,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
 
         foreach (string w in t.Warnings)
         {
-            CommandErrors.Stderr().MarkupLine("[yellow]warning:[/] " + Markup.Escape(w));
+            Console.Error.WriteLine("warning: " + w);
         }
     }
 
