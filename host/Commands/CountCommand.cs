@@ -106,8 +106,14 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         }
     }
 
+    /// <summary>Why no gate closed: no data rows at all, or fewer than one gate's worth.</summary>
+    private static string NoGateText(CaptureGateSource source) => source.RowsRead == 0
+        ? "no gate closed: the capture holds no data rows"
+        : "no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)";
+
     private static void WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
     {
+        long gates = 0;
         var stdout = Console.Out;
         var buffer = new System.Buffers.ArrayBufferWriter<byte>(256);
         bool hasTemp = source.Metadata.HasTemperatureColumn;
@@ -155,9 +161,15 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             }
 
             stdout.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.WrittenSpan));
+            gates++;
         }
 
         stdout.Flush();
+        if (gates == 0)
+        {
+            // stdout stays pure JSON lines (none here); the reason goes to stderr.
+            CommandOutput.Diagnostic("warning: " + NoGateText(source));
+        }
     }
 
     private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
@@ -232,7 +244,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         console.WriteLine($"{gates} gates ({withFrequency} with a frequency) from {source.RowsRead} rows; {source.FlaggedSteps} rows skipped");
         if (gates == 0)
         {
-            console.WriteLine("no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)");
+            console.WriteLine(NoGateText(source));
         }
 
         CaptureMetadataView.WriteTrailer(console, source.Reader);

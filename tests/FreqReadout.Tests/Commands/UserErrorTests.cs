@@ -112,6 +112,43 @@ public sealed class UserErrorTests
         }
     }
 
+    [Theory]
+    [InlineData(1)]
+    [InlineData(3)]
+    [InlineData(7)]
+    public void A_binary_capture_cut_inside_its_magic_says_it_is_truncated(int keep)
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-magic").FullName;
+        try
+        {
+            string bin = Path.Combine(dir, "s.bin");
+            Assert.Equal(0, ConsoleCapture.Run("convert", Contract("minimal.edges.csv"), bin).Exit);
+            string cut = Path.Combine(dir, "cut.bin");
+            File.WriteAllBytes(cut, File.ReadAllBytes(bin).AsSpan(0, keep).ToArray());
+            var (exit, _, stderr) = ConsoleCapture.RunMain("count", cut);
+            Assert.Equal(CommandOutput.BadInput, exit);
+            AssertOneErrorLine(stderr, $"cut.bin:0: the file ends after {keep} of the 8 bytes of the binary capture magic");
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+
+    [Fact]
+    public void A_capture_shorter_than_one_gate_says_why_no_gate_closed()
+    {
+        // Contract README: minimal.edges.csv is 101 edges of 50 kHz, 2 ms: no 0.1 s gate closes.
+        var (exit, stdout, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--json");
+        Assert.Equal(0, exit);
+        Assert.Equal(string.Empty, stdout);
+        Assert.Contains("warning: no gate closed: the capture is shorter than one gate", stderr);
+
+        (exit, stdout, _) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"));
+        Assert.Equal(0, exit);
+        Assert.Contains("no gate closed: the capture is shorter than one gate", stdout);
+    }
+
     [Fact]
     public void Trimming_to_a_range_without_rows_warns()
     {
