@@ -76,6 +76,10 @@ public static class Program
                 .WithDescription("Run the whole pipeline on a built-in invented scenario.");
             config.AddCommand<CountCommand>("count")
                 .WithDescription("Count a capture gate by gate: frequency, shift from the first gate, edges, error, state.");
+            config.AddCommand<ReplayCommand>("replay")
+                .WithDescription("Replay a capture through the device's readout pipeline: baseline, noise, drift, re-baselines and events (ferrous / non-ferrous / unclear).");
+            config.AddCommand<CalibrateCommand>("calibrate")
+                .WithDescription("Fit the search oscillator's tempco (ppm/K with its standard error) from the target-free stretches of a capture with temp_c.");
             config.AddCommand<ConvertCommand>("convert")
                 .WithDescription("Convert a capture between the text and binary formats, losslessly, optionally trimmed to a time range.");
             config.AddCommand<SimulateCommand>("simulate")

@@ -1,18 +1,222 @@
+using System.ComponentModel;
+using System.Globalization;
+using System.Text.Json.Nodes;
+using FreqReadout.Host.Demo;
+using FreqReadout.Host.Replay;
+using FreqReadout.Host.Simulation;
 using Spectre.Console;
 using Spectre.Console.Cli;
 
 namespace FreqReadout.Host.Commands;
 
-/// <summary><c>freqreadout demo</c>: the main job on built-in invented data.</summary>
+/// <summary>
+/// <c>freqreadout demo</c>: the main job on built-in invented data. Simulates the floor-scan scene
+/// from physics, replays the capture through the device pipeline with replay's default settings,
+/// and compares what the readout found with the simulation's truth.
+/// </summary>
 public sealed class DemoCommand : Command<DemoCommand.Settings>
 {
     public sealed class Settings : CommandSettings
     {
+        [CommandOption("--keep <DIR>")]
+        [Description("Keep the simulated capture (floor-demo.csv) in DIR to replay or count it yourself. Default: a temporary file, deleted afterwards.")]
+        public string? Keep { get; set; }
+
+        [CommandOption("--json")]
+        [Description("One JSON object on stdout: the replay report plus the pass-by-pass comparison with the truth.")]
+        public bool Json { get; set; }
+
+        [CommandOption("--quiet")]
+        [Description("No progress display.")]
+        public bool Quiet { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
-        AnsiConsole.MarkupLine("[yellow]demo: not built yet[/]");
-        return 1;
+        string path;
+        bool temporary = settings.Keep == null;
+        if (settings.Keep != null)
+        {
+            try
+            {
+                Directory.CreateDirectory(settings.Keep);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException)
+            {
+                return CommandOutput.Fail($"--keep {settings.Keep}: cannot create the folder ({e.Message})", CommandOutput.BadOption);
+            }
+
+            path = Path.Combine(settings.Keep, "floor-demo.csv");
+        }
+        else
+        {
+            path = Path.Combine(Path.GetTempPath(), $"freqreadout-demo-{Environment.ProcessId}-{Guid.NewGuid():N}.csv");
+        }
+
+        DemoResult result;
+        try
+        {
+            result = settings.Quiet || settings.Json ? DemoRun.Run(path, null, cancellationToken) : RunWithProgress(path, cancellationToken);
+            if (settings.Keep != null)
+            {
+                File.WriteAllText(Path.Combine(settings.Keep, "floor-demo.truth.json"), result.Truth.ToJson() + "\n");
+            }
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return CommandOutput.Fail($"{path}: cannot write the demo capture ({e.Message})", CommandOutput.BadInput);
+        }
+        finally
+        {
+            if (temporary)
+            {
+                try
+                {
+                    File.Delete(path);
+                }
+                catch (IOException)
+                {
+                    // A temporary file left behind is harmless.
+                }
+            }
+        }
+
+        if (settings.Json)
+        {
+            Console.Out.WriteLine(ToJson(result));
+        }
+        else
+        {
+            Print(CommandOutput.Stdout(), result, settings.Keep);
+        }
+
+        return 0;
+    }
+
+    private static DemoResult RunWithProgress(string path, CancellationToken ct)
+    {
+        DemoResult? result = null;
+        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+        err.Progress()
+            .AutoClear(true)
+            .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn())
+            .Start(ctx =>
+            {
+                ProgressTask task = ctx.AddTask("simulating the floor scan, then replaying it");
+                result = DemoRun.Run(path, new Progress(task), ct);
+                task.Value = task.MaxValue;
+            });
+        return result!;
+    }
+
+    private static string F(double v, string format = "0.000") => v.ToString(format, CultureInfo.InvariantCulture);
+
+    private static void Print(IAnsiConsole console, DemoResult r, string? keep)
+    {
+        SimulationTruth t = r.Truth;
+        ReplayReport rep = r.Report;
+        console.MarkupLine("[bold]FreqReadout demo[/] — an [bold]invented[/] scenario, simulated from physics, not a field recording.");
+        console.WriteLine(
+            "A crew scans a floor screed along a 3 m line with a 180 mm, 45-turn search coil at 100 kHz, looking for a buried copper pipe, " +
+            "a small steel fixing and a large steel anchor, while the coil, brought in from a cold van, warms up. " +
+            "The readout sees only the capture (edges of the search oscillator divided by 32 on an 80 MHz timer) and runs the device pipeline with replay's defaults.");
+        console.WriteLine();
+
+        var summary = new Table().NoBorder().HideHeaders().AddColumn("k").AddColumn("v");
+        summary.AddRow("capture", Markup.Escape($"{rep.Edges} edges, {F(rep.DurationSeconds, "0.0")} s, {rep.Gates} gates of 0.1 s"));
+        summary.AddRow("baseline", rep.BaselineHz is double b ? $"{F(b, "0.000")} Hz (nominal {F(t.SearchNominalHz, "0")} Hz)" : "none");
+        summary.AddRow("noise", rep.NoiseHz is double n ? $"{F(n, "0.0000")} Hz" + (rep.NoisePpm is double p ? $", {F(p, "0.000")} ppm" : string.Empty) : "none");
+        summary.AddRow("drift", rep.DriftHzPerMinute is double d
+            ? Markup.Escape($"{F(d, "+0.000;-0.000")} Hz/min tracked (coil warming {F(t.TempStartC, "0.0")} -> {F(t.TempEndC, "0.0")} C, tempco {F(t.TempcoPpmPerK, "0.00")} ppm/K: {F(t.DriftSearchHz, "+0.00;-0.00")} Hz in all)")
+            : "none");
+        summary.AddRow("events", $"{rep.Events.Count} (re-baselines: {rep.Rebaselines.Count})");
+        console.Write(summary);
+        console.WriteLine();
+
+        var table = new Table().Border(TableBorder.Simple).Title("simulated passes and what the readout reported")
+            .AddColumn(new TableColumn("peak s").RightAligned())
+            .AddColumn("target")
+            .AddColumn(new TableColumn("sim. Hz").RightAligned())
+            .AddColumn(new TableColumn("found Hz").RightAligned())
+            .AddColumn("readout says")
+            .AddColumn("sign rule");
+        foreach (DemoPassMatch m in r.Matches)
+        {
+            string foundText = m.Event == null ? "[red]missed[/]" : F(m.Event.Event.PeakShiftHz, "+0.000;-0.000");
+            string cls = m.Event == null ? "-" : (m.ClassAsExpected ? m.Event.ClassName : $"[red]{m.Event.ClassName}[/]");
+            string name = m.MaterialClass == m.SignRuleClass ? Markup.Escape(m.Target) : Markup.Escape(m.Target) + " [yellow](!)[/]";
+            table.AddRow(F(m.TruthPeakSeconds, "0.0"), name, F(m.TruthPeakShiftHz, "+0.000;-0.000"), foundText, cls, m.SignRuleClass);
+        }
+
+        console.Write(table);
+        int found = r.Matches.Count(m => m.Event != null);
+        int right = r.Matches.Count(m => m.ClassAsExpected);
+        console.WriteLine($"{found} of {r.Matches.Count} passes found, {right} with the class the sign rule gives; {r.UnmatchedEvents.Count} events matched no simulated pass.");
+        console.WriteLine();
+
+        foreach (TargetTruth target in t.Targets.Where(x => x.MaterialClass != x.SignRuleClass))
+        {
+            string crossover = target.CrossoverHz is double x ? $"{F(x / 1000, "0.0")} kHz" : "unknown";
+            console.MarkupLine($"[yellow](!)[/] [bold]{Markup.Escape(target.Name)}[/] is {Markup.Escape(target.MaterialClass)} steel, yet it reads [bold]{Markup.Escape(target.SignRuleClass)}[/]: " +
+                Markup.Escape($"its ferrous crossover is {crossover}, below the 100 kHz operating frequency. Above the crossover the part's own eddy currents outweigh its flux concentration, the coil inductance falls and the search frequency rises, just as for copper. The crossover falls with the square of the part's size, so large iron reads non-ferrous at usual operating frequencies. The sign rule is a heuristic; `freqreadout coil --material carbon_steel --radius-mm R` shows a part's crossover."));
+        }
+
+        foreach (TargetTruth target in t.Targets.Where(x => x.MaterialClass == x.SignRuleClass && x.CrossoverHz is double))
+        {
+            console.WriteLine($"{target.Name}: crossover {F(target.CrossoverHz!.Value / 1000, "0.0")} kHz, above the operating frequency, so it reads ferrous as the sign rule expects.");
+        }
+
+        foreach (string w in rep.Warnings)
+        {
+            console.MarkupLine("[grey]note:[/] " + Markup.Escape(w));
+        }
+
+        console.WriteLine();
+        if (keep != null)
+        {
+            console.WriteLine($"The capture and its truth are in {keep}: try `freqreadout replay {Path.Combine(keep, "floor-demo.csv")}` or `count` on it.");
+        }
+
+        console.MarkupLine("[bold]Caution:[/] " + Markup.Escape(
+            "a readout that shows nothing is not proof that a wall or floor holds no live wiring or pipe. Isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local electrical and building codes and licensed practice."));
+    }
+
+    private static string ToJson(DemoResult r)
+    {
+        var root = new JsonObject
+        {
+            ["scenario"] = "invented: floor screed scan for a copper pipe, a small steel fixing and a large steel anchor while the coil warms up (simulated)",
+            ["replay"] = JsonNode.Parse(ReplayCommand.ToJson(r.Report)),
+        };
+        var passes = new JsonArray();
+        foreach (DemoPassMatch m in r.Matches)
+        {
+            passes.Add(new JsonObject
+            {
+                ["target"] = m.Target,
+                ["pass"] = m.Pass,
+                ["truth_peak_s"] = m.TruthPeakSeconds,
+                ["truth_peak_shift_hz"] = m.TruthPeakShiftHz,
+                ["material_class"] = m.MaterialClass,
+                ["sign_rule_class"] = m.SignRuleClass,
+                ["found"] = m.Event != null,
+                ["found_peak_s"] = m.Event?.Event.PeakSeconds,
+                ["found_peak_shift_hz"] = m.Event?.Event.PeakShiftHz,
+                ["found_class"] = m.Event?.ClassName,
+            });
+        }
+
+        root["passes"] = passes;
+        root["unmatched_events"] = r.UnmatchedEvents.Count;
+        return root.ToJsonString();
+    }
+
+    private sealed class Progress : IProgress<double>
+    {
+        private readonly ProgressTask task;
+
+        public Progress(ProgressTask task) => this.task = task;
+
+        public void Report(double value) => task.Value = Math.Clamp(value, 0.0, 1.0) * 100.0;
     }
 }

@@ -25,6 +25,9 @@ namespace FreqReadout.Readout
     /// dropped and re-baselined automatically (reason Auto, with the shift it absorbed).
     /// </para>
     /// <para>
+    /// The tracker runs on offsets from the last captured baseline (and the capture on offsets from
+    /// its first gate), so a device whose double is computed in single precision keeps the resolution
+    /// of small shifts instead of losing updates below the ulp of 1e5 Hz (about 0.008 Hz).
     /// The first baseline takes the capture's own slope; later ones keep the tracked slope (filtered
     /// over tracker_slope_s, better than a few seconds of capture). Nothing here allocates after the
     /// constructor; Process, the setters and the TryTake methods are safe for a device loop.
@@ -67,6 +70,7 @@ namespace FreqReadout.Readout
         private double requestedSeconds;
         private bool hasOld;
         private double oldLevelHz;
+        private double originHz;
         private double oldSlopeHzPerSecond;
         private double oldTimeSeconds;
         private bool everBaselined;
@@ -134,7 +138,7 @@ namespace FreqReadout.Readout
         /// <summary>Tracked baseline of the counted signal at the last reading, Hz (0 without a baseline).</summary>
         public double BaselineHz
         {
-            get { return HasBaseline ? tracker.Predict(lastTimeSeconds) : 0.0; }
+            get { return HasBaseline ? originHz + tracker.Predict(lastTimeSeconds) : 0.0; }
         }
 
         /// <summary>Running robust noise (before floors), Hz.</summary>
@@ -302,8 +306,10 @@ namespace FreqReadout.Readout
                 return false;
             }
 
-            double predicted = tracker.Predict(t);
-            double shift = sideSign * (x - predicted);
+            double relative = x - originHz;
+            double predictedRelative = tracker.Predict(t);
+            double predicted = originHz + predictedRelative;
+            double shift = sideSign * (relative - predictedRelative);
             double sigma = Sigma(gate.ErrorHz);
             double ppmReference = PpmReferenceHz(predicted);
             DetectionEvent closed;
@@ -334,7 +340,7 @@ namespace FreqReadout.Readout
                 blankRemaining--;
             }
 
-            PushDelayLine(t, span, x, valid);
+            PushDelayLine(t, span, relative, valid);
 
             TargetClass live = TargetClass.None;
             if (present)
@@ -426,7 +432,7 @@ namespace FreqReadout.Readout
         private void SnapshotTracker()
         {
             hasOld = true;
-            oldLevelHz = tracker.LevelHz;
+            oldLevelHz = originHz + tracker.LevelHz;
             oldSlopeHzPerSecond = tracker.SlopeHzPerSecond;
             oldTimeSeconds = tracker.TimeSeconds;
         }
@@ -479,7 +485,8 @@ namespace FreqReadout.Readout
                 estimate.Outliers));
 
             double slope = hasOld ? oldSlopeHzPerSecond : estimate.SlopeHzPerSecond;
-            tracker.Reset(estimate.LevelHz, slope, estimate.TimeSeconds);
+            originHz = estimate.LevelHz;
+            tracker.Reset(0.0, slope, estimate.TimeSeconds);
             detector.Discard();
             ClearDelayLine();
             blankRemaining = 0;
@@ -539,6 +546,7 @@ namespace FreqReadout.Readout
             }
         }
 
+        // x is relative to originHz, as the tracker's level is.
         private void Feed(double t, double span, double x)
         {
             double predicted = tracker.Predict(t);

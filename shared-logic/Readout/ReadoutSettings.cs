@@ -209,7 +209,30 @@ namespace FreqReadout.Readout
         /// <summary>A copy with the same values.</summary>
         public ReadoutSettings Clone()
         {
-            return (ReadoutSettings)MemberwiseClone();
+            ReadoutSettings c = new ReadoutSettings();
+            c.Signal = Signal;
+            c.BeatSide = BeatSide;
+            c.SearchHz = SearchHz;
+            c.SettlingSeconds = SettlingSeconds;
+            c.BaselineSeconds = BaselineSeconds;
+            c.BaselineMaxGates = BaselineMaxGates;
+            c.OutlierSigma = OutlierSigma;
+            c.NoiseWindowGates = NoiseWindowGates;
+            c.NoiseFloorHz = NoiseFloorHz;
+            c.TrackerLevelSeconds = TrackerLevelSeconds;
+            c.TrackerSlopeSeconds = TrackerSlopeSeconds;
+            c.TrackerDelayGates = TrackerDelayGates;
+            c.GuardSigma = GuardSigma;
+            c.ThresholdSigma = ThresholdSigma;
+            c.HysteresisSigma = HysteresisSigma;
+            c.MinDurationSeconds = MinDurationSeconds;
+            c.ReleaseSeconds = ReleaseSeconds;
+            c.UnclearBandSigma = UnclearBandSigma;
+            c.Polarity = Polarity;
+            c.PersistentShiftSeconds = PersistentShiftSeconds;
+            c.BeatFloorHz = BeatFloorHz;
+            c.TempcoPpmPerK = TempcoPpmPerK;
+            return c;
         }
 
         private static bool InRange(double value, double lo, double hi)

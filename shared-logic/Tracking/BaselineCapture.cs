@@ -26,6 +26,7 @@ namespace FreqReadout.Tracking
         private int count;
         private int keptCount;
         private double originSeconds;
+        private double originHz;
         private double fitA;
         private double fitB;
 
@@ -82,10 +83,12 @@ namespace FreqReadout.Tracking
             if (count == 0)
             {
                 originSeconds = timeSeconds;
+                originHz = valueHz;
             }
 
+            // Offsets from the first gate keep small differences exact on a single-precision device double.
             times[count] = timeSeconds - originSeconds;
-            values[count] = valueHz;
+            values[count] = valueHz - originHz;
             count++;
             return true;
         }
@@ -137,7 +140,7 @@ namespace FreqReadout.Tracking
             }
 
             double last = times[count - 1];
-            estimate = new BaselineEstimate(fitA + (fitB * last), fitB, sigma, last + originSeconds, count, outliers);
+            estimate = new BaselineEstimate(originHz + fitA + (fitB * last), fitB, sigma, last + originSeconds, count, outliers);
             return true;
         }
 

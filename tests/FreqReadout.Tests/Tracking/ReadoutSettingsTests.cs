@@ -73,4 +73,25 @@ public class ReadoutSettingsTests
         }).ToList();
         Assert.Equal(errors.Count, errors.Distinct().Count());
     }
+
+    [Fact]
+    public void Clone_copies_every_setting()
+    {
+        var s = new ReadoutSettings();
+        int k = 0;
+        foreach (var p in typeof(ReadoutSettings).GetProperties())
+        {
+            k++;
+            object value = p.PropertyType == typeof(double) ? 1000.5 + k
+                : p.PropertyType == typeof(int) ? 100 + k
+                : Enum.ToObject(p.PropertyType, 1);
+            p.SetValue(s, value);
+        }
+
+        ReadoutSettings c = s.Clone();
+        foreach (var p in typeof(ReadoutSettings).GetProperties())
+        {
+            Assert.Equal(p.GetValue(s), p.GetValue(c));
+        }
+    }
 }

@@ -1,0 +1,216 @@
+using System.ComponentModel;
+using System.Globalization;
+using FreqReadout.Counting;
+using FreqReadout.Detection;
+using FreqReadout.Host.Captures;
+using FreqReadout.Readout;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// Options shared by <c>replay</c> and <c>calibrate</c>: the capture, the counter's gate and estimator
+/// (<see cref="CounterOptionSettings"/>, as <c>count</c>) and every readout setting (<see cref="ReadoutSettings"/>,
+/// defaults shown by --help). Signal, beat side and search_hz come from the capture's metadata.
+/// </summary>
+public class ReadoutCommandSettings : CounterOptionSettings
+{
+    [CommandArgument(0, "<capture>")]
+    [Description("Capture file, text or binary (picked by content).")]
+    public string Capture { get; set; } = string.Empty;
+
+    [CommandOption("--json")]
+    [Description("Exactly one JSON object on stdout; diagnostics on stderr.")]
+    public bool Json { get; set; }
+
+    [CommandOption("--search-hz <HZ>")]
+    [Description("Nominal search-oscillator frequency for ppm in beat mode, [[0, 1e12]]. Default: the capture's search_hz.")]
+    public string? SearchHz { get; set; }
+
+    [CommandOption("--threshold-sigma <SIGMA>")]
+    [Description("Detection threshold in noise sigmas, [[1, 1000]]. Default 5 (white Gaussian noise crosses it with probability 5.7e-7 per reading).")]
+    public string? ThresholdSigma { get; set; }
+
+    [CommandOption("--hysteresis-sigma <SIGMA>")]
+    [Description("An event ends below threshold - hysteresis, [[0, threshold). Default 2.")]
+    public string? HysteresisSigma { get; set; }
+
+    [CommandOption("--min-duration-s <SECONDS>")]
+    [Description("Gate time above the release level that confirms an event, [[0, 60]]. Default 0.1.")]
+    public string? MinDurationSeconds { get; set; }
+
+    [CommandOption("--release-s <SECONDS>")]
+    [Description("Gate time below the release level that ends an event, [[0, 60]]. Default 0.2.")]
+    public string? ReleaseSeconds { get; set; }
+
+    [CommandOption("--unclear-band-sigma <SIGMA>")]
+    [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 1.")]
+    public string? UnclearBandSigma { get; set; }
+
+    [CommandOption("--polarity <NAME>")]
+    [Description("normal (search frequency up = non-ferrous) or inverted. Default normal.")]
+    public string? Polarity { get; set; }
+
+    [CommandOption("--persistent-shift-s <SECONDS>")]
+    [Description("An event lasting this long outside hold mode becomes the new baseline (auto re-baseline), [[1, 86400]]. Default 30.")]
+    public string? PersistentShiftSeconds { get; set; }
+
+    [CommandOption("--settling-s <SECONDS>")]
+    [Description("Wait before a baseline capture, [[0, 3600]]. Default 1.")]
+    public string? SettlingSeconds { get; set; }
+
+    [CommandOption("--baseline-s <SECONDS>")]
+    [Description("Baseline capture length, (0, 600]]. Default 5.")]
+    public string? BaselineSeconds { get; set; }
+
+    [CommandOption("--baseline-max-gates <N>")]
+    [Description("Baseline capture buffer, [[8, 8192]]. Default 512.")]
+    public string? BaselineMaxGates { get; set; }
+
+    [CommandOption("--outlier-sigma <SIGMA>")]
+    [Description("Baseline points beyond this many robust sigmas are rejected, [[2, 20]]. Default 3.")]
+    public string? OutlierSigma { get; set; }
+
+    [CommandOption("--noise-window-gates <N>")]
+    [Description("Running robust noise window, target-free gates, [[16, 4096]]. Default 512.")]
+    public string? NoiseWindowGates { get; set; }
+
+    [CommandOption("--noise-floor-hz <HZ>")]
+    [Description("Least noise sigma used, (0, 1e6]]. Default 0.001.")]
+    public string? NoiseFloorHz { get; set; }
+
+    [CommandOption("--tracker-level-s <SECONDS>")]
+    [Description("Drift tracker (Holt) level time constant, (0, 3600]]. Default 2.")]
+    public string? TrackerLevelSeconds { get; set; }
+
+    [CommandOption("--tracker-slope-s <SECONDS>")]
+    [Description("Drift tracker (Holt) slope time constant, (0, 36000]]. Default 10.")]
+    public string? TrackerSlopeSeconds { get; set; }
+
+    [CommandOption("--tracker-delay-gates <N>")]
+    [Description("Readings reach the tracker this many gates late, [[0, 1000]]. Default 5.")]
+    public string? TrackerDelayGates { get; set; }
+
+    [CommandOption("--guard-sigma <SIGMA>")]
+    [Description("Residuals fed to the tracker are clipped to +-guard sigmas, (0, 100]]. Default 3.")]
+    public string? GuardSigma { get; set; }
+
+    [CommandOption("--beat-floor-hz <HZ>")]
+    [Description("Beat mode: a beat note below this is flagged and its sign unclear, [[0, 1e9]]. Default 50.")]
+    public string? BeatFloorHz { get; set; }
+
+    [CommandOption("--tempco-ppm-per-k <PPM>")]
+    [Description("Search-oscillator tempco removed before tracking (from calibrate), [[-1000, 1000]]; 0 = off. Default 0.")]
+    public string? TempcoPpmPerK { get; set; }
+
+    /// <summary>
+    /// The readout settings for a capture: the options over the defaults, with signal, beat side and
+    /// search_hz from the metadata. Null with an error naming the option, the setting and its range.
+    /// </summary>
+    public ReadoutSettings? BuildReadoutSettings(CaptureMetadata metadata, out string? error)
+    {
+        error = null;
+        var s = new ReadoutSettings
+        {
+            Signal = metadata.Signal,
+            BeatSide = metadata.Signal == SignalKind.Beat ? metadata.BeatSide : BeatSide.None,
+            SearchHz = metadata.SearchHz ?? 0,
+        };
+        if (SearchHz != null)
+        {
+            if (!OptionValues.TryNumber(SearchHz, out double searchHz))
+            {
+                error = $"--search-hz must be a number (Hz), got '{SearchHz}'";
+                return null;
+            }
+
+            s.SearchHz = searchHz;
+        }
+
+        if (Polarity != null)
+        {
+            switch (Polarity.Trim().ToLowerInvariant())
+            {
+                case "normal":
+                    s.Polarity = FreqReadout.Detection.Polarity.Normal;
+                    break;
+                case "inverted":
+                    s.Polarity = FreqReadout.Detection.Polarity.Inverted;
+                    break;
+                default:
+                    error = $"--polarity must be normal or inverted, got '{Polarity}'";
+                    return null;
+            }
+        }
+
+        var numbers = new (string? Text, string Option, Action<double> Set)[]
+        {
+            (ThresholdSigma, "--threshold-sigma", v => s.ThresholdSigma = v),
+            (HysteresisSigma, "--hysteresis-sigma", v => s.HysteresisSigma = v),
+            (MinDurationSeconds, "--min-duration-s", v => s.MinDurationSeconds = v),
+            (ReleaseSeconds, "--release-s", v => s.ReleaseSeconds = v),
+            (UnclearBandSigma, "--unclear-band-sigma", v => s.UnclearBandSigma = v),
+            (PersistentShiftSeconds, "--persistent-shift-s", v => s.PersistentShiftSeconds = v),
+            (SettlingSeconds, "--settling-s", v => s.SettlingSeconds = v),
+            (BaselineSeconds, "--baseline-s", v => s.BaselineSeconds = v),
+            (OutlierSigma, "--outlier-sigma", v => s.OutlierSigma = v),
+            (NoiseFloorHz, "--noise-floor-hz", v => s.NoiseFloorHz = v),
+            (TrackerLevelSeconds, "--tracker-level-s", v => s.TrackerLevelSeconds = v),
+            (TrackerSlopeSeconds, "--tracker-slope-s", v => s.TrackerSlopeSeconds = v),
+            (GuardSigma, "--guard-sigma", v => s.GuardSigma = v),
+            (BeatFloorHz, "--beat-floor-hz", v => s.BeatFloorHz = v),
+            (TempcoPpmPerK, "--tempco-ppm-per-k", v => s.TempcoPpmPerK = v),
+        };
+        foreach (var (text, option, set) in numbers)
+        {
+            if (text == null)
+            {
+                continue;
+            }
+
+            if (!OptionValues.TryNumber(text, out double value))
+            {
+                error = $"{option} must be a number, got '{text}'";
+                return null;
+            }
+
+            set(value);
+        }
+
+        var integers = new (string? Text, string Option, Action<int> Set)[]
+        {
+            (BaselineMaxGates, "--baseline-max-gates", v => s.BaselineMaxGates = v),
+            (NoiseWindowGates, "--noise-window-gates", v => s.NoiseWindowGates = v),
+            (TrackerDelayGates, "--tracker-delay-gates", v => s.TrackerDelayGates = v),
+        };
+        foreach (var (text, option, set) in integers)
+        {
+            if (text == null)
+            {
+                continue;
+            }
+
+            if (!int.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int value))
+            {
+                error = $"{option} must be an integer, got '{text}'";
+                return null;
+            }
+
+            set(value);
+        }
+
+        if (!s.TryValidate(out string settingError))
+        {
+            // The setting's snake_case name leads the message; the option is the same name in kebab case.
+            int space = settingError.IndexOf(' ');
+            string name = space > 0 ? settingError[..space] : settingError;
+            error = $"--{name.Replace('_', '-')}: {settingError}";
+            return null;
+        }
+
+        return s;
+    }
+
+    /// <summary>Invariant number text.</summary>
+    protected static string Num(double value, string format = "0.######") => value.ToString(format, CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,338 @@
+using System.ComponentModel;
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using FreqReadout.Counting;
+using FreqReadout.Host.Captures;
+using FreqReadout.Host.Counting;
+using FreqReadout.Host.Replay;
+using FreqReadout.Readout;
+using Spectre.Console;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// <c>freqreadout replay &lt;capture&gt; [--json] [--readings FILE] [--events FILE]</c>: streams a capture
+/// through the counting core and the same readout pipeline the device runs, and prints a summary
+/// (edges, duration, gates, baseline, noise in Hz and ppm, drift, re-baselines, events). With --json,
+/// exactly one JSON object on stdout (shape of issue 3, meanings of PRODUCT.md); diagnostics on stderr.
+/// </summary>
+public sealed class ReplayCommand : Command<ReplayCommand.Settings>
+{
+    /// <summary>The caution of PRODUCT.md, shown with every summary.</summary>
+    public const string Caution =
+        "Caution: a readout that shows nothing is not proof that a wall or floor holds no live wiring or pipe. " +
+        "Isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records " +
+        "and local locating services before digging; follow local electrical and building codes and licensed practice.";
+
+    public sealed class Settings : ReadoutCommandSettings
+    {
+        [CommandOption("--readings <FILE>")]
+        [Description("Also write the gate-by-gate readings as CSV.")]
+        public string? ReadingsFile { get; set; }
+
+        [CommandOption("--events <FILE>")]
+        [Description("Also write the events as CSV.")]
+        public string? EventsFile { get; set; }
+    }
+
+    public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
+    {
+        CounterSettings? options = settings.BuildOptions(out string? optionError);
+        if (options == null)
+        {
+            return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
+        }
+
+        int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
+        if (opened == null)
+        {
+            return openError;
+        }
+
+        ICaptureReader reader = opened;
+        using (reader)
+        {
+            ReadoutSettings? readout = settings.BuildReadoutSettings(reader.Metadata, out string? readoutError);
+            if (readout == null)
+            {
+                return CommandOutput.Fail(readoutError!, CommandOutput.BadOption);
+            }
+
+            CaptureGateSource source;
+            try
+            {
+                source = new CaptureGateSource(reader, options);
+            }
+            catch (ArgumentException e)
+            {
+                return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
+            }
+
+            ReplayReport report;
+            StreamWriter? readingsCsv = null;
+            try
+            {
+                readingsCsv = settings.ReadingsFile != null ? OpenCsv(settings.ReadingsFile, ReadingsHeader) : null;
+                var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
+                if (readingsCsv != null)
+                {
+                    session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
+                }
+
+                foreach (CaptureGate gate in source.ReadGates())
+                {
+                    cancellationToken.ThrowIfCancellationRequested();
+                    session.Process(gate);
+                }
+
+                report = session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings);
+            }
+            catch (CaptureFormatException e)
+            {
+                return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                return CommandOutput.Fail($"cannot write: {e.Message}", CommandOutput.BadInput);
+            }
+            finally
+            {
+                readingsCsv?.Dispose();
+            }
+
+            if (settings.EventsFile != null)
+            {
+                try
+                {
+                    using StreamWriter events = OpenCsv(settings.EventsFile, EventsHeader);
+                    foreach (ReplayEvent e in report.Events)
+                    {
+                        events.WriteLine(EventRow(e));
+                    }
+                }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                {
+                    return CommandOutput.Fail($"{settings.EventsFile}: cannot write: {e.Message}", CommandOutput.BadInput);
+                }
+            }
+
+            if (settings.Json)
+            {
+                Console.Out.WriteLine(ToJson(report));
+                Console.Out.Flush();
+                foreach (string w in report.Warnings)
+                {
+                    CommandOutput.Diagnostic("warning: " + w);
+                }
+
+                CommandOutput.Diagnostic(Caution);
+            }
+            else
+            {
+                WriteSummary(report, readout, source);
+            }
+
+            return 0;
+        }
+    }
+
+    /// <summary>JSON output options: plain UTF-8 text in strings (no escaping of '+' or quotes beyond JSON's own rules).</summary>
+    public static readonly JsonWriterOptions JsonOptions = new() { Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+
+    /// <summary>The report as the one JSON object of the contract (plus start_utc on events when known, shift on re-baselines, noise_ppm).</summary>
+    public static string ToJson(ReplayReport report)
+    {
+        var buffer = new System.Buffers.ArrayBufferWriter<byte>(4096);
+        using (var json = new Utf8JsonWriter(buffer, JsonOptions))
+        {
+            json.WriteStartObject();
+            json.WriteStartObject("capture");
+            json.WriteNumber("edges", report.Edges);
+            json.WriteNumber("duration_s", report.DurationSeconds);
+            json.WriteString("signal", report.Signal == SignalKind.Beat ? "beat" : "search");
+            json.WriteEndObject();
+            Nullable(json, "baseline_hz", report.BaselineHz);
+            Nullable(json, "noise_hz", report.NoiseHz);
+            Nullable(json, "noise_ppm", report.NoisePpm);
+            Nullable(json, "drift_hz_per_min", report.DriftHzPerMinute);
+            json.WriteNumber("gates", report.Gates);
+            json.WriteStartArray("rebaselines");
+            foreach (ReplayRebaseline r in report.Rebaselines)
+            {
+                json.WriteStartObject();
+                json.WriteNumber("time_s", r.TimeSeconds);
+                json.WriteString("reason", r.ReasonName);
+                Nullable(json, "shift_hz", r.ShiftHz);
+                Nullable(json, "shift_ppm", r.ShiftPpm);
+                json.WriteNumber("completed_s", r.CompletedSeconds);
+                json.WriteEndObject();
+            }
+
+            json.WriteEndArray();
+            json.WriteStartArray("events");
+            foreach (ReplayEvent e in report.Events)
+            {
+                json.WriteStartObject();
+                json.WriteNumber("start_s", e.Event.StartSeconds);
+                json.WriteNumber("end_s", e.Event.EndSeconds);
+                json.WriteNumber("peak_s", e.Event.PeakSeconds);
+                json.WriteNumber("peak_shift_hz", e.Event.PeakShiftHz);
+                Nullable(json, "peak_shift_ppm", e.Event.HasPpm ? e.Event.PeakShiftPpm : null);
+                json.WriteString("class", e.ClassName);
+                if (e.StartUtc is DateTimeOffset utc)
+                {
+                    json.WriteString("start_utc", utc.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture));
+                }
+
+                json.WriteEndObject();
+            }
+
+            json.WriteEndArray();
+            json.WriteStartArray("warnings");
+            foreach (string w in report.Warnings)
+            {
+                json.WriteStringValue(w);
+            }
+
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+
+        return Encoding.UTF8.GetString(buffer.WrittenSpan);
+    }
+
+    private static void Nullable(Utf8JsonWriter json, string name, double? value)
+    {
+        if (value is double v && double.IsFinite(v))
+        {
+            json.WriteNumber(name, v);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+
+    private const string ReadingsHeader = "time_s,state,frequency_hz,baseline_hz,shift_hz,shift_ppm,shift_sigma,noise_hz,drift_hz_per_s,temp_correction_hz,temp_c,target,hold,below_beat_floor,class,marks";
+    private const string EventsHeader = "start_s,end_s,peak_s,peak_shift_hz,peak_shift_ppm,peak_sigma,noise_hz,class,end,start_utc";
+
+    private static StreamWriter OpenCsv(string path, string header)
+    {
+        var w = new StreamWriter(path, false, new UTF8Encoding(false)) { NewLine = "\n" };
+        w.WriteLine(header);
+        return w;
+    }
+
+    private static string StateName(ReadoutState s) => s switch
+    {
+        ReadoutState.NoSignal => "no_signal",
+        ReadoutState.Settling => "settling",
+        ReadoutState.Tracking => "tracking",
+        ReadoutState.Target => "target",
+        _ => "hold",
+    };
+
+    private static string ReadingRow(in Reading r, CaptureGate g)
+    {
+        string N(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+        return string.Join(",",
+            N(r.TimeSeconds),
+            StateName(r.State),
+            r.HasFrequency ? N(r.FrequencyHz) : string.Empty,
+            r.HasShift ? N(r.BaselineHz) : string.Empty,
+            r.HasShift ? N(r.ShiftHz) : string.Empty,
+            r.HasShift && r.HasPpm ? N(r.ShiftPpm) : string.Empty,
+            r.HasShift ? N(r.ShiftSigma) : string.Empty,
+            r.HasShift ? N(r.NoiseHz) : string.Empty,
+            r.HasShift ? N(r.DriftHzPerSecond) : string.Empty,
+            N(r.TemperatureCorrectionHz),
+            g.LatestTemperatureC is double t ? N(t) : string.Empty,
+            r.TargetPresent ? "1" : "0",
+            r.HoldActive ? "1" : "0",
+            r.BelowBeatFloor ? "1" : "0",
+            r.TargetPresent ? ReplayEvent.ClassText(r.Class) : string.Empty,
+            string.Join(" ", g.Marks));
+    }
+
+    private static string EventRow(ReplayEvent e)
+    {
+        string N(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+        var d = e.Event;
+        return string.Join(",",
+            N(d.StartSeconds),
+            N(d.EndSeconds),
+            N(d.PeakSeconds),
+            N(d.PeakShiftHz),
+            d.HasPpm ? N(d.PeakShiftPpm) : string.Empty,
+            N(d.PeakSigma),
+            N(d.NoiseHz),
+            e.ClassName,
+            d.End.ToString().ToLowerInvariant(),
+            e.StartUtc is DateTimeOffset u ? u.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture) : string.Empty);
+    }
+
+    private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source)
+    {
+        var console = CommandOutput.Stdout();
+        string N(double? v, string f = "0.######") => v is double x ? x.ToString(f, CultureInfo.InvariantCulture) : "-";
+        var s = source.Settings;
+        var grid = new Grid().AddColumn().AddColumn();
+        grid.AddRow("capture", Markup.Escape(source.Reader.SourceName));
+        grid.AddRow("signal", report.Signal == SignalKind.Beat ? $"beat ({(readout.BeatSide == FreqReadout.Counting.BeatSide.Above ? "search above reference" : "search below reference")})" : "search oscillator");
+        grid.AddRow("edges", report.Edges.ToString(CultureInfo.InvariantCulture));
+        grid.AddRow("duration", N(report.DurationSeconds, "0.000") + " s");
+        grid.AddRow("gates", $"{report.Gates} ({(s.Mode == GateMode.Edges ? s.GateEdges + " intervals" : N(s.GateSeconds) + " s")}, {CountCommand.EstimatorName(s.Estimator)})");
+        grid.AddRow("baseline", N(report.BaselineHz, "0.000") + " Hz (first captured, counted signal)");
+        grid.AddRow("noise", $"{N(report.NoiseHz, "0.0000")} Hz, {N(report.NoisePpm, "0.000")} ppm (robust sigma of target-free residuals)");
+        grid.AddRow("drift", N(report.DriftHzPerMinute, "0.0000") + " Hz/min (least-squares slope of the tracked baseline)");
+        grid.AddRow("threshold", $"{N(readout.ThresholdSigma)} sigma, release {N(readout.ThresholdSigma - readout.HysteresisSigma)} sigma, unclear below {N(readout.ThresholdSigma + readout.UnclearBandSigma)} sigma, polarity {(readout.Polarity == FreqReadout.Detection.Polarity.Inverted ? "inverted" : "normal")}");
+        console.Write(grid);
+        console.WriteLine();
+
+        console.WriteLine($"re-baselines: {report.Rebaselines.Count}");
+        if (report.Rebaselines.Count > 0)
+        {
+            var t = new Table().Border(TableBorder.Simple);
+            t.AddColumn(new TableColumn("time s").RightAligned());
+            t.AddColumn("reason");
+            t.AddColumn(new TableColumn("shift Hz").RightAligned());
+            t.AddColumn(new TableColumn("shift ppm").RightAligned());
+            foreach (ReplayRebaseline r in report.Rebaselines)
+            {
+                t.AddRow(N(r.TimeSeconds, "0.000"), r.ReasonName, N(r.ShiftHz, "+0.000;-0.000;0.000"), N(r.ShiftPpm, "+0.000;-0.000;0.000"));
+            }
+
+            console.Write(t);
+        }
+
+        console.WriteLine($"events: {report.Events.Count}");
+        if (report.Events.Count > 0)
+        {
+            var t = new Table().Border(TableBorder.Simple);
+            t.AddColumn(new TableColumn("start s").RightAligned());
+            t.AddColumn(new TableColumn("end s").RightAligned());
+            t.AddColumn(new TableColumn("peak s").RightAligned());
+            t.AddColumn(new TableColumn("peak shift Hz").RightAligned());
+            t.AddColumn(new TableColumn("ppm").RightAligned());
+            t.AddColumn(new TableColumn("sigma").RightAligned());
+            t.AddColumn("class");
+            foreach (ReplayEvent e in report.Events)
+            {
+                var d = e.Event;
+                t.AddRow(N(d.StartSeconds, "0.000"), N(d.EndSeconds, "0.000"), N(d.PeakSeconds, "0.000"), N(d.PeakShiftHz, "+0.000;-0.000;0.000"), d.HasPpm ? N(d.PeakShiftPpm, "+0.00;-0.00;0.00") : "-", N(d.PeakSigma, "0.0"), e.ClassName);
+            }
+
+            console.Write(t);
+        }
+
+        foreach (string w in report.Warnings)
+        {
+            CommandOutput.Diagnostic("warning: " + w);
+        }
+
+        console.WriteLine();
+        console.WriteLine(Caution);
+    }
+}

@@ -1,0 +1,19 @@
+using FreqReadout.Detection;
+
+namespace FreqReadout.Host.Replay;
+
+/// <summary>An event in a replay report: the pipeline's <see cref="DetectionEvent"/> plus its UTC start when the capture's start is known.</summary>
+public sealed record ReplayEvent(DetectionEvent Event, DateTimeOffset? StartUtc)
+{
+    /// <summary>The JSON contract's class text.</summary>
+    public string ClassName => ClassText(Event.Class);
+
+    /// <summary>ferrous, non-ferrous or unclear.</summary>
+    public static string ClassText(TargetClass c) => c switch
+    {
+        TargetClass.Ferrous => "ferrous",
+        TargetClass.NonFerrous => "non-ferrous",
+        TargetClass.Unclear => "unclear",
+        _ => "none",
+    };
+}

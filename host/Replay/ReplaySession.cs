@@ -1,0 +1,249 @@
+using FreqReadout.Counting;
+using FreqReadout.Detection;
+using FreqReadout.Host.Calibration;
+using FreqReadout.Host.Counting;
+using FreqReadout.Numerics;
+using FreqReadout.Readout;
+using FreqReadout.Tracking;
+using MathNet.Numerics.Statistics;
+
+namespace FreqReadout.Host.Replay;
+
+/// <summary>
+/// Streams capture gates through the same <see cref="ReadoutPipeline"/> the device runs and gathers
+/// the replay summary. Per gate: a new temperature sample (mean of the gate's temp_c samples) is
+/// given to the pipeline first, then the gate is processed, then the gate's marks take effect
+/// (<c>rebaseline</c> requests a re-baseline, <c>hold</c> / <c>release</c> switch hold mode) — from the
+/// next gate on, as a button pressed during a gate would on the device. Other marks are carried.
+/// </summary>
+public sealed class ReplaySession
+{
+    /// <summary>Settling periods listed one by one in the warning; beyond this only a count.</summary>
+    public const int MaxListedSettling = 10;
+
+    private readonly ReadoutPipeline _pipeline;
+    private readonly ReadoutSettings _settings;
+    private readonly DateTimeOffset? _startedUtc;
+    private readonly List<double> _residuals = new();
+    private readonly List<double> _baselineTimes = new();
+    private readonly List<double> _baselines = new();
+    private readonly List<ReplayRebaseline> _rebaselines = new();
+    private readonly List<ReplayEvent> _events = new();
+    private readonly List<string> _warnings = new();
+    private readonly List<(double Start, double End)> _settling = new();
+    private readonly List<TempcoPoint> _tempcoPoints = new();
+    private double _settlingStart = double.NaN;
+    private long _gates;
+    private long _belowFloor;
+    private long _otherMarks;
+    private double _lastTime;
+    private bool _havePoint;
+    private double _pointTemperature;
+    private double _pointTime;
+    private double _pointSum;
+    private int _pointCount;
+    private bool _finished;
+
+    /// <summary>Starts a replay.</summary>
+    /// <exception cref="ArgumentException">The settings are invalid (message names the setting and its range).</exception>
+    public ReplaySession(ReadoutSettings settings, DateTimeOffset? startedUtc)
+    {
+        _settings = settings.Clone();
+        _pipeline = new ReadoutPipeline(settings);
+        _startedUtc = startedUtc;
+    }
+
+    /// <summary>Called with every reading and the gate it came from (for the readings CSV).</summary>
+    public Action<Reading, CaptureGate>? ReadingSink { get; set; }
+
+    /// <summary>Temperature points of target-free readings (for <c>calibrate</c>); complete after <see cref="Finish"/>.</summary>
+    public IReadOnlyList<TempcoPoint> TempcoPoints => _tempcoPoints;
+
+    /// <summary>Feeds one gate.</summary>
+    public void Process(CaptureGate item)
+    {
+        if (item.TemperatureC is double t)
+        {
+            _pipeline.SetTemperature(t);
+            ClosePoint();
+            _havePoint = true;
+            _pointTemperature = t;
+            _pointTime = item.Gate.EndSeconds;
+        }
+
+        _gates++;
+        _pipeline.Process(item.Gate, out Reading reading);
+        _lastTime = reading.TimeSeconds;
+        Observe(reading);
+        ReadingSink?.Invoke(reading, item);
+        Drain();
+
+        foreach (string mark in item.Marks)
+        {
+            switch (mark.Trim().ToLowerInvariant())
+            {
+                case "rebaseline":
+                    _pipeline.RequestRebaseline();
+                    break;
+                case "hold":
+                    _pipeline.SetHold(true);
+                    break;
+                case "release":
+                    _pipeline.SetHold(false);
+                    break;
+                default:
+                    _otherMarks++;
+                    break;
+            }
+        }
+    }
+
+    /// <summary>Ends the replay: closes an open event at the last gate and builds the report.</summary>
+    public ReplayReport Finish(long edges, SignalKind signal, IEnumerable<string> sourceWarnings)
+    {
+        if (_finished)
+        {
+            throw new InvalidOperationException("Finish was already called");
+        }
+
+        _finished = true;
+        ClosePoint();
+        if (_pipeline.TryCloseOpenEvent(out DetectionEvent open))
+        {
+            AddEvent(open);
+            _warnings.Add($"an event still open at the end (from {F(open.StartSeconds)} s) was closed at the last gate ({F(open.EndSeconds)} s)");
+        }
+
+        Drain();
+        if (!double.IsNaN(_settlingStart))
+        {
+            _settling.Add((_settlingStart, _lastTime));
+        }
+
+        if (_settling.Count > 0)
+        {
+            string periods = string.Join(", ", _settling.Take(MaxListedSettling).Select(p => $"{F(p.Start)}-{F(p.End)} s"));
+            if (_settling.Count > MaxListedSettling)
+            {
+                periods += $" and {_settling.Count - MaxListedSettling} more";
+            }
+
+            _warnings.Add($"events during settling are not reported (settling and baseline capture: {periods})");
+        }
+
+        if (_belowFloor > 0)
+        {
+            _warnings.Add($"{_belowFloor} readings had the beat note below beat_floor_hz = {F(_settings.BeatFloorHz)} Hz: their sign is unclear (the side can flip and the oscillators pull together near zero beat)");
+        }
+
+        if (_otherMarks > 0)
+        {
+            _warnings.Add($"{_otherMarks} marks other than rebaseline, hold and release were carried without effect");
+        }
+
+        double? baseline = _pipeline.HasFirstBaseline ? _pipeline.FirstBaselineHz : null;
+        if (baseline == null)
+        {
+            _warnings.Add($"no baseline was captured: the signal never lasted settling_s + baseline_s = {F(_settings.SettlingSeconds + _settings.BaselineSeconds)} s");
+        }
+
+        double? noise = null;
+        if (_residuals.Count > 0)
+        {
+            double[] r = _residuals.ToArray();
+            double median = ArrayStatistics.MedianInplace(r);
+            double[] dev = _residuals.Select(v => Math.Abs(v - median)).ToArray();
+            noise = RobustStatistics.MadToSigma * ArrayStatistics.MedianInplace(dev);
+        }
+
+        double? ppmRef = signal == SignalKind.Search ? baseline : (_settings.SearchHz > 0 ? _settings.SearchHz : null);
+        double? noisePpm = noise is double nz && ppmRef is double pr && pr > 0 ? nz / pr * 1e6 : null;
+
+        double? drift = null;
+        if (_baselines.Count >= 3 && LinearRegression.TryFit(_baselineTimes, _baselines, out LineFit fit, out _))
+        {
+            drift = fit.Slope * 60.0;
+        }
+
+        var warnings = new List<string>(sourceWarnings);
+        warnings.AddRange(_warnings);
+        return new ReplayReport(edges, _lastTime, signal, baseline, noise, noisePpm, drift, _gates, _rebaselines, _events, warnings);
+    }
+
+    private void Observe(in Reading reading)
+    {
+        if (reading.State == ReadoutState.Settling)
+        {
+            if (double.IsNaN(_settlingStart))
+            {
+                _settlingStart = reading.TimeSeconds - reading.SpanSeconds;
+            }
+        }
+        else if (!double.IsNaN(_settlingStart))
+        {
+            _settling.Add((_settlingStart, reading.TimeSeconds - reading.SpanSeconds));
+            _settlingStart = double.NaN;
+        }
+
+        if (reading.BelowBeatFloor)
+        {
+            _belowFloor++;
+        }
+
+        if (reading.HasShift)
+        {
+            _baselineTimes.Add(reading.TimeSeconds);
+            _baselines.Add(reading.BaselineHz);
+        }
+
+        if (reading.IsTargetFree)
+        {
+            _residuals.Add(reading.ShiftHz);
+            if (_havePoint)
+            {
+                _pointSum += reading.FrequencyHz;
+                _pointCount++;
+            }
+        }
+    }
+
+    private void ClosePoint()
+    {
+        if (_havePoint && _pointCount > 0)
+        {
+            _tempcoPoints.Add(new TempcoPoint(_pointTemperature, _pointSum / _pointCount, _pointTime, _pointCount));
+        }
+
+        _havePoint = false;
+        _pointSum = 0;
+        _pointCount = 0;
+    }
+
+    private void Drain()
+    {
+        while (_pipeline.TryTakeEvent(out DetectionEvent e))
+        {
+            AddEvent(e);
+        }
+
+        while (_pipeline.TryTakeRebaseline(out RebaselineNotice n))
+        {
+            if (n.Reason != RebaselineReason.Initial)
+            {
+                _rebaselines.Add(new ReplayRebaseline(n.RequestedSeconds, n.CompletedSeconds, n.Reason, n.ShiftHz, n.HasPpm ? n.ShiftPpm : null));
+            }
+
+            if (n.Outliers > 0)
+            {
+                _warnings.Add($"the baseline capture ending at {F(n.CompletedSeconds)} s rejected {n.Outliers} of {n.Gates} gates as outliers (something moved during settling?)");
+            }
+        }
+    }
+
+    private void AddEvent(in DetectionEvent e)
+    {
+        _events.Add(new ReplayEvent(e, _startedUtc?.AddSeconds(e.StartSeconds)));
+    }
+
+    private static string F(double v) => v.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture);
+}

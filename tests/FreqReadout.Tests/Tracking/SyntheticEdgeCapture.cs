@@ -1,0 +1,102 @@
+using FreqReadout.Counting;
+using FreqReadout.Host.Captures;
+
+namespace FreqReadout.Tests.Tracking;
+
+/// <summary>
+/// Writes a text edge capture with a known truth (invented test data) through the capture branch's
+/// <see cref="TextCaptureWriter"/>: the search frequency f_s(t) is a given profile; the counted signal
+/// is f_s or the beat |f_s - f_ref|, plus white FM noise constant over blocks of BlockSeconds
+/// (seeded RNG); every Prescale-th input edge is recorded as a timer tick (ClockHz, 64-bit).
+/// Temperature samples and marks go in at the first edge at or after their times.
+/// </summary>
+internal sealed class SyntheticEdgeCapture
+{
+    public double ClockHz { get; init; } = 10e6;
+    public int Prescale { get; init; } = 100;
+    public SignalKind Signal { get; init; } = SignalKind.Search;
+    public BeatSide BeatSide { get; init; } = BeatSide.None;
+    public double ReferenceHz { get; init; }
+    public double? SearchHz { get; init; }
+    public DateTimeOffset? StartedUtc { get; init; }
+    public double DurationSeconds { get; init; } = 60;
+    public double BlockNoiseHz { get; init; } = 0.3;
+    public double BlockSeconds { get; init; } = 0.01;
+    public int Seed { get; init; } = 1;
+    public Func<double, double> SearchHzAt { get; init; } = _ => 100_000;
+    public Func<double, double>? TemperatureC { get; init; }
+    public double TemperatureEverySeconds { get; init; } = 1.0;
+    public List<(double TimeSeconds, string Mark)> Marks { get; } = new();
+
+    /// <summary>Writes the capture to <paramref name="path"/>; returns the number of rows.</summary>
+    public long Write(string path)
+    {
+        var md = new CaptureMetadata
+        {
+            ClockHz = ClockHz,
+            Prescale = Prescale,
+            Signal = Signal,
+            BeatSide = Signal == SignalKind.Beat ? BeatSide : BeatSide.None,
+            SearchHz = SearchHz,
+            StartedUtc = StartedUtc,
+            Note = "synthetic test capture (invented data)",
+        };
+        if (TemperatureC != null)
+        {
+            md.ExtraColumns.Add(CaptureColumns.TemperatureC);
+        }
+
+        if (Marks.Count > 0)
+        {
+            md.ExtraColumns.Add(CaptureColumns.Mark);
+        }
+
+        var rng = new Random(Seed);
+        var marks = Marks.OrderBy(m => m.TimeSeconds).ToList();
+        int nextMark = 0;
+        double nextTemperature = 0;
+        long block = -1;
+        double blockNoise = 0;
+        long rows = 0;
+        using (ICaptureWriter writer = CaptureFile.Create(path, md, CaptureFileFormat.Text))
+        {
+            const ulong offset = 12345;
+            double t = 0;
+            while (t <= DurationSeconds)
+            {
+                double? temp = null;
+                if (TemperatureC != null && t >= nextTemperature)
+                {
+                    temp = Math.Round(TemperatureC(t), 4);
+                    nextTemperature += TemperatureEverySeconds;
+                }
+
+                string? mark = null;
+                if (nextMark < marks.Count && t >= marks[nextMark].TimeSeconds)
+                {
+                    mark = marks[nextMark].Mark;
+                    nextMark++;
+                }
+
+                ulong tick = offset + (ulong)Math.Round(t * ClockHz);
+                writer.WriteRow(new CaptureRow(rows + 1, tick, 0, temp, mark));
+                rows++;
+
+                long b = (long)Math.Floor(t / BlockSeconds);
+                if (b != block)
+                {
+                    block = b;
+                    blockNoise = BlockNoiseHz * SyntheticGateStream.Gaussian(rng);
+                }
+
+                double fs = SearchHzAt(t);
+                double counted = (Signal == SignalKind.Beat ? Math.Abs(fs - ReferenceHz) : fs) + blockNoise;
+                t += Prescale / counted;
+            }
+
+            writer.Complete(Array.Empty<KeyValuePair<string, string>>());
+        }
+
+        return rows;
+    }
+}
