@@ -15,10 +15,52 @@ public static class Program
         catch (CommandAppException e)
         {
             // Usage errors (unknown option, missing argument, a value of the wrong type): one line, no stack trace.
+            if (ConversionError(e.Message + " " + e.InnerException?.Message, args) is string conversion)
+            {
+                Console.Error.WriteLine("error: " + conversion + "; see freqreadout --help");
+                return 2;
+            }
+
             string detail = e.InnerException is { } inner && inner.Message != e.Message ? " (" + inner.Message + ")" : string.Empty;
             Console.Error.WriteLine("error: " + e.Message.TrimEnd('.') + detail + "; see freqreadout --help");
             return 2;
         }
+    }
+
+    /// <summary>
+    /// Spectre's "Failed to convert 'X' to Nullable`1" (an option value of the wrong type) as a line that
+    /// names the option and what it takes; null for any other message.
+    /// </summary>
+    internal static string? ConversionError(string message, string[] args)
+    {
+        var match = System.Text.RegularExpressions.Regex.Match(message, @"^Failed to convert '(?<value>.*)' to ");
+        if (!match.Success)
+        {
+            return null;
+        }
+
+        string value = match.Groups["value"].Value;
+        string kind = message.Contains("Int32", StringComparison.Ordinal) || message.Contains("Int64", StringComparison.Ordinal)
+            ? "a whole number (digits only)"
+            : message.Contains("Double", StringComparison.Ordinal) ? "a number with '.' as the decimal separator" : "a value of another kind";
+        string option = "an option";
+        for (int i = 0; i < args.Length; i++)
+        {
+            if (args[i] == value && i > 0 && args[i - 1].StartsWith("-", StringComparison.Ordinal))
+            {
+                option = args[i - 1];
+                break;
+            }
+
+            int eq = args[i].IndexOf('=');
+            if (args[i].StartsWith("-", StringComparison.Ordinal) && eq > 0 && args[i][(eq + 1)..] == value)
+            {
+                option = args[i][..eq];
+                break;
+            }
+        }
+
+        return $"{option} must be {kind}, got '{value}'";
     }
 
     /// <summary>The command tree; tests run commands through this too.</summary>

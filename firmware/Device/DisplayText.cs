@@ -22,7 +22,7 @@ namespace FreqReadout.Firmware.Device
             return "F " + reading.FrequencyHz.ToString("F1") + " Hz";
         }
 
-        /// <summary>Line 2: "d +12.35 Hz +95 ppm", "settling...", or blank without signal.</summary>
+        /// <summary>Line 2: "d +12.35 Hz +95 ppm", "settling..." before the baseline, or "check input" without signal.</summary>
         public static string ShiftLine(Reading reading)
         {
             if (reading.State == ReadoutState.NoSignal)

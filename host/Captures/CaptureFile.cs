@@ -29,7 +29,14 @@ public static class CaptureFile
     public static ICaptureReader Open(Stream stream, string sourceName)
     {
         var buffered = stream.CanSeek ? stream : new BufferedStream(stream, 65536);
-        return DetectFormat(buffered, out Stream rest) == CaptureFileFormat.Binary
+        var format = DetectFormat(buffered, out Stream rest, out int headBytes, out bool magicPrefix);
+        if (format == CaptureFileFormat.Text && magicPrefix)
+        {
+            // A binary capture cut inside its magic (e.g. by `head -c`) would otherwise read as text with a bad byte.
+            throw new CaptureFormatException(sourceName, 0, $"the file ends after {headBytes} of the {BinaryCaptureFormat.Magic.Length} bytes of the binary capture magic: a truncated binary capture, no rows are readable");
+        }
+
+        return format == CaptureFileFormat.Binary
             ? new BinaryCaptureReader(rest, sourceName)
             : new TextCaptureReader(rest, sourceName);
     }
@@ -38,7 +45,7 @@ public static class CaptureFile
     public static CaptureFileFormat DetectFormat(string path)
     {
         using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-        return DetectFormat(stream, out _);
+        return DetectFormat(stream, out _, out _, out _);
     }
 
     /// <summary>Creates (overwrites) a capture file in the given format; the header is written at once.</summary>
@@ -69,7 +76,8 @@ public static class CaptureFile
     /// Peeks at the first bytes: the binary magic means binary, anything else is handed to the text
     /// reader (which reports "not a capture" when the magic line is missing too).
     /// </summary>
-    private static CaptureFileFormat DetectFormat(Stream stream, out Stream rest)
+    /// <param name="magicPrefix">True when the file is shorter than the magic but every byte it has matches it.</param>
+    private static CaptureFileFormat DetectFormat(Stream stream, out Stream rest, out int headBytes, out bool magicPrefix)
     {
         byte[] magic = BinaryCaptureFormat.Magic;
         byte[] head = new byte[magic.Length];
@@ -86,6 +94,8 @@ public static class CaptureFile
         }
 
         bool binary = n == magic.Length && head.AsSpan().SequenceEqual(magic);
+        headBytes = n;
+        magicPrefix = n > 0 && n < magic.Length && head.AsSpan(0, n).SequenceEqual(magic.AsSpan(0, n));
         rest = new PrefixedStream(head, n, stream);
         return binary ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
     }

@@ -91,9 +91,13 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         {
             return CommandErrors.Fail(ex.Message);
         }
-        catch (ArgumentOutOfRangeException ex)
+        catch (ArgumentOutOfRangeException)
         {
-            return CommandErrors.Fail(ex.Message);
+            // The inductance change reached -L or beyond (LcResonance): the target overlaps the coil's field so much
+            // that the small-dipole model gives no frequency at all.
+            return CommandErrors.Fail(
+                $"a {Fmt(settings.RadiusMm)} mm target at these --depths-mm changes the coil's inductance by more than the model allows " +
+                "(dL/L <= -1): the small-dipole model does not hold this close; give a smaller --radius-mm or larger --depths-mm");
         }
 
         if (settings.Json)
@@ -120,6 +124,11 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             osc = scene.Oscillator;
         }
 
+        CheckMm("--diameter-mm", s.DiameterMm, 5, 5000, "(5, 5000] mm", zeroAllowed: false);
+        CheckMm("--wire-mm", s.WireMm, 0, 10, "(0, 10) mm", zeroAllowed: false, upperOpen: true);
+        double diameterMm = s.DiameterMm ?? coil.MeanDiameterM * 1000;
+        CheckMm("--winding-length-mm", s.WindingLengthMm, 0, diameterMm, $"0 (from the wire) or (0, {Fmt(diameterMm)}) mm, below the diameter", zeroAllowed: true, upperOpen: true);
+        CheckMm("--winding-depth-mm", s.WindingDepthMm, 0, diameterMm / 2, $"0 (from the wire) or (0, {Fmt(diameterMm / 2)}) mm, below half the diameter", zeroAllowed: true, upperOpen: true);
         if (s.Turns.HasValue) coil.Turns = s.Turns.Value;
         if (s.DiameterMm.HasValue) coil.MeanDiameterM = s.DiameterMm.Value / 1000;
         if (s.WindingLengthMm.HasValue) coil.WindingLengthM = s.WindingLengthMm.Value / 1000;
@@ -183,6 +192,21 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
                 throw new SceneException($"--radius-mm must be in (0, 1000] mm (got {Fmt(s.RadiusMm)})");
             }
 
+            if (s.Conductivity.HasValue && !(s.Conductivity > 0 && s.Conductivity <= 1e9))
+            {
+                throw new SceneException($"--conductivity must be in (0, 1e9] S/m (got {Fmt(s.Conductivity.Value)})");
+            }
+
+            if (s.MuR.HasValue && !(s.MuR >= 1 && s.MuR <= 1e6))
+            {
+                throw new SceneException($"--mu-r must be in [1, 1e6] (got {Fmt(s.MuR.Value)})");
+            }
+
+            if (s.Material.Trim().Equals("custom", StringComparison.OrdinalIgnoreCase) && !s.Conductivity.HasValue)
+            {
+                throw new SceneException("--material custom needs --conductivity <S_PER_M>, in (0, 1e9] S/m (and --mu-r, default 1)");
+            }
+
             var target = new SceneTarget { Material = s.Material, MuR = s.MuR, ConductivitySPerM = s.Conductivity };
             if (!FreqReadout.Host.Simulation.Scene.TryResolveMaterial(target, out Material m, out string? why))
             {
@@ -223,6 +247,21 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
 
     private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
 
+    /// <summary>Checks a length option in millimetres against its range, naming the option as the user typed it.</summary>
+    private static void CheckMm(string option, double? valueMm, double lowMm, double highMm, string range, bool zeroAllowed, bool upperOpen = false)
+    {
+        if (valueMm is not double v)
+        {
+            return;
+        }
+
+        bool ok = (zeroAllowed && v == 0) || (v > lowMm && (upperOpen ? v < highMm : v <= highMm));
+        if (!ok)
+        {
+            throw new SceneException($"{option} must be {range} (got {Fmt(v)})");
+        }
+    }
+
     private static void Print(CoilReport r)
     {
         var console = CommandErrors.Stdout();
@@ -250,7 +289,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
 
         console.MarkupLine(Markup.Escape(
             $"target: {t.Material} sphere, radius {(t.RadiusM * 1000).ToString("F1", ci)} mm, sigma {t.ConductivitySPerM.ToString("G3", ci)} S/m, mu_r {t.MuR.ToString("G4", ci)}; " +
-            $"skin depth {(t.SkinDepthM * 1000).ToString("F3", ci)} mm; M/(2 pi a^3) = {t.PolarizabilityRe.ToString("F5", ci)} {t.PolarizabilityIm.ToString("+0.00000;-0.00000", ci)}i"));
+            $"skin depth {(t.SkinDepthM * 1000).ToString("F3", ci)} mm; M/(2 pi a^3) = {t.PolarizabilityRe.ToString("F5", ci)} {(t.PolarizabilityIm < 0 ? "-" : "+")} {Math.Abs(t.PolarizabilityIm).ToString("F5", ci)}i"));
         if (t.CrossoverHz is double fx)
         {
             string side = t.AboveCrossover == true

@@ -7,10 +7,10 @@ internal static class CommandErrors
 {
     public const int UsageError = 2;
 
+    /// <summary>Writes "error: ..." as one plain line to stderr (never wrapped at the console width) and returns <see cref="UsageError"/>.</summary>
     public static int Fail(string message)
     {
-        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
-        err.MarkupLine("[red]error:[/] " + Markup.Escape(message));
+        Console.Error.WriteLine("error: " + message);
         return UsageError;
     }
 

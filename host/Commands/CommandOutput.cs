@@ -57,7 +57,7 @@ public static class CommandOutput
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            return Fail($"{path}: cannot open the capture: {e.Message}", BadInput);
+            return Fail($"{path}: cannot open the capture: {FileErrorText.Reason(path, e)}", BadInput);
         }
     }
 

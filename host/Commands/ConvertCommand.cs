@@ -130,12 +130,17 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
                 TryDelete(settings.Output);
-                return CommandOutput.Fail($"{settings.Output}: cannot write the capture: {e.Message}", CommandOutput.BadInput);
+                return CommandOutput.Fail($"{settings.Output}: cannot write the capture: {FileErrorText.Reason(settings.Output, e)}", CommandOutput.BadInput);
             }
 
             foreach (string warning in reader.Warnings)
             {
                 CommandOutput.Diagnostic("warning: " + warning);
+            }
+
+            if (trim && kept == 0 && read > 0)
+            {
+                CommandOutput.Diagnostic($"warning: no row lies in the range from {Num(from)} s to {(settings.ToSeconds != null ? Num(until) + " s" : "the end")} (--from-s, --to-s): {settings.Output} holds the header only");
             }
 
             CommandOutput.Diagnostic($"{settings.Output}: {(outputFormat == CaptureFileFormat.Binary ? "binary" : "text")} capture, {kept} of {read} rows");

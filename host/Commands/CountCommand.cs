@@ -106,8 +106,14 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         }
     }
 
+    /// <summary>Why no gate closed: no data rows at all, or fewer than one gate's worth.</summary>
+    private static string NoGateText(CaptureGateSource source) => source.RowsRead == 0
+        ? "no gate closed: the capture holds no data rows"
+        : "no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)";
+
     private static void WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
     {
+        long gates = 0;
         var stdout = Console.Out;
         var buffer = new System.Buffers.ArrayBufferWriter<byte>(256);
         bool hasTemp = source.Metadata.HasTemperatureColumn;
@@ -155,9 +161,15 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             }
 
             stdout.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.WrittenSpan));
+            gates++;
         }
 
         stdout.Flush();
+        if (gates == 0)
+        {
+            // stdout stays pure JSON lines (none here); the reason goes to stderr.
+            CommandOutput.Diagnostic("warning: " + NoGateText(source));
+        }
     }
 
     private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
@@ -187,46 +199,52 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         long gates = 0;
         long withFrequency = 0;
         Table? table = null;
-        foreach (var item in source.ReadGates())
+        try
         {
-            cancellationToken.ThrowIfCancellationRequested();
-            var gate = item.Gate;
-            if (gate.HasFrequency && reference == null)
+            foreach (var item in source.ReadGates())
             {
-                reference = gate.FrequencyHz;
-            }
+                cancellationToken.ThrowIfCancellationRequested();
+                var gate = item.Gate;
+                if (gate.HasFrequency && reference == null)
+                {
+                    reference = gate.FrequencyHz;
+                }
 
-            table ??= NewTable();
-            table.AddRow(
-                new Text(Num(gate.EndSeconds, "0.000000")),
-                new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
-                new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
-                new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
-                new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
-                new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
-            gates++;
-            if (gate.HasFrequency)
-            {
-                withFrequency++;
-            }
+                table ??= NewTable();
+                table.AddRow(
+                    new Text(Num(gate.EndSeconds, "0.000000")),
+                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
+                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
+                    new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
+                    new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
+                    new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+                gates++;
+                if (gate.HasFrequency)
+                {
+                    withFrequency++;
+                }
 
-            if (table.Rows.Count >= RowsPerTable)
-            {
-                console.Write(table);
-                table = null;
+                if (table.Rows.Count >= RowsPerTable)
+                {
+                    console.Write(table);
+                    table = null;
+                }
             }
         }
-
-        if (table != null)
+        finally
         {
-            console.Write(table);
+            // Gates counted before a malformed row (or a corrupt binary block) are still shown.
+            if (table != null)
+            {
+                console.Write(table);
+            }
         }
 
         console.WriteLine();
         console.WriteLine($"{gates} gates ({withFrequency} with a frequency) from {source.RowsRead} rows; {source.FlaggedSteps} rows skipped");
         if (gates == 0)
         {
-            console.WriteLine("no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)");
+            console.WriteLine(NoGateText(source));
         }
 
         CaptureMetadataView.WriteTrailer(console, source.Reader);

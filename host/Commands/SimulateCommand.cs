@@ -75,7 +75,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {
-                return CommandErrors.Fail($"{settings.SaveScene}: cannot write the scene file ({ex.Message})");
+                return CommandErrors.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}");
             }
         }
 
@@ -114,7 +114,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{settings.Out}: cannot write the capture ({ex.Message})");
+            return CommandErrors.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}");
         }
 
         try
@@ -123,7 +123,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{truthPath}: cannot write the truth file ({ex.Message})");
+            return CommandErrors.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}");
         }
 
         PrintSummary(settings.Out, truthPath, truth);
@@ -193,14 +193,22 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         return truth!;
     }
 
+    /// <summary>A shift with its sign and three decimals (scientific below a millihertz), so the column lines up.</summary>
+    private static string SignedHz(double hz)
+    {
+        var ci = CultureInfo.InvariantCulture;
+        string text = hz != 0 && Math.Abs(hz) < 0.001 ? hz.ToString("+0.00E+0;-0.00E+0", ci) : hz.ToString("+0.000;-0.000;0.000", ci);
+        return text;
+    }
+
     private static void PrintSummary(string capturePath, string truthPath, SimulationTruth t)
     {
         var console = CommandErrors.Stdout();
         var ci = CultureInfo.InvariantCulture;
         console.MarkupLine(Markup.Escape(
-            $"wrote {capturePath}: {t.Rows.ToString(ci)} rows ({t.Kind}), {t.DurationS.ToString("F1", ci)} s, {t.Signal}" +
+            $"wrote {capturePath}: {t.Rows.ToString(ci)} rows ({t.Kind}), {t.DurationS.ToString("F1", ci)} s, signal {t.Signal}" +
             (t.BeatSide is null ? string.Empty : $" (beat_side {t.BeatSide})") +
-            $", search {t.SearchNominalHz.ToString("F1", ci)} Hz; truth in {truthPath}"));
+            $", search oscillator {t.SearchNominalHz.ToString("F1", ci)} Hz; truth in {truthPath}"));
         if (t.GlitchCount > 0 || t.DropoutCount > 0)
         {
             console.MarkupLine(Markup.Escape($"injected: {t.GlitchCount} glitches, {t.DropoutCount} dropouts"));
@@ -217,7 +225,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
                     Markup.Escape(target.Name),
                     target.MaterialClass,
                     target.SignRuleClass + (target.SignRuleClass != target.MaterialClass ? " (!)" : string.Empty),
-                    peak.ToString("G4", ci),
+                    SignedHz(peak),
                     target.CrossoverHz is double fx ? (fx / 1000).ToString("F2", ci) : "-");
             }
 
@@ -233,7 +241,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
 
         foreach (string w in t.Warnings)
         {
-            CommandErrors.Stderr().MarkupLine("[yellow]warning:[/] " + Markup.Escape(w));
+            Console.Error.WriteLine("warning: " + w);
         }
     }
 

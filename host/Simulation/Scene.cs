@@ -63,7 +63,7 @@ public sealed class Scene
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            throw new SceneException($"{path}: cannot read the scene file ({ex.Message})", ex);
+            throw new SceneException($"{path}: cannot read the scene file: {FreqReadout.Host.Commands.FileErrorText.Reason(path, ex)}", ex);
         }
 
         return Parse(text, path);
@@ -79,9 +79,9 @@ public sealed class Scene
         }
         catch (JsonException ex)
         {
-            string where = ex.LineNumber.HasValue ? $"line {ex.LineNumber.Value + 1}" : "?";
-            string path = string.IsNullOrEmpty(ex.Path) ? string.Empty : $" at {ex.Path}";
-            throw new SceneException($"{sourceName}: {where}{path}: not a valid scene ({FirstSentence(ex.Message)})", ex);
+            string where = ex.LineNumber.HasValue ? $":{ex.LineNumber.Value + 1}" : string.Empty;
+            string path = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? string.Empty : $" at {ex.Path}";
+            throw new SceneException($"{sourceName}{where}: not a valid scene file (JSON, see host/Scenes/README.md){path}: {FirstSentence(ex.Message)}", ex);
         }
 
         if (scene is null)
@@ -248,7 +248,9 @@ public sealed class Scene
     private static string FirstSentence(string message)
     {
         int i = message.IndexOf(" Path:", StringComparison.Ordinal);
-        return i > 0 ? message[..i] : message;
+        string text = i > 0 ? message[..i] : message;
+        int stop = text.IndexOf(". ", StringComparison.Ordinal);
+        return (stop > 0 ? text[..stop] : text).TrimEnd('.');
     }
 
     private static JsonSerializerOptions CreateOptions()

@@ -57,7 +57,7 @@ public class SceneFileTests
         string json = "{\n  \"name\": \"x\",\n  \"coil\": { \"turnz\": 3 }\n}";
         var ex = Assert.Throws<SceneException>(() => Scene.Parse(json, "bad.json"));
         Assert.Contains("bad.json", ex.Message);
-        Assert.Contains("line 3", ex.Message);
+        Assert.Contains("bad.json:3:", ex.Message); // file:line, as every user error
         Assert.Contains("turnz", ex.Message);
     }
 
