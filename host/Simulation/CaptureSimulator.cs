@@ -620,10 +620,16 @@ public sealed class CaptureSimulator
         /// <summary>White-FM level of the counted signal over the current step, Hz sqrt(s).</summary>
         public double WhiteSigmaHzRootS => _sigmaA;
 
+        /// <summary>End of the control step holding t (same boundary rule as <see cref="Segment"/>), s: always later than t.</summary>
         public double NextBoundaryAfter(double timeS)
         {
-            long i = (long)Math.Floor(timeS / _step) + 1;
-            return i * _step;
+            long i = (long)Math.Floor(timeS / _step);
+            if ((i + 1) * _step - timeS <= 1e-12 * Math.Max(1.0, timeS))
+            {
+                i++;
+            }
+
+            return (i + 1) * _step;
         }
 
         /// <summary>
