@@ -8,9 +8,17 @@ public static class Program
 {
     public static int Main(string[] args)
     {
+        // Numbers in messages and output use '.' whatever the machine's culture (the capture contract's rule).
+        System.Globalization.CultureInfo.DefaultThreadCurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
+        System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
         try
         {
-            return BuildApp().Run(args);
+            return BuildApp(args).Run(args);
+        }
+        catch (MissingOptionValueException e)
+        {
+            Console.Error.WriteLine("error: " + e.Message + "; see freqreadout --help");
+            return 2;
         }
         catch (CommandAppException e)
         {
@@ -64,12 +72,16 @@ public static class Program
     }
 
     /// <summary>The command tree; tests run commands through this too.</summary>
-    public static CommandApp BuildApp()
+    public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
+
+    /// <summary>The command tree for the command line <paramref name="args"/> (checked for options given without their value).</summary>
+    public static CommandApp BuildApp(string[] args)
     {
         var app = new CommandApp();
         app.Configure(config =>
         {
             config.SetApplicationName("freqreadout");
+            config.SetInterceptor(new MissingValueInterceptor(args));
             config.PropagateExceptions();
             config.UseStrictParsing(); // an unknown or misspelt option is an error, never silently ignored
             config.AddCommand<DemoCommand>("demo")

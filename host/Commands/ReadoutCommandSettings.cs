@@ -120,7 +120,7 @@ public class ReadoutCommandSettings : CounterOptionSettings
         {
             if (!OptionValues.TryNumber(SearchHz, out double searchHz))
             {
-                error = $"--search-hz must be a number (Hz), got '{SearchHz}'";
+                error = $"--search-hz must be a number (Hz){RangeOf(r => r.SearchHz = double.NaN)}, got '{SearchHz}'";
                 return null;
             }
 
@@ -143,23 +143,23 @@ public class ReadoutCommandSettings : CounterOptionSettings
             }
         }
 
-        var numbers = new (string? Text, string Option, Action<double> Set)[]
+        var numbers = new (string? Text, string Option, Action<ReadoutSettings, double> Set)[]
         {
-            (ThresholdSigma, "--threshold-sigma", v => s.ThresholdSigma = v),
-            (HysteresisSigma, "--hysteresis-sigma", v => s.HysteresisSigma = v),
-            (MinDurationSeconds, "--min-duration-s", v => s.MinDurationSeconds = v),
-            (ReleaseSeconds, "--release-s", v => s.ReleaseSeconds = v),
-            (UnclearBandSigma, "--unclear-band-sigma", v => s.UnclearBandSigma = v),
-            (PersistentShiftSeconds, "--persistent-shift-s", v => s.PersistentShiftSeconds = v),
-            (SettlingSeconds, "--settling-s", v => s.SettlingSeconds = v),
-            (BaselineSeconds, "--baseline-s", v => s.BaselineSeconds = v),
-            (OutlierSigma, "--outlier-sigma", v => s.OutlierSigma = v),
-            (NoiseFloorHz, "--noise-floor-hz", v => s.NoiseFloorHz = v),
-            (TrackerLevelSeconds, "--tracker-level-s", v => s.TrackerLevelSeconds = v),
-            (TrackerSlopeSeconds, "--tracker-slope-s", v => s.TrackerSlopeSeconds = v),
-            (GuardSigma, "--guard-sigma", v => s.GuardSigma = v),
-            (BeatFloorHz, "--beat-floor-hz", v => s.BeatFloorHz = v),
-            (TempcoPpmPerK, "--tempco-ppm-per-k", v => s.TempcoPpmPerK = v),
+            (ThresholdSigma, "--threshold-sigma", (r, v) => r.ThresholdSigma = v),
+            (HysteresisSigma, "--hysteresis-sigma", (r, v) => r.HysteresisSigma = v),
+            (MinDurationSeconds, "--min-duration-s", (r, v) => r.MinDurationSeconds = v),
+            (ReleaseSeconds, "--release-s", (r, v) => r.ReleaseSeconds = v),
+            (UnclearBandSigma, "--unclear-band-sigma", (r, v) => r.UnclearBandSigma = v),
+            (PersistentShiftSeconds, "--persistent-shift-s", (r, v) => r.PersistentShiftSeconds = v),
+            (SettlingSeconds, "--settling-s", (r, v) => r.SettlingSeconds = v),
+            (BaselineSeconds, "--baseline-s", (r, v) => r.BaselineSeconds = v),
+            (OutlierSigma, "--outlier-sigma", (r, v) => r.OutlierSigma = v),
+            (NoiseFloorHz, "--noise-floor-hz", (r, v) => r.NoiseFloorHz = v),
+            (TrackerLevelSeconds, "--tracker-level-s", (r, v) => r.TrackerLevelSeconds = v),
+            (TrackerSlopeSeconds, "--tracker-slope-s", (r, v) => r.TrackerSlopeSeconds = v),
+            (GuardSigma, "--guard-sigma", (r, v) => r.GuardSigma = v),
+            (BeatFloorHz, "--beat-floor-hz", (r, v) => r.BeatFloorHz = v),
+            (TempcoPpmPerK, "--tempco-ppm-per-k", (r, v) => r.TempcoPpmPerK = v),
         };
         foreach (var (text, option, set) in numbers)
         {
@@ -170,18 +170,18 @@ public class ReadoutCommandSettings : CounterOptionSettings
 
             if (!OptionValues.TryNumber(text, out double value))
             {
-                error = $"{option} must be a number, got '{text}'";
+                error = $"{option} must be a number{RangeOf(v => set(v, double.NaN))}, got '{text}'";
                 return null;
             }
 
-            set(value);
+            set(s, value);
         }
 
-        var integers = new (string? Text, string Option, Action<int> Set)[]
+        var integers = new (string? Text, string Option, Action<ReadoutSettings, int> Set)[]
         {
-            (BaselineMaxGates, "--baseline-max-gates", v => s.BaselineMaxGates = v),
-            (NoiseWindowGates, "--noise-window-gates", v => s.NoiseWindowGates = v),
-            (TrackerDelayGates, "--tracker-delay-gates", v => s.TrackerDelayGates = v),
+            (BaselineMaxGates, "--baseline-max-gates", (r, v) => r.BaselineMaxGates = v),
+            (NoiseWindowGates, "--noise-window-gates", (r, v) => r.NoiseWindowGates = v),
+            (TrackerDelayGates, "--tracker-delay-gates", (r, v) => r.TrackerDelayGates = v),
         };
         foreach (var (text, option, set) in integers)
         {
@@ -192,11 +192,11 @@ public class ReadoutCommandSettings : CounterOptionSettings
 
             if (!int.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int value))
             {
-                error = $"{option} must be an integer, got '{text}'";
+                error = $"{option} must be an integer{RangeOf(v => set(v, int.MinValue))}, got '{text}'";
                 return null;
             }
 
-            set(value);
+            set(s, value);
         }
 
         if (!s.TryValidate(out string settingError))
@@ -209,6 +209,25 @@ public class ReadoutCommandSettings : CounterOptionSettings
         }
 
         return s;
+    }
+
+    /// <summary>
+    /// " in [lo, hi]": the allowed range of one setting, taken from <see cref="ReadoutSettings.TryValidate"/>
+    /// itself (the setting is made invalid on a default copy), so the text never differs from the range check.
+    /// </summary>
+    private static string RangeOf(Action<ReadoutSettings> makeInvalid)
+    {
+        var probe = new ReadoutSettings();
+        makeInvalid(probe);
+        if (probe.TryValidate(out string message))
+        {
+            return string.Empty;
+        }
+
+        int must = message.IndexOf(" must be ", StringComparison.Ordinal);
+        int at = must < 0 ? -1 : message.IndexOf(" in ", must, StringComparison.Ordinal);
+        int got = message.LastIndexOf(", got ", StringComparison.Ordinal);
+        return at > 0 && got > at ? message[at..got] : string.Empty;
     }
 
     /// <summary>Invariant number text.</summary>

@@ -89,7 +89,10 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
-                return CommandOutput.Fail($"cannot write: {e.Message}", CommandOutput.BadInput);
+                // Either the readings file could not be opened or written, or the capture could not be read.
+                string file = settings.ReadingsFile ?? settings.Capture;
+                string what = settings.ReadingsFile != null ? "cannot write the readings" : "cannot read the capture";
+                return CommandOutput.Fail($"{file}: {what}: {FileErrorText.Reason(file, e)}", CommandOutput.BadInput);
             }
             finally
             {
@@ -108,7 +111,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 }
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException)
                 {
-                    return CommandOutput.Fail($"{settings.EventsFile}: cannot write: {e.Message}", CommandOutput.BadInput);
+                    return CommandOutput.Fail($"{settings.EventsFile}: cannot write the events: {FileErrorText.Reason(settings.EventsFile, e)}", CommandOutput.BadInput);
                 }
             }
 

@@ -113,7 +113,7 @@ namespace FreqReadout.Readout
 
             if (BaselineMaxGates < 8 || BaselineMaxGates > 8192)
             {
-                return Bad(out error, "baseline_max_gates", "integer [8, 8192]", BaselineMaxGates);
+                return BadInteger(out error, "baseline_max_gates", "[8, 8192]", BaselineMaxGates);
             }
 
             if (!InRange(OutlierSigma, 2, 20))
@@ -123,7 +123,7 @@ namespace FreqReadout.Readout
 
             if (NoiseWindowGates < 16 || NoiseWindowGates > 4096)
             {
-                return Bad(out error, "noise_window_gates", "integer [16, 4096]", NoiseWindowGates);
+                return BadInteger(out error, "noise_window_gates", "[16, 4096]", NoiseWindowGates);
             }
 
             if (!InRange(NoiseFloorHz, 0, 1e6) || NoiseFloorHz == 0)
@@ -143,7 +143,7 @@ namespace FreqReadout.Readout
 
             if (TrackerDelayGates < 0 || TrackerDelayGates > 1000)
             {
-                return Bad(out error, "tracker_delay_gates", "integer [0, 1000]", TrackerDelayGates);
+                return BadInteger(out error, "tracker_delay_gates", "[0, 1000]", TrackerDelayGates);
             }
 
             if (!InRange(GuardSigma, 0, 100) || GuardSigma == 0)
@@ -238,6 +238,12 @@ namespace FreqReadout.Readout
         private static bool InRange(double value, double lo, double hi)
         {
             return value >= lo && value <= hi;
+        }
+
+        private static bool BadInteger(out string error, string name, string range, int value)
+        {
+            error = name + " must be an integer in " + range + ", got " + value.ToString();
+            return false;
         }
 
         private static bool Bad(out string error, string name, string range, double value)

@@ -21,6 +21,8 @@ internal static class ConsoleCapture
     {
         var savedOut = Console.Out;
         var savedErr = Console.Error;
+        var savedCulture = System.Globalization.CultureInfo.CurrentCulture;
+        var savedDefaultCulture = System.Globalization.CultureInfo.DefaultThreadCurrentCulture;
         var stdout = new StringWriter { NewLine = "\n" };
         var stderr = new StringWriter { NewLine = "\n" };
         try
@@ -34,6 +36,8 @@ internal static class ConsoleCapture
         {
             Console.SetOut(savedOut);
             Console.SetError(savedErr);
+            System.Globalization.CultureInfo.CurrentCulture = savedCulture; // Program.Main switches to the invariant culture
+            System.Globalization.CultureInfo.DefaultThreadCurrentCulture = savedDefaultCulture;
         }
     }
 }

@@ -1,0 +1,48 @@
+using System.Reflection;
+using Spectre.Console.Cli;
+
+namespace FreqReadout.Host.Commands;
+
+/// <summary>
+/// Catches an option given without its value (<c>--threshold-sigma</c> at the end of the line, or
+/// followed by another option): Spectre.Console.Cli 0.57 then fills the value with its internal
+/// command name instead of failing, which would reach the user as "got '__default_command'" or,
+/// for a file option, silently write a file of that name. Throws <see cref="MissingOptionValueException"/>.
+/// </summary>
+public sealed class MissingValueInterceptor : ICommandInterceptor
+{
+    /// <summary>The value Spectre puts in an option whose value is missing.</summary>
+    public const string SpectrePlaceholder = "__default_command";
+
+    private readonly string[] _args;
+
+    /// <summary>Checks against the command line as typed (a user who really typed the placeholder is left alone).</summary>
+    public MissingValueInterceptor(string[] args)
+    {
+        _args = args;
+    }
+
+    /// <inheritdoc />
+    public void Intercept(CommandContext context, CommandSettings settings)
+    {
+        if (Array.IndexOf(_args, SpectrePlaceholder) >= 0)
+        {
+            return;
+        }
+
+        foreach (PropertyInfo property in settings.GetType().GetProperties(BindingFlags.Public | BindingFlags.Instance))
+        {
+            CommandOptionAttribute? option = property.GetCustomAttribute<CommandOptionAttribute>();
+            if (option == null || property.PropertyType != typeof(string))
+            {
+                continue;
+            }
+
+            if (property.GetValue(settings) is string value && value == SpectrePlaceholder)
+            {
+                string name = option.LongNames.Count > 0 ? "--" + option.LongNames[0] : "-" + option.ShortNames[0];
+                throw new MissingOptionValueException(name);
+            }
+        }
+    }
+}
