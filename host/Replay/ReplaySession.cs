@@ -32,7 +32,10 @@ public sealed class ReplaySession
     private readonly List<string> _warnings = new();
     private readonly List<(double Start, double End)> _settling = new();
     private readonly List<TempcoPoint> _tempcoPoints = new();
+    private readonly List<(double Start, double End)> _noSignal = new();
     private double _settlingStart = double.NaN;
+    private double _noSignalStart = double.NaN;
+    private long _noSignalGates;
     private long _gates;
     private long _belowFloor;
     private long _otherMarks;
@@ -73,8 +76,8 @@ public sealed class ReplaySession
 
         _gates++;
         _pipeline.Process(item.Gate, out Reading reading);
-        _lastTime = reading.TimeSeconds;
         Observe(reading);
+        _lastTime = reading.TimeSeconds;
         ReadingSink?.Invoke(reading, item);
         Drain();
 
@@ -136,6 +139,22 @@ public sealed class ReplaySession
             _settling.Add((_settlingStart, _lastTime));
         }
 
+        if (!double.IsNaN(_noSignalStart))
+        {
+            _noSignal.Add((_noSignalStart, _lastTime));
+        }
+
+        if (_noSignal.Count > 0)
+        {
+            string periods = string.Join(", ", _noSignal.Take(MaxListedSettling).Select(p => $"{F(p.Start)}-{F(p.End)} s"));
+            if (_noSignal.Count > MaxListedSettling)
+            {
+                periods += $" and {_noSignal.Count - MaxListedSettling} more";
+            }
+
+            _warnings.Add($"no signal in {_noSignalGates} gates ({periods}): nothing is detected there, and the return of the signal is re-baselined (signal_restored)");
+        }
+
         if (_settling.Count > 0)
         {
             string periods = string.Join(", ", _settling.Take(MaxListedSettling).Select(p => $"{F(p.Start)}-{F(p.End)} s"));
@@ -188,6 +207,21 @@ public sealed class ReplaySession
 
     private void Observe(in Reading reading)
     {
+        // A period without signal runs from the last gate with signal (or the start) to the first edge back.
+        if (reading.State == ReadoutState.NoSignal)
+        {
+            _noSignalGates++;
+            if (double.IsNaN(_noSignalStart))
+            {
+                _noSignalStart = _gates > 1 ? _lastTime : 0.0;
+            }
+        }
+        else if (!double.IsNaN(_noSignalStart))
+        {
+            _noSignal.Add((_noSignalStart, reading.TimeSeconds - reading.SpanSeconds));
+            _noSignalStart = double.NaN;
+        }
+
         if (reading.State == ReadoutState.Settling)
         {
             if (double.IsNaN(_settlingStart))

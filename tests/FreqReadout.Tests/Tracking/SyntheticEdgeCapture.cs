@@ -28,6 +28,9 @@ internal sealed class SyntheticEdgeCapture
     public double TemperatureEverySeconds { get; init; } = 1.0;
     public List<(double TimeSeconds, string Mark)> Marks { get; } = new();
 
+    /// <summary>Edge captures: stretches [start, end) in which the signal is lost (no row is written; the oscillator runs on).</summary>
+    public List<(double StartSeconds, double EndSeconds)> Gaps { get; } = new();
+
     /// <summary>When &gt; 0, write <c>kind = snapshots</c> instead: a pulse-counter read every this many seconds
     /// (count = whole input cycles up to the read time); prescale is 1 then.</summary>
     public double SnapshotEverySeconds { get; init; }
@@ -127,23 +130,27 @@ internal sealed class SyntheticEdgeCapture
 
             while (t <= DurationSeconds)
             {
+                bool lost = InGap(t);
                 double? temp = null;
-                if (TemperatureC != null && t >= nextTemperature)
+                if (!lost && TemperatureC != null && t >= nextTemperature)
                 {
                     temp = Math.Round(TemperatureC(t), 4);
                     nextTemperature += TemperatureEverySeconds;
                 }
 
                 string? mark = null;
-                if (nextMark < marks.Count && t >= marks[nextMark].TimeSeconds)
+                if (!lost && nextMark < marks.Count && t >= marks[nextMark].TimeSeconds)
                 {
                     mark = marks[nextMark].Mark;
                     nextMark++;
                 }
 
-                ulong tick = offset + (ulong)Math.Round(t * ClockHz);
-                writer.WriteRow(new CaptureRow(rows + 1, tick, 0, temp, mark));
-                rows++;
+                if (!lost)
+                {
+                    ulong tick = offset + (ulong)Math.Round(t * ClockHz);
+                    writer.WriteRow(new CaptureRow(rows + 1, tick, 0, temp, mark));
+                    rows++;
+                }
 
                 long b = (long)Math.Floor(t / BlockSeconds);
                 if (b != block)
@@ -161,5 +168,18 @@ internal sealed class SyntheticEdgeCapture
         }
 
         return rows;
+    }
+
+    private bool InGap(double t)
+    {
+        for (int i = 0; i < Gaps.Count; i++)
+        {
+            if (t >= Gaps[i].StartSeconds && t < Gaps[i].EndSeconds)
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 }

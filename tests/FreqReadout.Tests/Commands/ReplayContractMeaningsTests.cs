@@ -1,0 +1,107 @@
+using System.Text.Json;
+using FreqReadout.Tests.Tracking;
+
+namespace FreqReadout.Tests.Commands;
+
+/// <summary>
+/// Meanings of <c>replay --json</c> fixed in PRODUCT.md, end to end through synthetic edge captures (invented
+/// data): a signal that stops for 3 s (no rows written) is said in a warning, its return is re-baselined with
+/// reason signal_restored, a pass during the following settling is not reported (the settling warning says
+/// when that was), passes before and after are found; "unclear" events are listed.
+/// </summary>
+[Collection(ConsoleCollection.Name)]
+public sealed class ReplayContractMeaningsTests : IDisposable
+{
+    private const double F0 = 100_000;
+    private readonly string _dir = Path.Combine(Path.GetTempPath(), "freqreadout-meanings-" + Guid.NewGuid().ToString("N"));
+
+    public ReplayContractMeaningsTests()
+    {
+        Directory.CreateDirectory(_dir);
+    }
+
+    public void Dispose()
+    {
+        Directory.Delete(_dir, true);
+    }
+
+    [Fact]
+    public void A_signal_gap_is_warned_re_baselined_as_signal_restored_and_hides_nothing_after_settling()
+    {
+        // Truth: +2 Hz pass at 15 s, signal lost 25..28 s and the oscillator 3 Hz higher when it is back (as after a
+        // coil reconnected warmer), +2 Hz pass at 31.5 s (inside settling 1 s + baseline 5 s after the return),
+        // -2 Hz pass at 45 s. Block noise 0.3 Hz over 10 ms gives about 0.1 Hz per 0.1 s gate; a 5 s baseline capture
+        // (resistant line extrapolated to its end) then has a level error of about 0.05 Hz, so the level checks
+        // below allow 0.25 Hz (5 sigma).
+        var capture = new SyntheticEdgeCapture
+        {
+            DurationSeconds = 55,
+            SearchHzAt = t => F0 + (t >= 26 ? 3.0 : 0.0) + new TargetPass(15, 1.0, 2.0).ShiftAt(t) + new TargetPass(31.5, 0.5, 2.0).ShiftAt(t) + new TargetPass(45, 1.0, -2.0).ShiftAt(t),
+        };
+        capture.Gaps.Add((25.0, 28.0));
+        string path = Path.Combine(_dir, "gap.edges.csv");
+        capture.Write(path);
+
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
+        Assert.True(exit == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        JsonElement o = doc.RootElement;
+
+        // The first baseline is not listed; the return of the signal is, with its reason and time (the first edge back).
+        JsonElement r = Assert.Single(o.GetProperty("rebaselines").EnumerateArray().ToArray());
+        Assert.Equal("signal_restored", r.GetProperty("reason").GetString());
+        Assert.InRange(r.GetProperty("time_s").GetDouble(), 27.95, 28.1);
+        Assert.InRange(r.GetProperty("shift_hz").GetDouble(), 3.0 - 0.35, 3.0 + 0.35); // the step it absorbed (two level errors)
+
+        // baseline_hz stays the first captured baseline, not the one after the gap.
+        Assert.InRange(o.GetProperty("baseline_hz").GetDouble(), F0 - 0.25, F0 + 0.25);
+
+        // Events: the pass before the gap and the one after settling; none from the pass during settling.
+        JsonElement[] events = o.GetProperty("events").EnumerateArray().ToArray();
+        Assert.Equal(2, events.Length);
+        Assert.InRange(events[0].GetProperty("peak_s").GetDouble(), 14.5, 15.5);
+        Assert.Equal("non-ferrous", events[0].GetProperty("class").GetString());
+        Assert.InRange(events[1].GetProperty("peak_s").GetDouble(), 44.5, 45.5);
+        Assert.Equal("ferrous", events[1].GetProperty("class").GetString());
+
+        string[] warnings = o.GetProperty("warnings").EnumerateArray().Select(w => w.GetString()!).ToArray();
+        string noSignal = Assert.Single(warnings, w => w.StartsWith("no signal in "));
+        Assert.Matches(@"\((24\.9\d*|25)-28(\.0\d*)? s\)", noSignal); // from the last gate with signal to the first edge back
+        string settling = Assert.Single(warnings, w => w.StartsWith("events during settling are not reported"));
+        Assert.Matches(@", 28(\.0\d*)?-34(\.0\d*)? s\)", settling); // settling_s 1 + baseline_s 5 after the return
+    }
+
+    [Fact]
+    public void Unclear_events_are_listed_with_their_shift_in_json_and_csv()
+    {
+        // Passes of +2 and -2 Hz at about 20 sigma; with --unclear-band-sigma 100 both peaks lie inside the band
+        // above the threshold, so both are events of class unclear, still with their signed peak shifts.
+        var capture = new SyntheticEdgeCapture
+        {
+            DurationSeconds = 35,
+            SearchHzAt = t => F0 + new TargetPass(15, 1.0, 2.0).ShiftAt(t) + new TargetPass(25, 1.0, -2.0).ShiftAt(t),
+        };
+        string path = Path.Combine(_dir, "unclear.edges.csv");
+        string events = Path.Combine(_dir, "unclear.events.csv");
+        capture.Write(path);
+
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json", "--unclear-band-sigma", "100", "--events", events);
+        Assert.True(exit == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        JsonElement[] list = doc.RootElement.GetProperty("events").EnumerateArray().ToArray();
+        Assert.Equal(2, list.Length);
+        Assert.All(list, e => Assert.Equal("unclear", e.GetProperty("class").GetString()));
+        Assert.InRange(list[0].GetProperty("peak_shift_hz").GetDouble(), 1.5, 2.5);
+        Assert.InRange(list[1].GetProperty("peak_shift_hz").GetDouble(), -2.5, -1.5);
+
+        string[] rows = File.ReadAllLines(events);
+        Assert.Equal(3, rows.Length); // header and the two events
+        Assert.All(rows.Skip(1), row => Assert.Contains(",unclear,", row));
+
+        // The same capture with the default band: the classes by sign.
+        (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
+        Assert.True(exit == 0, stderr);
+        using var plain = JsonDocument.Parse(stdout);
+        Assert.Equal(new[] { "non-ferrous", "ferrous" }, plain.RootElement.GetProperty("events").EnumerateArray().Select(e => e.GetProperty("class").GetString()).ToArray());
+    }
+}
