@@ -114,6 +114,24 @@ public sealed class ReplaySession
             Process(gate);
         }
 
+        if (_gates == 0)
+        {
+            _warnings.Add(source.RowsRead == 0
+                ? "no gate closed: the capture holds no data rows"
+                : "no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)");
+        }
+
+        if (source.UnassignedMarks.Count > 0)
+        {
+            string marks = string.Join(", ", source.UnassignedMarks.Take(MaxListedSettling).Select(m => $"'{m}'"));
+            if (source.UnassignedMarks.Count > MaxListedSettling)
+            {
+                marks += $" and {source.UnassignedMarks.Count - MaxListedSettling} more";
+            }
+
+            _warnings.Add($"{source.UnassignedMarks.Count} marks after the last closed gate had no effect (the capture ended inside an open gate): {marks}");
+        }
+
         return Finish(source.RowsRead, source.Metadata.Signal, source.Warnings);
     }
 

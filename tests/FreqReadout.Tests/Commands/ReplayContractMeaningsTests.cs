@@ -104,4 +104,32 @@ public sealed class ReplayContractMeaningsTests : IDisposable
         using var plain = JsonDocument.Parse(stdout);
         Assert.Equal(new[] { "non-ferrous", "ferrous" }, plain.RootElement.GetProperty("events").EnumerateArray().Select(e => e.GetProperty("class").GetString()).ToArray());
     }
+
+    [Fact]
+    public void A_capture_shorter_than_one_gate_says_so()
+    {
+        // minimal.edges.csv: 101 edges of 1 kHz, 0.1 s, no closed 0.1 s gate (count says the same).
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", Captures.CaptureTestFiles.Contract("minimal.edges.csv"), "--json");
+        Assert.True(exit == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        Assert.Equal(0, doc.RootElement.GetProperty("gates").GetInt64());
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("no gate closed: the capture is shorter than one gate"));
+    }
+
+    [Fact]
+    public void A_mark_after_the_last_closed_gate_is_said_to_have_had_no_effect()
+    {
+        // 0.1 s gates of about 100 recorded edges each: the 100th closes at about 10.03 s (count on this capture
+        // shows it), the capture ends at 10.09 s inside the next one, and a rebaseline mark at 10.07 s belongs to no
+        // reported gate.
+        var capture = new SyntheticEdgeCapture { DurationSeconds = 10.09 };
+        capture.Marks.Add((10.07, "rebaseline"));
+        string path = Path.Combine(_dir, "late-mark.edges.csv");
+        capture.Write(path);
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
+        Assert.True(exit == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        Assert.Empty(doc.RootElement.GetProperty("rebaselines").EnumerateArray());
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString() == "1 marks after the last closed gate had no effect (the capture ended inside an open gate): 'rebaseline'");
+    }
 }
