@@ -82,7 +82,7 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
             try
             {
-                report = session.Run(source, cancellationToken);
+                report = settings.WithIgnoredOptionWarnings(session.Run(source, cancellationToken), reader.Metadata);
             }
             catch (CaptureFormatException e)
             {

@@ -230,6 +230,28 @@ public class ReadoutCommandSettings : CounterOptionSettings
         return at > 0 && got > at ? message[at..got] : string.Empty;
     }
 
+    /// <summary>
+    /// Warnings for options the capture makes moot (so a user who asked for them learns they had no effect):
+    /// --estimator on a snapshot capture, whose gates always use snapshot-regression.
+    /// </summary>
+    public IReadOnlyList<string> IgnoredOptionWarnings(CaptureMetadata metadata)
+    {
+        var warnings = new List<string>();
+        if (Estimator != null && metadata.Kind == CaptureKind.Snapshots)
+        {
+            warnings.Add($"--estimator {Estimator} does not apply to a snapshot capture: its gates always use snapshot-regression");
+        }
+
+        return warnings;
+    }
+
+    /// <summary>The report with <see cref="IgnoredOptionWarnings"/> added to its warnings.</summary>
+    public FreqReadout.Host.Replay.ReplayReport WithIgnoredOptionWarnings(FreqReadout.Host.Replay.ReplayReport report, CaptureMetadata metadata)
+    {
+        IReadOnlyList<string> ignored = IgnoredOptionWarnings(metadata);
+        return ignored.Count == 0 ? report : report with { Warnings = report.Warnings.Concat(ignored).ToList() };
+    }
+
     /// <summary>Invariant number text.</summary>
     protected static string Num(double value, string format = "0.######") => value.ToString(format, CultureInfo.InvariantCulture);
 }

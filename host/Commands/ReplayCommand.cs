@@ -81,7 +81,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
                 }
 
-                report = session.Run(source, cancellationToken);
+                report = settings.WithIgnoredOptionWarnings(session.Run(source, cancellationToken), reader.Metadata);
             }
             catch (CaptureFormatException e)
             {

@@ -132,4 +132,17 @@ public sealed class ReplayContractMeaningsTests : IDisposable
         Assert.Empty(doc.RootElement.GetProperty("rebaselines").EnumerateArray());
         Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString() == "1 marks after the last closed gate had no effect (the capture ended inside an open gate): 'rebaseline'");
     }
+
+    [Fact]
+    public void An_estimator_asked_for_on_a_snapshot_capture_is_said_to_have_no_effect()
+    {
+        const string command = "replay";
+        // snapshots.edges.csv is a pulse-counter capture: its gates always use snapshot-regression.
+        string sample = Captures.CaptureTestFiles.Contract("snapshots.edges.csv");
+        var (_, _, stderr) = ConsoleCapture.Run(command, sample, "--estimator", "reciprocal");
+        Assert.Contains("warning: --estimator reciprocal does not apply to a snapshot capture: its gates always use snapshot-regression", stderr);
+
+        var (_, _, plain) = ConsoleCapture.Run(command, sample);
+        Assert.DoesNotContain("--estimator", plain);
+    }
 }
