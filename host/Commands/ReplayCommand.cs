@@ -163,7 +163,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 json.WriteString("reason", r.ReasonName);
                 Nullable(json, "shift_hz", r.ShiftHz);
                 Nullable(json, "shift_ppm", r.ShiftPpm);
-                json.WriteNumber("completed_s", r.CompletedSeconds);
+                Nullable(json, "completed_s", r.CompletedSeconds);
                 json.WriteEndObject();
             }
 

@@ -152,6 +152,13 @@ public sealed class ReplaySession
         }
 
         Drain();
+        if (_pipeline.TryGetPendingRebaseline(out RebaselineReason pendingReason, out double pendingSeconds))
+        {
+            var pending = new ReplayRebaseline(pendingSeconds, null, pendingReason, null, null);
+            _rebaselines.Add(pending);
+            _warnings.Add($"the {pending.ReasonName} re-baseline begun at {F(pendingSeconds)} s had not completed when the capture ended (it needs settling_s + baseline_s = {F(_settings.SettlingSeconds + _settings.BaselineSeconds)} s): no new baseline and no absorbed shift for it");
+        }
+
         if (!double.IsNaN(_settlingStart))
         {
             _settling.Add((_settlingStart, _lastTime));

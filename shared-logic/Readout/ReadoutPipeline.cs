@@ -177,6 +177,21 @@ namespace FreqReadout.Readout
             get { return notices.Dropped; }
         }
 
+        /// <summary>
+        /// A re-baseline after the first baseline (reason Auto, Manual or SignalRestored) that has begun but whose
+        /// settling and capture have not completed yet (so no <see cref="RebaselineNotice"/> was queued for it):
+        /// at the end of a replay it tells that the run ended inside one.
+        /// </summary>
+        /// <param name="reason">Why it began (undefined when false is returned).</param>
+        /// <param name="requestedSeconds">When it began, s (undefined when false is returned).</param>
+        /// <returns>True while such a re-baseline is under way.</returns>
+        public bool TryGetPendingRebaseline(out RebaselineReason reason, out double requestedSeconds)
+        {
+            reason = pendingReason;
+            requestedSeconds = this.requestedSeconds;
+            return started && !noSignal && phase != PhaseTracking && pendingReason != RebaselineReason.Initial;
+        }
+
         /// <summary>Asks for a manual re-baseline; it starts at the next gate (an open event is closed and reported).</summary>
         public void RequestRebaseline()
         {

@@ -41,6 +41,25 @@ public class RebaselineAndHoldTests
     }
 
     [Fact]
+    public void A_re_baseline_under_way_is_pending_until_its_capture_completes()
+    {
+        // The same step, runs ending 3 s into the auto re-baseline (begun at about 130 s) and 10 s into it.
+        var shortRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 133, ExtraHz = Step(100, -4.0) });
+        Assert.Empty(shortRun.Rebaselines);
+        Assert.True(shortRun.Pipeline.TryGetPendingRebaseline(out RebaselineReason reason, out double since));
+        Assert.Equal(RebaselineReason.Auto, reason);
+        Assert.InRange(since, 130.0, 130.3);
+
+        var longRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 140, ExtraHz = Step(100, -4.0) });
+        Assert.Single(longRun.Rebaselines);
+        Assert.False(longRun.Pipeline.TryGetPendingRebaseline(out _, out _));
+
+        // The first baseline is never "pending" in this sense (it is not listed as a re-baseline either).
+        var start = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 3 });
+        Assert.False(start.Pipeline.TryGetPendingRebaseline(out _, out _));
+    }
+
+    [Fact]
     public void Hold_mode_keeps_a_still_target_as_one_event()
     {
         // A still target of +2 Hz (20 sigma) from 100 s to 220 s, four times the persistent-shift timeout;
