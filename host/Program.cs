@@ -23,6 +23,15 @@ public static class Program
         catch (CommandAppException e)
         {
             // Usage errors (unknown option, missing argument, a value of the wrong type): one line, no stack trace.
+            string all = e.Message + " " + e.InnerException?.Message;
+            if (all.Contains(MissingValueInterceptor.SpectrePlaceholder, StringComparison.Ordinal)
+                && Array.IndexOf(args, MissingValueInterceptor.SpectrePlaceholder) < 0
+                && MissingValueInterceptor.OptionMissingItsValue(args) is string missing)
+            {
+                Console.Error.WriteLine("error: " + missing + " needs a value; see freqreadout --help");
+                return 2;
+            }
+
             if (ConversionError(e.Message + " " + e.InnerException?.Message, args) is string conversion)
             {
                 Console.Error.WriteLine("error: " + conversion + "; see freqreadout --help");

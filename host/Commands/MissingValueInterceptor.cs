@@ -22,6 +22,47 @@ public sealed class MissingValueInterceptor : ICommandInterceptor
         _args = args;
     }
 
+    /// <summary>
+    /// For a typed option (int?, double?) Spectre fails while binding instead ("Failed to convert
+    /// '__default_command'"), before <see cref="Intercept"/> runs: finds the option on the command line that
+    /// takes a value (declared so by some command's settings) but is last or followed by another option.
+    /// </summary>
+    /// <returns>The option as typed, or null when none fits.</returns>
+    public static string? OptionMissingItsValue(string[] args)
+    {
+        var valueOptions = new HashSet<string>(StringComparer.Ordinal);
+        foreach (Type type in typeof(MissingValueInterceptor).Assembly.GetTypes())
+        {
+            if (!typeof(CommandSettings).IsAssignableFrom(type))
+            {
+                continue;
+            }
+
+            foreach (PropertyInfo property in type.GetProperties(BindingFlags.Public | BindingFlags.Instance))
+            {
+                CommandOptionAttribute? option = property.GetCustomAttribute<CommandOptionAttribute>();
+                if (option != null && option.ValueName != null && property.PropertyType != typeof(bool))
+                {
+                    foreach (string name in option.LongNames)
+                    {
+                        valueOptions.Add("--" + name);
+                    }
+                }
+            }
+        }
+
+        for (int i = 0; i < args.Length; i++)
+        {
+            bool lastOrBeforeOption = i == args.Length - 1 || (args[i + 1].StartsWith("--", StringComparison.Ordinal));
+            if (valueOptions.Contains(args[i]) && lastOrBeforeOption)
+            {
+                return args[i];
+            }
+        }
+
+        return null;
+    }
+
     /// <inheritdoc />
     public void Intercept(CommandContext context, CommandSettings settings)
     {

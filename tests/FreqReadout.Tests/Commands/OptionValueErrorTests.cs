@@ -32,6 +32,21 @@ public sealed class OptionValueErrorTests
         AssertOneErrorLine(stderr, option + " needs a value");
     }
 
+    [Theory]
+    [InlineData("--seed", "simulate", "--demo", "--out", "never-written.csv", "--seed")]
+    [InlineData("--seed", "simulate", "--demo", "--seed", "--out", "never-written.csv")]
+    [InlineData("--turns", "coil", "--turns")]
+    public void A_typed_option_without_its_value_says_it_needs_one(string option, params string[] args)
+    {
+        // Typed options (int?, double?) fail in Spectre's binding ("Failed to convert '__default_command'"),
+        // which named no option ("an option must be a whole number, got '__default_command'").
+        var (exit, stdout, stderr) = ConsoleCapture.RunMain(args);
+        Assert.Equal(2, exit);
+        Assert.Equal(string.Empty, stdout);
+        AssertOneErrorLine(stderr, option + " needs a value");
+        Assert.False(File.Exists("never-written.csv"));
+    }
+
     [Fact]
     public void An_option_without_its_value_before_another_option_says_it_needs_one()
     {
