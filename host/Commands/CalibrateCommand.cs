@@ -64,6 +64,11 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             // The fit needs the uncompensated frequencies; and a temperature step must not hide as a long
             // "target": unless told otherwise, a shift lasting longer than a coil pass is re-baselined soon.
             readout.TempcoPpmPerK = 0;
+            if (settings.TempcoPpmPerK != null)
+            {
+                CommandOutput.Diagnostic($"warning: --tempco-ppm-per-k {settings.TempcoPpmPerK} is ignored by calibrate: the fit needs the uncompensated frequencies");
+            }
+
             if (settings.PersistentShiftSeconds == null)
             {
                 readout.PersistentShiftSeconds = DefaultPersistentShiftSeconds;

@@ -89,6 +89,18 @@ public sealed class CalibrateCommandTests : IDisposable
     }
 
     [Fact]
+    public void A_tempco_option_is_said_to_be_ignored_and_changes_nothing()
+    {
+        string path = WriteCapture();
+        var (exit, plain, _) = ConsoleCapture.Run("calibrate", path, "--json");
+        Assert.Equal(0, exit);
+        var (exit2, withTempco, stderr) = ConsoleCapture.Run("calibrate", path, "--json", "--tempco-ppm-per-k", "-12");
+        Assert.Equal(0, exit2);
+        Assert.Equal(plain, withTempco); // the fit always uses the uncompensated frequencies
+        Assert.Contains("warning: --tempco-ppm-per-k -12 is ignored by calibrate", stderr);
+    }
+
+    [Fact]
     public void A_capture_without_temperature_is_a_clear_error()
     {
         var (exit, stdout, stderr) = ConsoleCapture.Run("calibrate", Contract("minimal.edges.csv"), "--json");
