@@ -91,6 +91,13 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         {
             return CommandErrors.Fail(ex.Message);
         }
+        catch (ArgumentOutOfRangeException ex) when (ex.ParamName != "deltaInductanceH")
+        {
+            // A coil that cannot be wound as given (e.g. --turns of --wire-mm make a bundle wider than the coil).
+            string why = ex.Message.Split('\n')[0];
+            int cut = why.IndexOf(" (Parameter", StringComparison.Ordinal);
+            return CommandErrors.Fail($"the coil cannot be built from --turns, --diameter-mm, --wire-mm and the winding options given: {(cut > 0 ? why[..cut] : why)}");
+        }
         catch (ArgumentOutOfRangeException)
         {
             // The inductance change reached -L or beyond (LcResonance): the target overlaps the coil's field so much
