@@ -82,13 +82,7 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
             try
             {
-                foreach (CaptureGate gate in source.ReadGates())
-                {
-                    cancellationToken.ThrowIfCancellationRequested();
-                    session.Process(gate);
-                }
-
-                report = session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings);
+                report = session.Run(source, cancellationToken);
             }
             catch (CaptureFormatException e)
             {

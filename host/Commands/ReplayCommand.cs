@@ -81,13 +81,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
                 }
 
-                foreach (CaptureGate gate in source.ReadGates())
-                {
-                    cancellationToken.ThrowIfCancellationRequested();
-                    session.Process(gate);
-                }
-
-                report = session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings);
+                report = session.Run(source, cancellationToken);
             }
             catch (CaptureFormatException e)
             {

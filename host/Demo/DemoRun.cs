@@ -40,13 +40,7 @@ public static class DemoRun
                 ?? throw new InvalidOperationException("default readout settings invalid: " + readoutError);
             var source = new CaptureGateSource(reader, options);
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
-            foreach (CaptureGate gate in source.ReadGates())
-            {
-                cancellationToken.ThrowIfCancellationRequested();
-                session.Process(gate);
-            }
-
-            report = session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings);
+            report = session.Run(source, cancellationToken);
         }
 
         var matches = new List<DemoPassMatch>();

@@ -98,6 +98,22 @@ public sealed class ReplaySession
         }
     }
 
+    /// <summary>
+    /// Feeds every gate of <paramref name="source"/> through <see cref="Process"/>, then <see cref="Finish"/>es:
+    /// the one replay loop that <c>replay</c>, <c>calibrate</c> and <c>demo</c> share.
+    /// </summary>
+    /// <exception cref="Captures.CaptureFormatException">The capture is malformed (file:line message).</exception>
+    public ReplayReport Run(CaptureGateSource source, CancellationToken cancellationToken)
+    {
+        foreach (CaptureGate gate in source.ReadGates())
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            Process(gate);
+        }
+
+        return Finish(source.RowsRead, source.Metadata.Signal, source.Warnings);
+    }
+
     /// <summary>Ends the replay: closes an open event at the last gate and builds the report.</summary>
     public ReplayReport Finish(long edges, SignalKind signal, IEnumerable<string> sourceWarnings)
     {

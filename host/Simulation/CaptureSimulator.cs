@@ -620,22 +620,16 @@ public sealed class CaptureSimulator
         /// <summary>White-FM level of the counted signal over the current step, Hz sqrt(s).</summary>
         public double WhiteSigmaHzRootS => _sigmaA;
 
-        /// <summary>
-        /// The first control-step boundary strictly after t. timeS / _step can round just below a whole number when t is
-        /// itself a boundary (i * _step), which gave back t and stalled the snapshot integration loop forever; so step on
-        /// until the boundary lies after t.
-        /// </summary>
+        /// <summary>End of the control step holding t (same boundary rule as <see cref="Segment"/>), s: always later than t.</summary>
         public double NextBoundaryAfter(double timeS)
         {
-            long i = (long)Math.Floor(timeS / _step) + 1;
-            double boundary = i * _step;
-            while (boundary <= timeS)
+            long i = (long)Math.Floor(timeS / _step);
+            if ((i + 1) * _step - timeS <= 1e-12 * Math.Max(1.0, timeS))
             {
                 i++;
-                boundary = i * _step;
             }
 
-            return boundary;
+            return (i + 1) * _step;
         }
 
         /// <summary>

@@ -32,8 +32,12 @@ public sealed class SceneHardware
     /// <summary>Snapshots: interval between pulse-counter reads, s. Default 0.001.</summary>
     public double SnapshotIntervalS { get; set; } = 0.001;
 
-    /// <summary>Snapshots: rms jitter of the read instant, s. Default 2e-5.</summary>
-    public double ReadJitterS { get; set; } = 2e-5;
+    /// <summary>
+    /// Snapshots: rms mismatch between the instant the count is latched and its time stamp, s (this is what costs accuracy,
+    /// about f x this per read; the read schedule itself also wanders by up to +-10 % of the interval, which is harmless).
+    /// Default 1e-6 (the driver's 1 us time resolution).
+    /// </summary>
+    public double ReadJitterS { get; set; } = 1e-6;
 
     /// <summary>A temp_c sample every this many rows; 0 = no temp_c column. Default 0.</summary>
     public int TempEveryRows { get; set; }

@@ -300,4 +300,47 @@ public sealed class ReplayCommandTests : IDisposable
             Assert.True(text != null && text.Contains("Default"), "--" + name + " does not state its default");
         }
     }
+
+    [Fact]
+    public void Snapshot_capture_replays_through_the_snapshot_counter()
+    {
+        // Pulse-counter reads every 1 ms (+-20 us) of a 100 003.7 Hz search oscillator (1 MHz timer): +12 Hz and
+        // -12 Hz passes (whole counts limit a 0.1 s gate to about 1 Hz, PRODUCT.md: 1 / (T sqrt(M))).
+        var capture = new SyntheticEdgeCapture
+        {
+            DurationSeconds = 30,
+            ClockHz = 1e6,
+            SnapshotEverySeconds = 0.001,
+            SearchHzAt = t => F0 + 3.7 + new TargetPass(15, 1.0, 12.0).ShiftAt(t) + new TargetPass(24, 1.0, -12.0).ShiftAt(t),
+        };
+        string path = PathOf("snap.csv");
+        capture.Write(path);
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
+        Assert.True(exit == 0, stderr);
+        JsonElement o = ParseSingleObject(stdout);
+        Assert.InRange(o.GetProperty("baseline_hz").GetDouble(), F0 + 3.7 - 0.5, F0 + 3.7 + 0.5);
+        Assert.InRange(o.GetProperty("noise_hz").GetDouble(), 0.2, 2.0);
+        JsonElement[] events = o.GetProperty("events").EnumerateArray().ToArray();
+        Assert.True(events.Length == 2, stdout);
+        Assert.Equal("non-ferrous", events[0].GetProperty("class").GetString());
+        Assert.Equal("ferrous", events[1].GetProperty("class").GetString());
+        Assert.InRange(events[0].GetProperty("peak_s").GetDouble(), 14.5, 15.6);
+    }
+
+    [Fact]
+    public void Binary_capture_replays_exactly_like_its_text_original()
+    {
+        var capture = new SyntheticEdgeCapture { DurationSeconds = 25, SearchHzAt = t => F0 + new TargetPass(15, 1.0, -2.0).ShiftAt(t) };
+        capture.Marks.Add((18.0, "rebaseline"));
+        string text = PathOf("orig.edges.csv");
+        string binary = PathOf("orig.bin");
+        capture.Write(text);
+        Assert.Equal(0, ConsoleCapture.Run("convert", text, binary, "--to", "binary").Exit);
+
+        var (e1, fromText, err1) = ConsoleCapture.Run("replay", text, "--json");
+        var (e2, fromBinary, err2) = ConsoleCapture.Run("replay", binary, "--json");
+        Assert.True(e1 == 0 && e2 == 0, err1 + err2);
+        Assert.Equal(fromText, fromBinary);
+        Assert.Equal(1, ParseSingleObject(fromText).GetProperty("events").GetArrayLength());
+    }
 }

@@ -28,13 +28,23 @@ internal sealed class SyntheticEdgeCapture
     public double TemperatureEverySeconds { get; init; } = 1.0;
     public List<(double TimeSeconds, string Mark)> Marks { get; } = new();
 
+    /// <summary>When &gt; 0, write <c>kind = snapshots</c> instead: a pulse-counter read every this many seconds
+    /// (count = whole input cycles up to the read time); prescale is 1 then.</summary>
+    public double SnapshotEverySeconds { get; init; }
+
+    /// <summary>Snapshots: each read lands uniformly within +-this of its nominal time (as the contract sample's +-20 us),
+    /// so whole-count quantisation behaves like noise rather than a deterministic pattern (REFERENCES.md caveat).</summary>
+    public double SnapshotJitterSeconds { get; init; } = 20e-6;
+
     /// <summary>Writes the capture to <paramref name="path"/>; returns the number of rows.</summary>
     public long Write(string path)
     {
+        bool snapshots = SnapshotEverySeconds > 0;
         var md = new CaptureMetadata
         {
             ClockHz = ClockHz,
-            Prescale = Prescale,
+            Kind = snapshots ? CaptureKind.Snapshots : CaptureKind.Edges,
+            Prescale = snapshots ? 1 : Prescale,
             Signal = Signal,
             BeatSide = Signal == SignalKind.Beat ? BeatSide : BeatSide.None,
             SearchHz = SearchHz,
@@ -62,6 +72,59 @@ internal sealed class SyntheticEdgeCapture
         {
             const ulong offset = 12345;
             double t = 0;
+            if (snapshots)
+            {
+                // Reads at jittered times; the phase is integrated up to each read time exactly (sub-steps of
+                // at most 10 us, midpoint rule), so the counts carry no grid artefact.
+                double phase = 0;
+                double previous = 0;
+                for (long r = 0; ; r++)
+                {
+                    double tr = (r * SnapshotEverySeconds) + (r == 0 ? 0 : SnapshotJitterSeconds * ((2 * rng.NextDouble()) - 1));
+                    if (tr > DurationSeconds)
+                    {
+                        break;
+                    }
+
+                    int n = Math.Max(1, (int)Math.Ceiling((tr - previous) / 1e-5));
+                    double h = (tr - previous) / n;
+                    for (int j = 0; j < n; j++)
+                    {
+                        double tm = previous + ((j + 0.5) * h);
+                        long b = (long)Math.Floor(tm / BlockSeconds);
+                        if (b != block)
+                        {
+                            block = b;
+                            blockNoise = BlockNoiseHz * SyntheticGateStream.Gaussian(rng);
+                        }
+
+                        double fs = SearchHzAt(tm);
+                        phase += ((Signal == SignalKind.Beat ? Math.Abs(fs - ReferenceHz) : fs) + blockNoise) * h;
+                    }
+
+                    previous = tr;
+                    double? temp = null;
+                    if (TemperatureC != null && tr >= nextTemperature)
+                    {
+                        temp = Math.Round(TemperatureC(tr), 4);
+                        nextTemperature += TemperatureEverySeconds;
+                    }
+
+                    string? mark = null;
+                    if (nextMark < marks.Count && tr >= marks[nextMark].TimeSeconds)
+                    {
+                        mark = marks[nextMark].Mark;
+                        nextMark++;
+                    }
+
+                    writer.WriteRow(new CaptureRow(rows + 1, offset + (ulong)Math.Round(tr * ClockHz), (ulong)Math.Floor(phase), temp, mark));
+                    rows++;
+                }
+
+                writer.Complete(Array.Empty<KeyValuePair<string, string>>());
+                return rows;
+            }
+
             while (t <= DurationSeconds)
             {
                 double? temp = null;
