@@ -286,7 +286,8 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         if (Math.Abs(r.InductanceDifferencePct) > 2)
         {
             console.MarkupLine("the two inductances differ by more than 2 %: Wheeler's formula is meant for windings whose length and depth are comparable terms; " +
-                "for a compact bundle it stays finite as the bundle shrinks while the true inductance grows as ln(8R/a), so the thin-loop figure is the better guide (--inductance-model thin_loop).");
+                "for a compact bundle it stays finite as the bundle shrinks while the true inductance grows as ln(8R/a), so the thin-loop figure is the better guide. " +
+                (r.InductanceModel == "thin_loop" ? "The figures here use it." : "The figures here use " + r.InductanceModel + "; add --inductance-model thin_loop to base them on the thin loop."));
         }
 
         if (r.Target is not { } t)
