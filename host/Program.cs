@@ -42,6 +42,23 @@ public static class Program
             Console.Error.WriteLine("error: " + e.Message.TrimEnd('.') + detail + "; see freqreadout --help");
             return 2;
         }
+        catch (OperationCanceledException)
+        {
+            Console.Error.WriteLine("error: interrupted");
+            return 130;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            // A file that went away or a disk that failed mid-run (commands handle opening and writing themselves).
+            Console.Error.WriteLine("error: " + e.Message.TrimEnd('.'));
+            return 1;
+        }
+        catch (Exception e) when (Environment.GetEnvironmentVariable("FREQREADOUT_TRACE") != "1")
+        {
+            // A bug: one line for the user; FREQREADOUT_TRACE=1 lets the exception (and its stack trace) through.
+            Console.Error.WriteLine($"error: unexpected {e.GetType().Name}: {e.Message.Split('\n')[0].TrimEnd('.')} (a bug in freqreadout; run with FREQREADOUT_TRACE=1 for the stack trace)");
+            return 70;
+        }
     }
 
     /// <summary>

@@ -11,7 +11,8 @@ namespace FreqReadout.Firmware.Device
     /// counts gates with the shared counting core, runs each gate through the same
     /// <see cref="ReadoutPipeline"/> the host replays, and shows the numbers. The board's entry point
     /// calls <see cref="Step"/> in a loop; the ports are passed in, so the loop runs on the PC in tests.
-    /// Per edge it allocates nothing.
+    /// Per edge and per gate it allocates nothing; only a display refresh (at most every
+    /// <see cref="DeviceSettings.DisplayIntervalSeconds"/>, or on a change of state or class) builds strings.
     /// </summary>
     public sealed class DeviceLoop
     {
@@ -31,6 +32,11 @@ namespace FreqReadout.Firmware.Device
         private bool lastHold;
         private long gates;
         private long rejectedTicks;
+        private long displayUpdates;
+        private bool shown;
+        private double lastShownSeconds;
+        private ReadoutState lastShownState;
+        private TargetClass lastShownClass;
 
         /// <summary>A loop over timestamped edges.</summary>
         public DeviceLoop(DeviceSettings settings, IEdgeSource edges, IClockPort clock, IDisplayPort display, IButtonPort buttons)
@@ -100,6 +106,12 @@ namespace FreqReadout.Firmware.Device
         public long RejectedTicks
         {
             get { return rejectedTicks; }
+        }
+
+        /// <summary>Times the display was refreshed.</summary>
+        public long DisplayUpdates
+        {
+            get { return displayUpdates; }
         }
 
         /// <summary>The readout pipeline (baseline, noise, hold state) this loop drives.</summary>
@@ -212,7 +224,16 @@ namespace FreqReadout.Firmware.Device
             pipeline.Process(gate, out reading);
             lastReading = reading;
             hasReading = true;
-            display.Show(DisplayText.FrequencyLine(reading), DisplayText.ShiftLine(reading), DisplayText.StatusLine(reading));
+            bool changed = !shown || reading.State != lastShownState || reading.Class != lastShownClass;
+            if (changed || reading.TimeSeconds - lastShownSeconds >= settings.DisplayIntervalSeconds)
+            {
+                shown = true;
+                lastShownSeconds = reading.TimeSeconds;
+                lastShownState = reading.State;
+                lastShownClass = reading.Class;
+                displayUpdates++;
+                display.Show(DisplayText.FrequencyLine(reading), DisplayText.ShiftLine(reading), DisplayText.StatusLine(reading));
+            }
         }
     }
 }

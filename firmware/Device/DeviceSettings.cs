@@ -33,6 +33,13 @@ namespace FreqReadout.Firmware.Device
         /// <summary>At most this many edges are taken per <see cref="DeviceLoop.Step"/> (&gt;= 1), so buttons and the display stay responsive. Default 256.</summary>
         public int MaxEdgesPerStep { get; set; } = 256;
 
+        /// <summary>
+        /// The display is refreshed at most this often, seconds of capture time ([0, 60]; 0 = every gate),
+        /// and at once when the state or the target class changes. The display lines are strings, so
+        /// this bounds the device's per-second allocations whatever the gate rate. Default 0.5 s.
+        /// </summary>
+        public double DisplayIntervalSeconds { get; set; } = 0.5;
+
         /// <summary>Checks every setting; the first bad one is named with its allowed range.</summary>
         public bool TryValidate(out string error)
         {
@@ -61,6 +68,12 @@ namespace FreqReadout.Firmware.Device
             if (!IsWidth(CountBits))
             {
                 error = "count bits must be 16, 24, 32 or 64";
+                return false;
+            }
+
+            if (!(DisplayIntervalSeconds >= 0 && DisplayIntervalSeconds <= 60))
+            {
+                error = "display interval seconds must be in [0, 60]";
                 return false;
             }
 

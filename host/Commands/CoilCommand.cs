@@ -91,6 +91,13 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         {
             return CommandErrors.Fail(ex.Message);
         }
+        catch (ArgumentOutOfRangeException ex) when (ex.ParamName != "deltaInductanceH")
+        {
+            // A coil that cannot be wound as given (e.g. --turns of --wire-mm make a bundle wider than the coil).
+            string why = ex.Message.Split('\n')[0];
+            int cut = why.IndexOf(" (Parameter", StringComparison.Ordinal);
+            return CommandErrors.Fail($"the coil cannot be built from --turns, --diameter-mm, --wire-mm and the winding options given: {(cut > 0 ? why[..cut] : why)}");
+        }
         catch (ArgumentOutOfRangeException)
         {
             // The inductance change reached -L or beyond (LcResonance): the target overlaps the coil's field so much
@@ -279,7 +286,8 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         if (Math.Abs(r.InductanceDifferencePct) > 2)
         {
             console.MarkupLine("the two inductances differ by more than 2 %: Wheeler's formula is meant for windings whose length and depth are comparable terms; " +
-                "for a compact bundle it stays finite as the bundle shrinks while the true inductance grows as ln(8R/a), so the thin-loop figure is the better guide (--inductance-model thin_loop).");
+                "for a compact bundle it stays finite as the bundle shrinks while the true inductance grows as ln(8R/a), so the thin-loop figure is the better guide. " +
+                (r.InductanceModel == "thin_loop" ? "The figures here use it." : "The figures here use " + r.InductanceModel + "; add --inductance-model thin_loop to base them on the thin loop."));
         }
 
         if (r.Target is not { } t)

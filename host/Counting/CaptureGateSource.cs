@@ -45,7 +45,22 @@ public sealed class CaptureGateSource
         Settings = SettingsFor(reader.Metadata, options);
         if (!Settings.TryValidate(out string error))
         {
-            throw new ArgumentException(error, nameof(options));
+            throw new ArgumentException(error); // no parameter name: the message goes to the user as it is
+        }
+
+        // The counters refuse these only once they are built, deep in the run and in ticks; say it here in the options' terms.
+        double clock = Settings.ClockHz;
+        const double maxGateTicks = 1099511627776.0; // 2^40, the counters' longest gate
+        if (Settings.Mode == GateMode.Time && Settings.GateSeconds * clock > maxGateTicks)
+        {
+            throw new ArgumentException(FormattableString.Invariant(
+                $"--gate-seconds must be at most {maxGateTicks / clock:G6} s for this capture (2^40 ticks of clock_hz = {clock:R}), got {Settings.GateSeconds:G6}"));
+        }
+
+        if (Settings.NoSignalSeconds * clock >= 4e18)
+        {
+            throw new ArgumentException(FormattableString.Invariant(
+                $"--no-signal-seconds must be below {4e18 / clock:G6} s for this capture (4e18 ticks of clock_hz = {clock:R}), got {Settings.NoSignalSeconds:G6}"));
         }
     }
 

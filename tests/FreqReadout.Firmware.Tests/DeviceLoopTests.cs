@@ -64,7 +64,9 @@ public class DeviceLoopTests
         Assert.True(r.HasFrequency);
         Assert.InRange(r.FrequencyHz, 12_499.9, 12_500.1); // truth of the generated edges, +-1 tick jitter
         Assert.Equal("F 12500.0 Hz", line1);
-        display.Verify(d => d.Show(It.IsAny<string>(), It.IsAny<string>(), It.IsAny<string>()), Times.Exactly((int)loop.Gates));
+        // 20 gates of 0.1 s, refreshed every 0.5 s and on each change of state: far fewer refreshes than gates.
+        display.Verify(d => d.Show(It.IsAny<string>(), It.IsAny<string>(), It.IsAny<string>()), Times.Exactly((int)loop.DisplayUpdates));
+        Assert.InRange(loop.DisplayUpdates, 3, 10);
     }
 
     [Fact]
@@ -96,12 +98,12 @@ public class DeviceLoopTests
         var loop = new DeviceLoop(Settings(), source, source, display.Object, buttons.Object);
         var rng = new Random(3);
         Run(loop, source);
-        Feed(source, 0, 8, _ => 10_000.0, 32, rng);
+        double t = Feed(source, 0, 8, _ => 10_000.0, 32, rng);
         Run(loop, source);
         Assert.True(loop.Pipeline.HasBaseline);
 
         buttons.SetupSequence(b => b.TryTakeRebaselinePress()).Returns(true).Returns(false);
-        Feed(source, 8, 16, _ => 10_000.0, 32, rng); // the notice comes once the new baseline is taken (settling + baseline time)
+        Feed(source, t, t + 8, _ => 10_000.0, 32, rng); // the notice comes once the new baseline is taken (settling + baseline time)
         Run(loop, source);
 
         bool manual = false;
@@ -165,6 +167,30 @@ public class DeviceLoopTests
     }
 
     private delegate bool TryRead(out ulong count, out ulong time);
+
+    [Fact]
+    public void Gates_between_display_refreshes_allocate_nothing()
+    {
+        var source = new QueueEdgeSource();
+        var display = new Mock<IDisplayPort>();
+        DeviceSettings s = Settings();
+        s.DisplayIntervalSeconds = 60; // only state changes refresh the display in this run
+        var loop = new DeviceLoop(s, source, source, display.Object, new IdleButtons());
+        var rng = new Random(5);
+        double t = Feed(source, 0, 30, _ => 10_000.0, 32, rng); // warm-up: settling, baseline, tracking
+        Run(loop, source);
+        Feed(source, t, t + 30, _ => 10_000.0, 32, rng);       // continues the same edge train
+        long updates = loop.DisplayUpdates;
+        long gates = loop.Gates;
+
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        Run(loop, source);
+        long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+
+        Assert.True(loop.Gates - gates >= 290, "gates " + (loop.Gates - gates));
+        Assert.True(updates == loop.DisplayUpdates, "refreshed in the measured stretch: " + string.Join(" / ", display.Invocations.Select(i => string.Join(",", i.Arguments))));
+        Assert.Equal(0, allocated);                 // 300 gates of counting and readout, nothing allocated
+    }
 
     [Fact]
     public void Bad_settings_are_refused_with_the_setting_named()

@@ -21,3 +21,15 @@ internal sealed class QueueEdgeSource : IEdgeSource, IClockPort
         return true;
     }
 }
+
+/// <summary>A hand fake of the buttons that never reports a press (Moq records every call, which allocates).</summary>
+internal sealed class IdleButtons : IButtonPort
+{
+    public bool TryTakeRebaselinePress() => false;
+
+    public bool TryReadHold(out bool hold)
+    {
+        hold = false;
+        return false;
+    }
+}

@@ -79,6 +79,7 @@ public sealed class UserErrorTests
     [InlineData(new[] { "--material", "copper", "--mu-r", "0.5" }, "--mu-r must be in [1, 1e6] (got 0.5)")]
     [InlineData(new[] { "--material", "copper", "--radius-mm", "1000" }, "the small-dipole model does not hold this close")]
     [InlineData(new[] { "--material", "unobtainium" }, "--material must be one of silver, copper")]
+    [InlineData(new[] { "--turns", "100000", "--wire-mm", "0.05", "--diameter-mm", "6" }, "the coil cannot be built from --turns")]
     public void Coil_settings_out_of_range_give_one_line_in_the_users_units(string[] options, string expected)
     {
         var (exit, _, stderr) = ConsoleCapture.RunMain(new[] { "coil" }.Concat(options).ToArray());
@@ -147,6 +148,18 @@ public sealed class UserErrorTests
         (exit, stdout, _) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"));
         Assert.Equal(0, exit);
         Assert.Contains("no gate closed: the capture is shorter than one gate", stdout);
+    }
+
+    [Theory]
+    [InlineData("--gate-seconds", "1e12", "--gate-seconds must be at most 109951 s for this capture (2^40 ticks of clock_hz = 10000000), got 1E+12")]
+    [InlineData("--no-signal-seconds", "1e300", "--no-signal-seconds must be below 4E+11 s for this capture (4e18 ticks of clock_hz = 10000000), got 1E+300")]
+    public void Gate_and_timeout_too_long_for_the_captures_clock_name_the_option_before_any_output(string option, string value, string expected)
+    {
+        // minimal.edges.csv: clock_hz = 10 MHz (contract README).
+        var (exit, stdout, stderr) = ConsoleCapture.RunMain("count", Contract("minimal.edges.csv"), option, value);
+        Assert.Equal(CommandOutput.BadOption, exit);
+        AssertOneErrorLine(stderr, expected);
+        Assert.Equal(string.Empty, stdout);
     }
 
     [Fact]
