@@ -36,6 +36,7 @@ public sealed class ReplaySession
     private double _settlingStart = double.NaN;
     private double _noSignalStart = double.NaN;
     private long _noSignalGates;
+    private bool _rebaselineMarkPending;
     private long _gates;
     private long _belowFloor;
     private long _otherMarks;
@@ -75,6 +76,7 @@ public sealed class ReplaySession
         }
 
         _gates++;
+        _rebaselineMarkPending = false;
         _pipeline.Process(item.Gate, out Reading reading);
         Observe(reading);
         _lastTime = reading.TimeSeconds;
@@ -87,6 +89,7 @@ public sealed class ReplaySession
             {
                 case "rebaseline":
                     _pipeline.RequestRebaseline();
+                    _rebaselineMarkPending = true;
                     break;
                 case "hold":
                     _pipeline.SetHold(true);
@@ -152,6 +155,11 @@ public sealed class ReplaySession
         }
 
         Drain();
+        if (_rebaselineMarkPending)
+        {
+            _warnings.Add($"the rebaseline mark in the last gate ({F(_lastTime)} s) had no effect: marks act from the next gate, and none followed");
+        }
+
         if (_pipeline.TryGetPendingRebaseline(out RebaselineReason pendingReason, out double pendingSeconds))
         {
             var pending = new ReplayRebaseline(pendingSeconds, null, pendingReason, null, null);

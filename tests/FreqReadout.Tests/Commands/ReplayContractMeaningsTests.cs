@@ -175,4 +175,21 @@ public sealed class ReplayContractMeaningsTests : IDisposable
         Assert.InRange(c.GetProperty("shift_hz").GetDouble(), -2.7, -2.3);
         Assert.DoesNotContain(done.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("had not completed"));
     }
+
+    [Fact]
+    public void A_rebaseline_mark_in_the_last_gate_is_said_to_have_had_no_effect()
+    {
+        // Marks act from the next gate (as a button pressed during a gate); 0.1 s gates close about every
+        // 0.1003 s here (see the test above), so the last one closes at about 10.03 s and holds a mark at 10.0 s.
+        var capture = new SyntheticEdgeCapture { DurationSeconds = 10.035 };
+        capture.Marks.Add((10.0, "rebaseline"));
+        string path = Path.Combine(_dir, "last-gate-mark.edges.csv");
+        capture.Write(path);
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
+        Assert.True(exit == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        Assert.Empty(doc.RootElement.GetProperty("rebaselines").EnumerateArray());
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("the rebaseline mark in the last gate (10.0"));
+        Assert.DoesNotContain(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("1 marks after the last closed gate"));
+    }
 }
