@@ -21,8 +21,12 @@ public static class DemoRun
 
     /// <summary>Runs the demo, writing the capture (text format) to <paramref name="capturePath"/>.</summary>
     public static DemoResult Run(string capturePath, IProgress<double>? progress, CancellationToken cancellationToken)
+        => Run(DemoScenes.FloorScan(), "built-in demo scene", capturePath, progress, cancellationToken);
+
+    /// <summary>Simulates any scene, replays it with replay's defaults and matches passes to events, as the demo does.</summary>
+    public static DemoResult Run(Scene scene, string sceneName, string capturePath, IProgress<double>? progress, CancellationToken cancellationToken)
     {
-        var model = new SceneModel(DemoScenes.FloorScan(), "built-in demo scene");
+        var model = new SceneModel(scene, sceneName);
         var simulator = new CaptureSimulator(model);
         SimulationTruth truth;
         using (ICaptureWriter writer = CaptureFile.Create(capturePath, simulator.Metadata, CaptureFileFormat.Text))

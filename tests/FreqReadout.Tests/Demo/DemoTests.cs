@@ -70,3 +70,39 @@ public class DemoTests
         }
     }
 }
+
+/// <summary>
+/// Every example scene shipped in host/Scenes (invented scenarios), simulated and replayed with
+/// replay's defaults: each simulated pass is found with the class the sign rule should give.
+/// Expected values are the simulation's own truth (not a reference).
+/// </summary>
+public class ExampleSceneTests
+{
+    public static IEnumerable<object[]> Scenes() =>
+        Directory.GetFiles(Path.Combine(CliProcess.RepoRoot(), "host", "Scenes"), "*.json").Select(f => new object[] { Path.GetFileName(f) });
+
+    [Theory]
+    [MemberData(nameof(Scenes))]
+    public void Example_scene_replays_with_every_pass_found_and_classed(string file)
+    {
+        string scenePath = Path.Combine(CliProcess.RepoRoot(), "host", "Scenes", file);
+        FreqReadout.Host.Simulation.Scene scene = FreqReadout.Host.Simulation.Scene.Load(scenePath);
+        string path = Path.Combine(Path.GetTempPath(), "freqreadout-scene-test-" + Guid.NewGuid().ToString("N") + ".csv");
+        try
+        {
+            DemoResult r = DemoRun.Run(scene, file, path, null, CancellationToken.None);
+            Assert.NotEmpty(r.Matches);
+            foreach (DemoPassMatch m in r.Matches)
+            {
+                Assert.True(m.Event != null, $"{file}: {m.Target} pass {m.Pass} at {m.TruthPeakSeconds} s missed");
+                Assert.True(m.ClassAsExpected, $"{file}: {m.Target} pass {m.Pass}: {m.Event!.ClassName}, sign rule expects {m.SignRuleClass}");
+            }
+
+            Assert.Empty(r.UnmatchedEvents);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+}
