@@ -72,10 +72,12 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 
             ReplayReport report;
             StreamWriter? readingsCsv = null;
+            ReplaySession? session = null;
+            CaptureFormatException? damaged = null;
             try
             {
                 readingsCsv = settings.ReadingsFile != null ? OpenCsv(settings.ReadingsFile, ReadingsHeader) : null;
-                var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
+                session = new ReplaySession(readout, reader.Metadata.StartedUtc);
                 if (readingsCsv != null)
                 {
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
@@ -83,9 +85,16 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 
                 report = settings.WithIgnoredOptionWarnings(session.Run(source, cancellationToken), reader.Metadata);
             }
-            catch (CaptureFormatException e)
+            catch (CaptureFormatException e) when (session == null || session.Gates == 0)
             {
                 return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+            }
+            catch (CaptureFormatException e)
+            {
+                // Nothing lost: the gates read before the damage are still summarised (and the exit code says it failed).
+                damaged = e;
+                string note = $"the capture is damaged ({e.Message}); this summary covers only the {session.Gates} gates read before it";
+                report = settings.WithIgnoredOptionWarnings(session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings.Append(note)), reader.Metadata);
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -131,7 +140,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 WriteSummary(report, readout, source);
             }
 
-            return 0;
+            return damaged == null ? 0 : CommandOutput.Fail(damaged.Message, CommandOutput.BadInput);
         }
     }
 

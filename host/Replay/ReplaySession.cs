@@ -57,6 +57,9 @@ public sealed class ReplaySession
         _startedUtc = startedUtc;
     }
 
+    /// <summary>Gates processed so far.</summary>
+    public long Gates => _gates;
+
     /// <summary>Called with every reading and the gate it came from (for the readings CSV).</summary>
     public Action<Reading, CaptureGate>? ReadingSink { get; set; }
 
