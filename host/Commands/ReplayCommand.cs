@@ -83,7 +83,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
                 }
 
-                report = settings.WithIgnoredOptionWarnings(session.Run(source, cancellationToken), reader.Metadata);
+                report = settings.WithIgnoredOptionWarnings(RunWithStatus(session, source, settings.Json, cancellationToken), reader.Metadata);
             }
             catch (CaptureFormatException e) when (session == null || session.Gates == 0)
             {
@@ -142,6 +142,36 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 
             return damaged == null ? 0 : CommandOutput.Fail(damaged.Message, CommandOutput.BadInput);
         }
+    }
+
+    /// <summary>
+    /// Runs the session; on an interactive terminal (stderr not redirected, no --json) a status line on
+    /// stderr shows how far into the capture the replay is, so a long capture is not silent.
+    /// </summary>
+    private static ReplayReport RunWithStatus(ReplaySession session, CaptureGateSource source, bool json, CancellationToken ct)
+    {
+        if (json || Console.IsErrorRedirected)
+        {
+            return session.Run(source, ct);
+        }
+
+        ReplayReport? report = null;
+        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+        err.Status().Start("replaying...", ctx =>
+        {
+            Action<Reading, CaptureGate>? inner = session.ReadingSink;
+            long n = 0;
+            session.ReadingSink = (r, g) =>
+            {
+                inner?.Invoke(r, g);
+                if (++n % 200 == 0)
+                {
+                    ctx.Status(string.Create(CultureInfo.InvariantCulture, $"replaying: {r.TimeSeconds:F0} s of capture, {n} gates, {source.RowsRead} rows"));
+                }
+            };
+            report = session.Run(source, ct);
+        });
+        return report!;
     }
 
     /// <summary>JSON output options: plain UTF-8 text in strings (no escaping of '+' or quotes beyond JSON's own rules).</summary>
