@@ -93,8 +93,8 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             {
                 // Nothing lost: the gates read before the damage are still summarised (and the exit code says it failed).
                 damaged = e;
-                string note = $"the capture is damaged ({e.Message}); this summary covers only the {session.Gates} gates read before it";
-                report = settings.WithIgnoredOptionWarnings(session.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings.Append(note)), reader.Metadata);
+                string note = $"the capture is damaged ({e.Message}); this summary covers only the {session!.Gates} gates read before it";
+                report = settings.WithIgnoredOptionWarnings(session!.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings.Append(note)), reader.Metadata);
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
