@@ -89,22 +89,22 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandErrors.Fail(ex.Message);
+            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
         }
         catch (ArgumentOutOfRangeException ex) when (ex.ParamName != "deltaInductanceH")
         {
             // A coil that cannot be wound as given (e.g. --turns of --wire-mm make a bundle wider than the coil).
             string why = ex.Message.Split('\n')[0];
             int cut = why.IndexOf(" (Parameter", StringComparison.Ordinal);
-            return CommandErrors.Fail($"the coil cannot be built from --turns, --diameter-mm, --wire-mm and the winding options given: {(cut > 0 ? why[..cut] : why)}");
+            return CommandOutput.Fail($"the coil cannot be built from --turns, --diameter-mm, --wire-mm and the winding options given: {(cut > 0 ? why[..cut] : why)}", CommandOutput.BadOption);
         }
         catch (ArgumentOutOfRangeException)
         {
             // The inductance change reached -L or beyond (LcResonance): the target overlaps the coil's field so much
             // that the small-dipole model gives no frequency at all.
-            return CommandErrors.Fail(
+            return CommandOutput.Fail(
                 $"a {Fmt(settings.RadiusMm)} mm target at these --depths-mm changes the coil's inductance by more than the model allows " +
-                "(dL/L <= -1): the small-dipole model does not hold this close; give a smaller --radius-mm or larger --depths-mm");
+                "(dL/L <= -1): the small-dipole model does not hold this close; give a smaller --radius-mm or larger --depths-mm", CommandOutput.BadOption);
         }
 
         if (settings.Json)
@@ -271,7 +271,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
 
     private static void Print(CoilReport r)
     {
-        var console = CommandErrors.Stdout();
+        var console = CommandOutput.Stdout();
         var ci = CultureInfo.InvariantCulture;
         var coil = new Table().Title("search coil").AddColumn("figure").AddColumn(new TableColumn("value").RightAligned());
         coil.AddRow("turns", r.Turns.ToString(ci));

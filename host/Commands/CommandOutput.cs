@@ -25,6 +25,15 @@ public static class CommandOutput
         });
     }
 
+    /// <summary>A Spectre console writing to the current <see cref="Console.Error"/> (progress and status displays).</summary>
+    public static IAnsiConsole Stderr()
+    {
+        return AnsiConsole.Create(new AnsiConsoleSettings
+        {
+            Out = new AnsiConsoleOutput(Console.Error),
+        });
+    }
+
     /// <summary>Writes one diagnostic line to stderr (no markup).</summary>
     public static void Diagnostic(string text)
     {

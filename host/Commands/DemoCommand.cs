@@ -96,14 +96,14 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
     private static DemoResult RunWithProgress(string path, CancellationToken ct)
     {
         DemoResult? result = null;
-        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+        var err = CommandOutput.Stderr();
         err.Progress()
             .AutoClear(true)
             .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn())
             .Start(ctx =>
             {
                 ProgressTask task = ctx.AddTask("simulating the floor scan, then replaying it");
-                result = DemoRun.Run(path, new Progress(task), ct);
+                result = DemoRun.Run(path, new ProgressTaskReporter(task), ct);
                 task.Value = task.MaxValue;
             });
         return result!;
@@ -211,12 +211,4 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         return root.ToJsonString();
     }
 
-    private sealed class Progress : IProgress<double>
-    {
-        private readonly ProgressTask task;
-
-        public Progress(ProgressTask task) => this.task = task;
-
-        public void Report(double value) => task.Value = Math.Clamp(value, 0.0, 1.0) * 100.0;
-    }
 }

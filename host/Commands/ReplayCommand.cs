@@ -156,7 +156,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         }
 
         ReplayReport? report = null;
-        var err = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Console.Error) });
+        var err = CommandOutput.Stderr();
         err.Status().Start("replaying...", ctx =>
         {
             Action<Reading, CaptureGate>? inner = session.ReadingSink;

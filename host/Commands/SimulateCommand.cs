@@ -64,7 +64,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandErrors.Fail(ex.Message);
+            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
         }
 
         if (settings.SaveScene is not null)
@@ -75,19 +75,19 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {
-                return CommandErrors.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}");
+                return CommandOutput.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}", CommandOutput.BadOption);
             }
         }
 
         if (settings.Out is null)
         {
-            return settings.SaveScene is not null ? 0 : CommandErrors.Fail("--out <FILE> is required (the capture to write)");
+            return settings.SaveScene is not null ? 0 : CommandOutput.Fail("--out <FILE> is required (the capture to write)", CommandOutput.BadOption);
         }
 
         string format = settings.Format.Trim().ToLowerInvariant();
         if (format is not ("text" or "binary"))
         {
-            return CommandErrors.Fail($"--format must be text or binary (got {settings.Format})");
+            return CommandOutput.Fail($"--format must be text or binary (got {settings.Format})", CommandOutput.BadOption);
         }
 
         SceneModel model;
@@ -97,7 +97,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandErrors.Fail(ex.Message);
+            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
         }
 
         string truthPath = settings.Truth ?? settings.Out + ".truth.json";
@@ -110,11 +110,11 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (ArgumentException ex)
         {
-            return CommandErrors.Fail(ex.Message);
+            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}");
+            return CommandOutput.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}", CommandOutput.BadOption);
         }
 
         try
@@ -123,7 +123,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandErrors.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}");
+            return CommandOutput.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}", CommandOutput.BadOption);
         }
 
         PrintSummary(settings.Out, truthPath, truth);
@@ -181,13 +181,13 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
     private static SimulationTruth RunWithProgress(CaptureSimulator simulator, ICaptureWriter writer, CancellationToken ct)
     {
         SimulationTruth? truth = null;
-        CommandErrors.Stderr().Progress()
+        CommandOutput.Stderr().Progress()
             .AutoClear(true)
             .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new RemainingTimeColumn())
             .Start(ctx =>
             {
                 var task = ctx.AddTask("simulating", maxValue: 1.0);
-                truth = simulator.Run(writer, new TaskProgress(task), ct);
+                truth = simulator.Run(writer, new ProgressTaskReporter(task), ct);
                 task.Value = 1.0;
             });
         return truth!;
@@ -203,7 +203,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
 
     private static void PrintSummary(string capturePath, string truthPath, SimulationTruth t)
     {
-        var console = CommandErrors.Stdout();
+        var console = CommandOutput.Stdout();
         var ci = CultureInfo.InvariantCulture;
         console.MarkupLine(Markup.Escape(
             $"wrote {capturePath}: {t.Rows.ToString(ci)} rows ({t.Kind}), {t.DurationS.ToString("F1", ci)} s, signal {t.Signal}" +
@@ -245,15 +245,4 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
     }
 
-    private sealed class TaskProgress : IProgress<double>
-    {
-        private readonly ProgressTask _task;
-
-        public TaskProgress(ProgressTask task)
-        {
-            _task = task;
-        }
-
-        public void Report(double value) => _task.Value = Math.Clamp(value, 0.0, 1.0);
-    }
 }
