@@ -177,8 +177,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
             console.WriteLine($"The capture and its truth are in {keep}: try `freqreadout replay {Path.Combine(keep, "floor-demo.csv")}` or `count` on it.");
         }
 
-        console.MarkupLine("[bold]Caution:[/] " + Markup.Escape(
-            "a readout that shows nothing is not proof that a wall or floor holds no live wiring or pipe. Isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local electrical and building codes and licensed practice."));
+        console.WriteLine(ReplayCommand.Caution);
     }
 
     private static string ToJson(DemoResult r)
