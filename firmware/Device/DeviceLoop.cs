@@ -27,8 +27,9 @@ namespace FreqReadout.Firmware.Device
         private readonly EdgeCounter edgeCounter;
         private readonly SnapshotCounter snapshotCounter;
         private readonly ReadoutPipeline pipeline;
+        private readonly GateResult gate;
+        private readonly Reading reading;
         private bool hasReading;
-        private Reading lastReading;
         private bool lastHold;
         private long gates;
         private long rejectedTicks;
@@ -94,6 +95,8 @@ namespace FreqReadout.Firmware.Device
             }
 
             pipeline = new ReadoutPipeline(settings.Readout);
+            gate = new GateResult();
+            reading = new Reading();
         }
 
         /// <summary>Gates counted so far.</summary>
@@ -120,17 +123,21 @@ namespace FreqReadout.Firmware.Device
             get { return pipeline; }
         }
 
-        /// <summary>The latest reading, if any gate has closed yet.</summary>
-        public bool TryGetLastReading(out Reading reading)
+        /// <summary>Copies the latest reading into a caller-owned object, if any gate has closed yet (unchanged when false is returned).</summary>
+        public bool TryGetLastReading(Reading into)
         {
-            reading = lastReading;
+            if (hasReading)
+            {
+                into.CopyFrom(reading);
+            }
+
             return hasReading;
         }
 
-        /// <summary>Takes the oldest finished detection event, if any.</summary>
-        public bool TryTakeEvent(out DetectionEvent detectionEvent)
+        /// <summary>Takes the oldest finished detection event into a caller-owned object, if any.</summary>
+        public bool TryTakeEvent(DetectionEvent into)
         {
-            return pipeline.TryTakeEvent(out detectionEvent);
+            return pipeline.TryTakeEvent(into);
         }
 
         /// <summary>
@@ -159,7 +166,6 @@ namespace FreqReadout.Firmware.Device
             int taken = 0;
             ulong raw;
             long tick;
-            GateResult gate;
             while (taken < settings.MaxEdgesPerStep && edges.TryReadEdge(out raw))
             {
                 taken++;
@@ -169,9 +175,9 @@ namespace FreqReadout.Firmware.Device
                     continue;
                 }
 
-                if (edgeCounter.AddEdge(tick, out gate))
+                if (edgeCounter.AddEdge(tick, gate))
                 {
-                    Publish(gate);
+                    Publish();
                     closed++;
                 }
             }
@@ -180,9 +186,9 @@ namespace FreqReadout.Firmware.Device
             {
                 // Unwrap "now" against the last edge without moving the edge unwrapper.
                 long now = timeUnwrapper.LastTick + (long)((raw - timeUnwrapper.LastRaw) & timeUnwrapper.MaxRaw);
-                if (edgeCounter.Poll(now, out gate))
+                if (edgeCounter.Poll(now, gate))
                 {
-                    Publish(gate);
+                    Publish();
                     closed++;
                 }
             }
@@ -207,22 +213,19 @@ namespace FreqReadout.Firmware.Device
                 return 0;
             }
 
-            GateResult gate;
-            if (snapshotCounter.AddSnapshot(tick, count, out gate))
+            if (snapshotCounter.AddSnapshot(tick, count, gate))
             {
-                Publish(gate);
+                Publish();
                 return 1;
             }
 
             return 0;
         }
 
-        private void Publish(GateResult gate)
+        private void Publish()
         {
             gates++;
-            Reading reading;
-            pipeline.Process(gate, out reading);
-            lastReading = reading;
+            pipeline.Process(gate, reading);
             hasReading = true;
             bool changed = !shown || reading.State != lastShownState || reading.Class != lastShownClass;
             if (changed || reading.TimeSeconds - lastShownSeconds >= settings.DisplayIntervalSeconds)

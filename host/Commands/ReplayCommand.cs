@@ -270,7 +270,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         _ => "hold",
     };
 
-    private static string ReadingRow(in Reading r, CaptureGate g)
+    private static string ReadingRow(Reading r, CaptureGate g)
     {
         string N(double v) => v.ToString("R", CultureInfo.InvariantCulture);
         return string.Join(",",

@@ -133,6 +133,7 @@ public sealed class CaptureGateSource
         var md = Metadata;
         var unwrapper = new TimerUnwrapper(md.TimerBits);
         var counter = new EdgeCounter(Settings);
+        var scratch = new GateResult();
         long timeoutTicks = Math.Max(1, (long)Math.Ceiling(Settings.NoSignalSeconds * Settings.ClockHz));
         var pending = new Pending();
         bool haveLast = false;
@@ -155,9 +156,9 @@ public sealed class CaptureGateSource
                 long polls = 0;
                 for (long at = lastTick + timeoutTicks; at < tick && polls < MaxPollsPerGap; at += timeoutTicks, polls++)
                 {
-                    if (counter.Poll(at, out GateResult silent))
+                    if (counter.Poll(at, scratch))
                     {
-                        yield return pending.Take(silent, row.LineNumber);
+                        yield return pending.Take(scratch, row.LineNumber);
                     }
                 }
             }
@@ -165,7 +166,7 @@ public sealed class CaptureGateSource
             pending.Add(row);
             haveLast = true;
             lastTick = tick;
-            bool closed = counter.AddEdge(tick, out GateResult gate);
+            bool closed = counter.AddEdge(tick, scratch);
             if (!wrapChecked && counter.HasRunningPeriod && counter.GatesTotal > 0)
             {
                 wrapChecked = true;
@@ -177,7 +178,7 @@ public sealed class CaptureGateSource
 
             if (closed)
             {
-                yield return pending.Take(gate, row.LineNumber);
+                yield return pending.Take(scratch, row.LineNumber);
             }
         }
 
@@ -191,6 +192,7 @@ public sealed class CaptureGateSource
         var ticks = new TimerUnwrapper(md.TimerBits);
         var counts = new TimerUnwrapper(md.CountBits, true);
         var counter = new SnapshotCounter(Settings);
+        var scratch = new GateResult();
         var pending = new Pending();
         bool wrapChecked = md.TimerBits >= 64 && md.CountBits >= 64;
         foreach (var row in _reader.ReadRows())
@@ -212,8 +214,9 @@ public sealed class CaptureGateSource
 
             RowsFed++;
             pending.Add(row);
-            if (counter.AddSnapshot(tick, count, out GateResult gate))
+            if (counter.AddSnapshot(tick, count, scratch))
             {
+                GateResult gate = scratch;
                 if (!wrapChecked && gate.HasFrequency && gate.Edges > 1 && gate.EndTick > gate.StartTick)
                 {
                     wrapChecked = true;
@@ -282,8 +285,11 @@ public sealed class CaptureGateSource
             }
         }
 
-        public CaptureGate Take(GateResult gate, long line)
+        public CaptureGate Take(GateResult filled, long line)
         {
+            // The counter refills its scratch result at the next gate: each reported gate gets its own copy.
+            var gate = new GateResult();
+            gate.CopyFrom(filled);
             double? mean = _n > 0 ? _sum / _n : null;
             var result = new CaptureGate(gate, mean, _latest, Marks.Count > 0 ? Marks : null, line);
             _sum = 0;

@@ -22,6 +22,8 @@ public sealed class ReplaySession
     public const int MaxListedSettling = 10;
 
     private readonly ReadoutPipeline _pipeline;
+    private readonly Reading _reading = new();
+    private readonly RebaselineNotice _notice = new();
     private readonly ReadoutSettings _settings;
     private readonly DateTimeOffset? _startedUtc;
     private readonly List<double> _residuals = new();
@@ -80,7 +82,8 @@ public sealed class ReplaySession
 
         _gates++;
         _rebaselineMarkPending = false;
-        _pipeline.Process(item.Gate, out Reading reading);
+        Reading reading = _reading;
+        _pipeline.Process(item.Gate, reading);
         Observe(reading);
         _lastTime = reading.TimeSeconds;
         ReadingSink?.Invoke(reading, item);
@@ -151,7 +154,8 @@ public sealed class ReplaySession
 
         _finished = true;
         ClosePoint();
-        if (_pipeline.TryCloseOpenEvent(out DetectionEvent open))
+        var open = new DetectionEvent();
+        if (_pipeline.TryCloseOpenEvent(open))
         {
             AddEvent(open);
             _warnings.Add($"an event still open at the end (from {F(open.StartSeconds)} s) was closed at the last gate ({F(open.EndSeconds)} s)");
@@ -241,7 +245,7 @@ public sealed class ReplaySession
         return new ReplayReport(edges, _lastTime, signal, baseline, noise, noisePpm, drift, _gates, _rebaselines, _events, warnings);
     }
 
-    private void Observe(in Reading reading)
+    private void Observe(Reading reading)
     {
         // A period without signal runs from the last gate with signal (or the start) to the first edge back.
         if (reading.State == ReadoutState.NoSignal)
@@ -307,12 +311,19 @@ public sealed class ReplaySession
 
     private void Drain()
     {
-        while (_pipeline.TryTakeEvent(out DetectionEvent e))
+        while (true)
         {
+            var e = new DetectionEvent(); // kept by the report
+            if (!_pipeline.TryTakeEvent(e))
+            {
+                break;
+            }
+
             AddEvent(e);
         }
 
-        while (_pipeline.TryTakeRebaseline(out RebaselineNotice n))
+        RebaselineNotice n = _notice;
+        while (_pipeline.TryTakeRebaseline(n))
         {
             if (n.Reason != RebaselineReason.Initial)
             {
@@ -326,7 +337,7 @@ public sealed class ReplaySession
         }
     }
 
-    private void AddEvent(in DetectionEvent e)
+    private void AddEvent(DetectionEvent e)
     {
         _events.Add(new ReplayEvent(e, _startedUtc?.AddSeconds(e.StartSeconds)));
     }

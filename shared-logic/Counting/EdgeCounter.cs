@@ -223,11 +223,10 @@ namespace FreqReadout.Counting
         /// Feeds one recorded edge.
         /// </summary>
         /// <param name="tick">Unwrapped timer tick of the edge (e.g. from <see cref="TimerUnwrapper"/>).</param>
-        /// <param name="result">The gate that this edge (or the gap before it) closed; default when none.</param>
+        /// <param name="result">Caller-owned; filled with the gate that this edge (or the gap before it) closed; unchanged when false is returned.</param>
         /// <returns>True when a gate closed with a frequency (state Ok, Glitch or Dropout).</returns>
-        public bool AddEdge(long tick, out GateResult result)
+        public bool AddEdge(long tick, GateResult result)
         {
-            result = default(GateResult);
             if (!_gateOpen)
             {
                 if (_hasLast && tick <= _lastTick)
@@ -268,7 +267,7 @@ namespace FreqReadout.Counting
                 }
                 else if (_gateN >= 2)
                 {
-                    result = CloseGate(GateState.Dropout, 1);
+                    CloseGate(GateState.Dropout, 1, result);
                     closed = true;
                 }
                 else if (_gateAfterGap)
@@ -314,7 +313,7 @@ namespace FreqReadout.Counting
                 return false;
             }
 
-            result = CloseGate(_gateGlitches > 0 ? GateState.Glitch : GateState.Ok, 0);
+            CloseGate(_gateGlitches > 0 ? GateState.Glitch : GateState.Ok, 0, result);
             OpenGate(tick);
             return true;
         }
@@ -327,11 +326,10 @@ namespace FreqReadout.Counting
         /// re-learns the running period.
         /// </summary>
         /// <param name="nowTick">Unwrapped tick now, on the same scale as the edges.</param>
-        /// <param name="result">On true: State NoSignal, HasFrequency false, every frequency 0, Edges 0, StartTick the last edge (or previous report), EndTick now; seconds are 0 before the first edge.</param>
+        /// <param name="result">Caller-owned; unchanged when false is returned. On true: State NoSignal, HasFrequency false, every frequency 0, Edges 0, StartTick the last edge (or previous report), EndTick now; seconds are 0 before the first edge.</param>
         /// <returns>True when a no-signal result is due.</returns>
-        public bool Poll(long nowTick, out GateResult result)
+        public bool Poll(long nowTick, GateResult result)
         {
-            result = default(GateResult);
             if (!_hasRef)
             {
                 _hasRef = true;
@@ -348,7 +346,7 @@ namespace FreqReadout.Counting
             _refTick = nowTick;
             _gateOpen = false;
             _hasPeriod = false;
-            result = new GateResult(
+            result.Set(
                 GateState.NoSignal,
                 _estimator,
                 _signal,
@@ -363,6 +361,7 @@ namespace FreqReadout.Counting
                 nowTick,
                 Seconds(start),
                 Seconds(nowTick),
+                0,
                 0,
                 0);
             return true;
@@ -456,7 +455,7 @@ namespace FreqReadout.Counting
             return _hasFirst ? (tick - _firstTick) / _clockHz : 0;
         }
 
-        private GateResult CloseGate(GateState state, int dropouts)
+        private void CloseGate(GateState state, int dropouts, GateResult result)
         {
             int n = _gateN;
             long m = n - 1;
@@ -475,7 +474,7 @@ namespace FreqReadout.Counting
 
             bool regression = _estimator == EstimatorKind.Regression;
             _gatesTotal++;
-            return new GateResult(
+            result.Set(
                 state,
                 _estimator,
                 _signal,
@@ -491,7 +490,8 @@ namespace FreqReadout.Counting
                 Seconds(_gateStart),
                 Seconds(_lastTick),
                 _gateGlitches,
-                dropouts);
+                dropouts,
+                m * _prescale);
         }
     }
 }

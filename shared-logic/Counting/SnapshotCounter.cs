@@ -207,11 +207,10 @@ namespace FreqReadout.Counting
         /// </summary>
         /// <param name="tick">Unwrapped read tick.</param>
         /// <param name="count">Unwrapped cumulative count.</param>
-        /// <param name="result">The gate this snapshot (or the gap before it) closed, or a NoSignal result; default when none.</param>
+        /// <param name="result">Caller-owned; filled with the gate this snapshot (or the gap before it) closed, or a NoSignal result; unchanged when false is returned.</param>
         /// <returns>True when a result is due: a gate with a frequency (Ok, Glitch or Dropout), or NoSignal (HasFrequency false).</returns>
-        public bool AddSnapshot(long tick, long count, out GateResult result)
+        public bool AddSnapshot(long tick, long count, GateResult result)
         {
-            result = default(GateResult);
             if (!_hasLast)
             {
                 if (!_hasFirst)
@@ -246,7 +245,7 @@ namespace FreqReadout.Counting
                 _hasInterval = false;
                 OpenGate(tick, count);
                 Accept(tick, count);
-                result = NoSignal(start, tick);
+                NoSignal(start, tick, result);
                 return true;
             }
 
@@ -263,7 +262,7 @@ namespace FreqReadout.Counting
                 bool closed = false;
                 if (_n >= 2)
                 {
-                    closed = TryCloseGate(GateState.Dropout, 1, out result);
+                    closed = TryCloseGate(GateState.Dropout, 1, result);
                 }
                 else if (_gateAfterGap)
                 {
@@ -306,7 +305,7 @@ namespace FreqReadout.Counting
             {
                 // Count stall: no count for more than DropoutPeriods expected count periods.
                 _dropoutsTotal++;
-                bool closed = _n >= 2 && TryCloseGate(GateState.Dropout, 1, out result);
+                bool closed = _n >= 2 && TryCloseGate(GateState.Dropout, 1, result);
                 _stalled = true;
                 OpenGate(tick, count);
                 Accept(tick, count);
@@ -340,7 +339,7 @@ namespace FreqReadout.Counting
                 return false;
             }
 
-            bool got = TryCloseGate(_gateGlitches > 0 ? GateState.Glitch : GateState.Ok, 0, out result);
+            bool got = TryCloseGate(_gateGlitches > 0 ? GateState.Glitch : GateState.Ok, 0, result);
             OpenGate(tick, count);
             return got;
         }
@@ -454,9 +453,9 @@ namespace FreqReadout.Counting
             return _hasFirst ? (tick - _firstTick) / _clockHz : 0;
         }
 
-        private GateResult NoSignal(long start, long end)
+        private void NoSignal(long start, long end, GateResult result)
         {
-            return new GateResult(
+            result.Set(
                 GateState.NoSignal,
                 EstimatorKind.SnapshotRegression,
                 _signal,
@@ -472,14 +471,15 @@ namespace FreqReadout.Counting
                 Seconds(start),
                 Seconds(end),
                 0,
+                0,
                 0);
         }
 
-        private bool TryCloseGate(GateState state, int dropouts, out GateResult result)
+        private bool TryCloseGate(GateState state, int dropouts, GateResult result)
         {
             if (_lastCount == _c0)
             {
-                result = NoSignal(_t0, _lastTick);
+                NoSignal(_t0, _lastTick, result);
                 return true;
             }
 
@@ -496,7 +496,7 @@ namespace FreqReadout.Counting
             double var = (q0 * q0 * akk) + (2.0 * q0 * aku) + auu;
             if (!(var > 0))
             {
-                result = NoSignal(_t0, _lastTick);
+                NoSignal(_t0, _lastTick, result);
                 return true;
             }
 
@@ -507,7 +507,7 @@ namespace FreqReadout.Counting
             double sigmaY2 = (1.0 / 12.0) + (slope * slope * _timeVar);
             double errHz = scale * ScalarMath.Sqrt(sigmaY2 / sxx);
             _gatesTotal++;
-            result = new GateResult(
+            result.Set(
                 state,
                 EstimatorKind.SnapshotRegression,
                 _signal,
@@ -523,7 +523,8 @@ namespace FreqReadout.Counting
                 Seconds(_t0),
                 Seconds(_lastTick),
                 _gateGlitches,
-                dropouts);
+                dropouts,
+                (_lastCount - _c0) * _prescale);
             return true;
         }
     }

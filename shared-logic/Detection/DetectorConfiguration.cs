@@ -1,7 +1,7 @@
 namespace FreqReadout.Detection
 {
-    /// <summary>The detector's part of the readout settings (copied at construction; validated by ReadoutSettings).</summary>
-    public struct DetectorConfiguration
+    /// <summary>The detector's part of the readout settings (made once by its owner, read in place every gate; validated by ReadoutSettings).</summary>
+    public sealed class DetectorConfiguration
     {
         public DetectorConfiguration(double thresholdSigma, double hysteresisSigma, double minDurationSeconds, double releaseSeconds, double unclearBandSigma, Polarity polarity)
         {

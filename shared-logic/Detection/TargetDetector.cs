@@ -109,11 +109,10 @@ namespace FreqReadout.Detection
         /// <param name="sigmaHz">Noise sigma, Hz (&gt; 0).</param>
         /// <param name="ppmReferenceHz">Search frequency for ppm, Hz; 0 when unknown.</param>
         /// <param name="readingBelowBeatFloor">This reading's beat note is below the floor.</param>
-        /// <param name="closed">The event that this reading ended, if any.</param>
+        /// <param name="closed">Caller-owned; filled with the event that this reading ended (unchanged when false is returned).</param>
         /// <returns>True when an event ended (released).</returns>
-        public bool Step(double timeSeconds, double spanSeconds, double shiftHz, double sigmaHz, double ppmReferenceHz, bool readingBelowBeatFloor, out DetectionEvent closed)
+        public bool Step(double timeSeconds, double spanSeconds, double shiftHz, double sigmaHz, double ppmReferenceHz, bool readingBelowBeatFloor, DetectionEvent closed)
         {
-            closed = new DetectionEvent();
             justStarted = false;
             DetectorConfiguration c = Configuration;
             double z = ScalarMath.Abs(shiftHz) / sigmaHz;
@@ -155,7 +154,7 @@ namespace FreqReadout.Detection
                     return false;
                 }
 
-                closed = Build(EventEnd.Released);
+                Build(EventEnd.Released, closed);
                 phase = 0;
                 return true;
             }
@@ -192,14 +191,15 @@ namespace FreqReadout.Detection
         /// Closes an open event now (no signal, manual re-baseline, end of run) at its last reading at or
         /// above the release level. An unconfirmed candidate is dropped.
         /// </summary>
+        /// <param name="end">What ended it.</param>
+        /// <param name="closed">Caller-owned; filled with the closed event (unchanged when false is returned).</param>
         /// <returns>True when an event was open.</returns>
-        public bool ForceClose(EventEnd end, out DetectionEvent closed)
+        public bool ForceClose(EventEnd end, DetectionEvent closed)
         {
-            closed = new DetectionEvent();
             bool open = phase == 2;
             if (open)
             {
-                closed = Build(end);
+                Build(end, closed);
             }
 
             phase = 0;
@@ -215,13 +215,13 @@ namespace FreqReadout.Detection
             }
         }
 
-        private DetectionEvent Build(EventEnd end)
+        private void Build(EventEnd end, DetectionEvent into)
         {
             DetectorConfiguration c = Configuration;
             bool hasPpm = ppmReferenceHz > 0;
             double ppm = hasPpm ? peakShiftHz / ppmReferenceHz * 1e6 : 0.0;
             TargetClass cls = SignRule.Classify(peakShiftHz, peakSigma, c.ThresholdSigma, c.UnclearBandSigma, c.Polarity, belowFloor || mixedSign);
-            return new DetectionEvent(startSeconds, endSeconds, peakSeconds, peakShiftHz, hasPpm, ppm, peakSigma, noiseHz, cls, belowFloor, mixedSign, end);
+            into.Set(startSeconds, endSeconds, peakSeconds, peakShiftHz, hasPpm, ppm, peakSigma, noiseHz, cls, belowFloor, mixedSign, end);
         }
     }
 }

@@ -57,6 +57,8 @@ namespace FreqReadout.Readout
         private readonly bool[] delayValid;
         private readonly int delayGates;
 
+        private readonly BaselineEstimate estimate;
+
         private int delayHead;
         private int delayCount;
         private int blankRemaining;
@@ -114,6 +116,7 @@ namespace FreqReadout.Readout
             delayValues = new double[delayGates + 1];
             delaySpans = new double[delayGates + 1];
             delayValid = new bool[delayGates + 1];
+            estimate = new BaselineEstimate();
             state = ReadoutState.Settling;
         }
 
@@ -230,29 +233,34 @@ namespace FreqReadout.Readout
             }
         }
 
-        /// <summary>Takes the oldest finished event.</summary>
-        public bool TryTakeEvent(out DetectionEvent detectionEvent)
+        /// <summary>Takes the oldest finished event into a caller-owned object (unchanged when false is returned).</summary>
+        public bool TryTakeEvent(DetectionEvent into)
         {
-            return events.TryDequeue(out detectionEvent);
+            return events.TryDequeue(into);
         }
 
-        /// <summary>Takes the oldest re-baseline notice (the first baseline has reason Initial).</summary>
-        public bool TryTakeRebaseline(out RebaselineNotice notice)
+        /// <summary>Takes the oldest re-baseline notice (the first baseline has reason Initial) into a caller-owned object (unchanged when false is returned).</summary>
+        public bool TryTakeRebaseline(RebaselineNotice into)
         {
-            return notices.TryDequeue(out notice);
-        }
-
-        /// <summary>End of a replay: closes an open event at its last reading above the release level (End = EndOfRun). An unconfirmed candidate is dropped.</summary>
-        public bool TryCloseOpenEvent(out DetectionEvent detectionEvent)
-        {
-            return detector.ForceClose(EventEnd.EndOfRun, out detectionEvent);
+            return notices.TryDequeue(into);
         }
 
         /// <summary>
-        /// Consumes one gate result and gives its reading.
+        /// End of a replay: closes an open event at its last reading above the release level (End = EndOfRun)
+        /// into a caller-owned object (unchanged when false is returned). An unconfirmed candidate is dropped.
         /// </summary>
+        public bool TryCloseOpenEvent(DetectionEvent into)
+        {
+            return detector.ForceClose(EventEnd.EndOfRun, into);
+        }
+
+        /// <summary>
+        /// Consumes one gate result and fills its reading (both objects are the caller's; the gate is only read).
+        /// </summary>
+        /// <param name="gate">The gate's estimate.</param>
+        /// <param name="reading">Caller-owned; always filled.</param>
         /// <returns>True when the reading carries a shift (a baseline is tracked); false while settling or without signal.</returns>
-        public bool Process(GateResult gate, out Reading reading)
+        public bool Process(GateResult gate, Reading reading)
         {
             double t = gate.EndSeconds;
             double span = gate.SpanSeconds;
@@ -261,7 +269,7 @@ namespace FreqReadout.Readout
                 EnterNoSignal();
                 lastTimeSeconds = t;
                 state = ReadoutState.NoSignal;
-                reading = new Reading(ReadoutState.NoSignal, t, span, false, 0, false, 0, 0, false, 0, 0, 0, 0, 0, false, hold, false, TargetClass.None);
+                reading.Set(ReadoutState.NoSignal, t, span, false, 0, false, 0, 0, false, 0, 0, 0, 0, 0, false, hold, false, TargetClass.None);
                 return false;
             }
 
@@ -279,10 +287,9 @@ namespace FreqReadout.Readout
             if (manualRequested)
             {
                 manualRequested = false;
-                DetectionEvent closedByRequest;
-                if (phase == PhaseTracking && detector.ForceClose(EventEnd.Rebaseline, out closedByRequest))
+                if (phase == PhaseTracking && detector.ForceClose(EventEnd.Rebaseline, events.NextSlot()))
                 {
-                    events.Enqueue(closedByRequest);
+                    events.Commit();
                 }
 
                 BeginRebaseline(RebaselineReason.Manual, gate.StartSeconds);
@@ -311,13 +318,13 @@ namespace FreqReadout.Readout
                     CompleteCapture();
                 }
 
-                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                SettlingReading(t, span, frequency, correction, belowFloor, reading);
                 return false;
             }
 
             if (phase == PhaseSettling)
             {
-                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                SettlingReading(t, span, frequency, correction, belowFloor, reading);
                 return false;
             }
 
@@ -327,11 +334,10 @@ namespace FreqReadout.Readout
             double shift = sideSign * (relative - predictedRelative);
             double sigma = Sigma(gate.ErrorHz);
             double ppmReference = PpmReferenceHz(predicted);
-            DetectionEvent closed;
-            bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, out closed);
+            bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, events.NextSlot());
             if (ended)
             {
-                events.Enqueue(closed);
+                events.Commit();
                 blankRemaining = delayGates;
             }
 
@@ -344,7 +350,7 @@ namespace FreqReadout.Readout
             {
                 detector.Discard();
                 BeginRebaseline(RebaselineReason.Auto, t);
-                reading = SettlingReading(t, span, frequency, correction, belowFloor);
+                SettlingReading(t, span, frequency, correction, belowFloor, reading);
                 return false;
             }
 
@@ -366,7 +372,7 @@ namespace FreqReadout.Readout
 
             state = hold ? ReadoutState.Hold : (present ? ReadoutState.Target : ReadoutState.Tracking);
             bool hasPpm = ppmReference > 0;
-            reading = new Reading(
+            reading.Set(
                 state,
                 t,
                 span,
@@ -388,10 +394,10 @@ namespace FreqReadout.Readout
             return true;
         }
 
-        private Reading SettlingReading(double t, double span, double frequency, double correction, bool belowFloor)
+        private void SettlingReading(double t, double span, double frequency, double correction, bool belowFloor, Reading reading)
         {
             state = ReadoutState.Settling;
-            return new Reading(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None);
+            reading.Set(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None);
         }
 
         private double Sigma(double gateErrorHz)
@@ -429,10 +435,9 @@ namespace FreqReadout.Readout
 
             if (phase == PhaseTracking)
             {
-                DetectionEvent closed;
-                if (detector.ForceClose(EventEnd.NoSignal, out closed))
+                if (detector.ForceClose(EventEnd.NoSignal, events.NextSlot()))
                 {
-                    events.Enqueue(closed);
+                    events.Commit();
                 }
 
                 SnapshotTracker();
@@ -471,8 +476,7 @@ namespace FreqReadout.Readout
 
         private void CompleteCapture()
         {
-            BaselineEstimate estimate;
-            capture.TryEstimate(settings.OutlierSigma, out estimate);
+            capture.TryEstimate(settings.OutlierSigma, estimate);
             noiseWindow.Clear();
             capture.CopyAbsoluteResiduals(noiseWindow);
             runningNoiseHz = estimate.NoiseHz;
@@ -486,7 +490,7 @@ namespace FreqReadout.Readout
                 shift = sideSign * (estimate.LevelHz - oldPrediction);
             }
 
-            notices.Enqueue(new RebaselineNotice(
+            notices.NextSlot().Set(
                 pendingReason,
                 requestedSeconds,
                 estimate.TimeSeconds,
@@ -497,7 +501,8 @@ namespace FreqReadout.Readout
                 hasPpm && hasOld,
                 hasPpm && hasOld ? shift / ppmReference * 1e6 : 0.0,
                 estimate.Gates,
-                estimate.Outliers));
+                estimate.Outliers);
+            notices.Commit();
 
             double slope = hasOld ? oldSlopeHzPerSecond : estimate.SlopeHzPerSecond;
             originHz = estimate.LevelHz;

@@ -97,11 +97,10 @@ namespace FreqReadout.Tracking
         /// Estimates the baseline from the gates held (method in the class summary).
         /// </summary>
         /// <param name="outlierSigma">Rejection limit k in robust sigmas (&gt; 0).</param>
-        /// <param name="estimate">The estimate; default when false is returned.</param>
+        /// <param name="estimate">Caller-owned; filled with the estimate (unchanged when false is returned).</param>
         /// <returns>False when no gate is held.</returns>
-        public bool TryEstimate(double outlierSigma, out BaselineEstimate estimate)
+        public bool TryEstimate(double outlierSigma, BaselineEstimate estimate)
         {
-            estimate = new BaselineEstimate();
             if (count == 0)
             {
                 return false;
@@ -140,7 +139,7 @@ namespace FreqReadout.Tracking
             }
 
             double last = times[count - 1];
-            estimate = new BaselineEstimate(originHz + fitA + (fitB * last), fitB, sigma, last + originSeconds, count, outliers);
+            estimate.Set(originHz + fitA + (fitB * last), fitB, sigma, last + originSeconds, count, outliers);
             return true;
         }
 

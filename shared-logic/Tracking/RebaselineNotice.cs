@@ -4,9 +4,15 @@ namespace FreqReadout.Tracking
     /// A completed baseline capture. Shifts are of the search oscillator (beat side applied):
     /// new baseline minus the previous tracked baseline extrapolated to <see cref="CompletedSeconds"/>.
     /// </summary>
-    public struct RebaselineNotice
+    public sealed class RebaselineNotice
     {
-        public RebaselineNotice(
+        /// <summary>An empty notice (every field 0) for the core to fill.</summary>
+        public RebaselineNotice()
+        {
+        }
+
+        /// <summary>Fills every field; each argument is stored in the property of the same name.</summary>
+        public void Set(
             RebaselineReason reason,
             double requestedSeconds,
             double completedSeconds,
@@ -33,36 +39,53 @@ namespace FreqReadout.Tracking
         }
 
         /// <summary>Why.</summary>
-        public RebaselineReason Reason { get; }
+        public RebaselineReason Reason { get; private set; }
 
         /// <summary>When the re-baseline began (trigger, request, or signal return), s.</summary>
-        public double RequestedSeconds { get; }
+        public double RequestedSeconds { get; private set; }
 
         /// <summary>When the new baseline was ready (last captured gate), s.</summary>
-        public double CompletedSeconds { get; }
+        public double CompletedSeconds { get; private set; }
 
         /// <summary>New baseline of the counted signal (temperature-compensated), Hz.</summary>
-        public double BaselineHz { get; }
+        public double BaselineHz { get; private set; }
 
         /// <summary>Robust noise of the capture (with floors applied), Hz of the counted signal.</summary>
-        public double NoiseHz { get; }
+        public double NoiseHz { get; private set; }
 
         /// <summary>False for the first baseline (there was nothing before it).</summary>
-        public bool HasShift { get; }
+        public bool HasShift { get; private set; }
 
         /// <summary>The shift the new baseline absorbed, search oscillator, Hz.</summary>
-        public double ShiftHz { get; }
+        public double ShiftHz { get; private set; }
 
         /// <summary>False when no ppm reference is known (beat mode without search_hz).</summary>
-        public bool HasPpm { get; }
+        public bool HasPpm { get; private set; }
 
         /// <summary>The absorbed shift, ppm of the search oscillator.</summary>
-        public double ShiftPpm { get; }
+        public double ShiftPpm { get; private set; }
 
         /// <summary>Gates captured.</summary>
-        public int Gates { get; }
+        public int Gates { get; private set; }
 
         /// <summary>Gates rejected as outliers in the capture.</summary>
-        public int Outliers { get; }
+        public int Outliers { get; private set; }
+
+        /// <summary>Copies every field of <paramref name="other"/> into this object.</summary>
+        public void CopyFrom(RebaselineNotice other)
+        {
+            Set(
+                other.Reason,
+                other.RequestedSeconds,
+                other.CompletedSeconds,
+                other.BaselineHz,
+                other.NoiseHz,
+                other.HasShift,
+                other.ShiftHz,
+                other.HasPpm,
+                other.ShiftPpm,
+                other.Gates,
+                other.Outliers);
+        }
     }
 }

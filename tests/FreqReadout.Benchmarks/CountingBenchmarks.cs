@@ -36,11 +36,12 @@ public class CountingBenchmarks
     {
         var u = new TimerUnwrapper(32);
         var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.1, JitterTicks = 1.2 });
+        var r = new GateResult();
         double sum = 0;
         ulong[] raw = _raw;
         for (int k = 0; k < raw.Length; k++)
         {
-            if (u.TryUnwrap(raw[k], out long tick) && c.AddEdge(tick, out GateResult r))
+            if (u.TryUnwrap(raw[k], out long tick) && c.AddEdge(tick, r))
             {
                 sum += r.FrequencyHz;
             }
@@ -54,12 +55,13 @@ public class CountingBenchmarks
     {
         var u = new TimerUnwrapper(32);
         var c = new SnapshotCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.1 });
+        var r = new GateResult();
         double sum = 0;
         ulong[] raw = _raw;
         long[] counts = _counts;
         for (int k = 0; k < raw.Length; k++)
         {
-            if (u.TryUnwrap(raw[k], out long tick) && c.AddSnapshot(tick, counts[k], out GateResult r))
+            if (u.TryUnwrap(raw[k], out long tick) && c.AddSnapshot(tick, counts[k], r))
             {
                 sum += r.FrequencyHz;
             }

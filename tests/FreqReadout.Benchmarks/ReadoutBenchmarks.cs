@@ -27,7 +27,8 @@ public class ReadoutBenchmarks
             double t0 = k * 0.1;
             double t1 = t0 + 0.1;
             double f = 100_000 + (0.001 * t1) + (k % 200 > 195 ? 2.0 : 0) + (0.1 * (rng.NextDouble() - 0.5) * 3.46);
-            _gates[k] = new GateResult(GateState.Ok, EstimatorKind.Regression, SignalKind.Search, true, f, 0, f, f, 10_000, 1, 0, 0, t0, t1, 0, 0);
+            _gates[k] = new GateResult();
+            _gates[k].Set(GateState.Ok, EstimatorKind.Regression, SignalKind.Search, true, f, 0, f, f, 10_000, 1, 0, 0, t0, t1, 0, 0, 9_999);
         }
     }
 
@@ -35,12 +36,14 @@ public class ReadoutBenchmarks
     public int PipelineProcess()
     {
         var p = new ReadoutPipeline(new ReadoutSettings());
+        var reading = new Reading();
+        var e = new DetectionEvent();
         int events = 0;
         GateResult[] gates = _gates;
         for (int k = 0; k < gates.Length; k++)
         {
-            p.Process(gates[k], out Reading _);
-            while (p.TryTakeEvent(out DetectionEvent _))
+            p.Process(gates[k], reading);
+            while (p.TryTakeEvent(e))
             {
                 events++;
             }

@@ -1,3 +1,4 @@
+using FreqReadout.Detection;
 using BenchmarkDotNet.Attributes;
 using FreqReadout.Counting;
 using FreqReadout.Readout;
@@ -43,7 +44,8 @@ public class ReadoutPipelineBenchmarks
         while (gates.Count < 20_000)
         {
             long tick = (long)(tt * ClockHz) + rng.Next(-2, 3) + 1000;
-            if (u.TryUnwrap((ulong)tick & 0xFFFFFFFFUL, out long unwrapped) && c.AddEdge(unwrapped, out GateResult r))
+            var r = new GateResult();
+            if (u.TryUnwrap((ulong)tick & 0xFFFFFFFFUL, out long unwrapped) && c.AddEdge(unwrapped, r))
             {
                 gates.Add(r);
             }
@@ -69,16 +71,18 @@ public class ReadoutPipelineBenchmarks
     public int PipelinePerGate()
     {
         var pipeline = new ReadoutPipeline(Readout());
+        var reading = new Reading();
+        var e = new DetectionEvent();
         int present = 0;
         GateResult[] gates = _gates;
         for (int i = 0; i < gates.Length; i++)
         {
-            if (pipeline.Process(gates[i], out Reading reading) && reading.TargetPresent)
+            if (pipeline.Process(gates[i], reading) && reading.TargetPresent)
             {
                 present++;
             }
 
-            while (pipeline.TryTakeEvent(out _))
+            while (pipeline.TryTakeEvent(e))
             {
             }
         }
@@ -92,17 +96,20 @@ public class ReadoutPipelineBenchmarks
         var u = new TimerUnwrapper(32);
         var c = new EdgeCounter(Counter());
         var pipeline = new ReadoutPipeline(Readout());
+        var gate = new GateResult();
+        var reading = new Reading();
+        var e = new DetectionEvent();
         int present = 0;
         ulong[] raw = _raw;
         for (int k = 0; k < raw.Length; k++)
         {
-            if (u.TryUnwrap(raw[k], out long tick) && c.AddEdge(tick, out GateResult gate)
-                && pipeline.Process(gate, out Reading reading) && reading.TargetPresent)
+            if (u.TryUnwrap(raw[k], out long tick) && c.AddEdge(tick, gate)
+                && pipeline.Process(gate, reading) && reading.TargetPresent)
             {
                 present++;
             }
 
-            while (pipeline.TryTakeEvent(out _))
+            while (pipeline.TryTakeEvent(e))
             {
             }
         }

@@ -60,7 +60,8 @@ public class DeviceLoopTests
 
         Assert.True(loop.Gates >= 18, "gates: " + loop.Gates);
         Assert.Equal(0, loop.RejectedTicks);
-        Assert.True(loop.TryGetLastReading(out Reading r));
+        var r = new Reading();
+        Assert.True(loop.TryGetLastReading(r));
         Assert.True(r.HasFrequency);
         Assert.InRange(r.FrequencyHz, 12_499.9, 12_500.1); // truth of the generated edges, +-1 tick jitter
         Assert.Equal("F 12500.0 Hz", line1);
@@ -84,7 +85,8 @@ public class DeviceLoopTests
         Feed(source, t, t + 5, _ => 10_000.0, 32, rng);
         Run(loop, source);
 
-        Assert.True(loop.TryTakeEvent(out DetectionEvent e), "no event");
+        var e = new DetectionEvent();
+        Assert.True(loop.TryTakeEvent(e), "no event");
         Assert.Equal(TargetClass.NonFerrous, e.Class);
         Assert.InRange(e.PeakShiftHz, 1.6, 2.4);
     }
@@ -107,7 +109,8 @@ public class DeviceLoopTests
         Run(loop, source);
 
         bool manual = false;
-        while (loop.Pipeline.TryTakeRebaseline(out RebaselineNotice n))
+        var n = new RebaselineNotice();
+        while (loop.Pipeline.TryTakeRebaseline(n))
         {
             manual |= n.Reason == RebaselineReason.Manual;
         }
@@ -133,7 +136,8 @@ public class DeviceLoopTests
         loop.Step();
 
         Assert.Equal("F --- no signal", line1);
-        Assert.True(loop.TryGetLastReading(out Reading r));
+        var r = new Reading();
+        Assert.True(loop.TryGetLastReading(r));
         Assert.False(r.HasFrequency);
     }
 
@@ -160,7 +164,8 @@ public class DeviceLoopTests
             loop.Step();
         }
 
-        Assert.True(loop.TryGetLastReading(out Reading r));
+        var r = new Reading();
+        Assert.True(loop.TryGetLastReading(r));
         Assert.True(r.HasFrequency);
         Assert.InRange(r.FrequencyHz, 129_998.0, 130_002.0); // whole-count quantisation, 100 reads per gate
         Assert.Equal(0, loop.RejectedTicks);

@@ -10,7 +10,7 @@ namespace FreqReadout.Tests.Counting;
 [Collection("Allocation")]
 public class AllocationTests
 {
-    private static long Feed(EdgeCounter c, TimerUnwrapper u, long from, long count, ref double sink)
+    private static long Feed(EdgeCounter c, TimerUnwrapper u, GateResult r, long from, long count, ref double sink)
     {
         long gates = 0;
         for (long k = from; k < from + count; k++)
@@ -20,18 +20,18 @@ public class AllocationTests
             if (k % 400_000 == 20) continue;                            // two missing edges ...
             if (k % 400_000 > 20 && k % 400_000 < 40) continue;         // ... and a dropout of 20 periods
             if (!u.TryUnwrap(raw, out long tick)) continue;
-            if (c.AddEdge(tick, out GateResult r))
+            if (c.AddEdge(tick, r))
             {
                 gates++;
                 sink += r.FrequencyHz + r.ErrorHz;
             }
 
-            if (k % 50_000 == 7 && u.TryUnwrap((raw + 20) & 0xFFFFFFFFUL, out long extra) && c.AddEdge(extra, out r))
+            if (k % 50_000 == 7 && u.TryUnwrap((raw + 20) & 0xFFFFFFFFUL, out long extra) && c.AddEdge(extra, r))
             {
                 sink += r.FrequencyHz; // double trigger 20 ticks after the edge
             }
 
-            if ((k & 1023) == 0 && c.Poll(tick, out GateResult p)) sink += p.EndSeconds;
+            if ((k & 1023) == 0 && c.Poll(tick, r)) sink += r.EndSeconds;
         }
 
         return gates;
@@ -42,10 +42,11 @@ public class AllocationTests
     {
         var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.01, JitterTicks = 2 });
         var u = new TimerUnwrapper(32);
+        var r = new GateResult(); // caller-owned, filled in place by the counter
         double sink = 0;
-        Feed(c, u, 0, 200_000, ref sink); // warm-up (JIT, tiering)
+        Feed(c, u, r, 0, 200_000, ref sink); // warm-up (JIT, tiering)
         long before = GC.GetAllocatedBytesForCurrentThread();
-        long gates = Feed(c, u, 200_000, 1_200_000, ref sink);
+        long gates = Feed(c, u, r, 200_000, 1_200_000, ref sink);
         long after = GC.GetAllocatedBytesForCurrentThread();
         Assert.Equal(0, after - before);
         Assert.True(gates > 500, "gates " + gates);
@@ -54,7 +55,7 @@ public class AllocationTests
         Assert.True(sink > 0);
     }
 
-    private static long FeedSnapshots(SnapshotCounter c, TimerUnwrapper ut, TimerUnwrapper uc, long from, long count, ref double sink)
+    private static long FeedSnapshots(SnapshotCounter c, TimerUnwrapper ut, TimerUnwrapper uc, GateResult r, long from, long count, ref double sink)
     {
         long gates = 0;
         for (long k = from; k < from + count; k++)
@@ -62,9 +63,9 @@ public class AllocationTests
             if (k % 250_000 > 100 && k % 250_000 < 120) continue;           // a read gap (dropout)
             long t = k * 1000 + (k * 7919 % 41) - 20;                           // +-20 ticks of read jitter
             long n = (k % 500_000 > 1000 && k % 500_000 < 1200) ? (k - k % 500_000 + 1000) * 130 : t * 130 / 1000; // a count stall
-            if (k % 100_003 == 5) { if (ut.TryUnwrap((ulong)(t - 5000) & 0xFFFFFFFF, out long bad)) c.AddSnapshot(bad, 0, out _); }
+            if (k % 100_003 == 5) { if (ut.TryUnwrap((ulong)(t - 5000) & 0xFFFFFFFF, out long bad)) c.AddSnapshot(bad, 0, r); }
             if (!ut.TryUnwrap((ulong)t & 0xFFFFFFFF, out long tick) || !uc.TryUnwrap((ulong)n & 0xFFFF, out long cnt)) continue;
-            if (c.AddSnapshot(tick, cnt, out GateResult r))
+            if (c.AddSnapshot(tick, cnt, r))
             {
                 gates++;
                 sink += r.FrequencyHz + r.ErrorHz + r.EndSeconds;
@@ -80,10 +81,11 @@ public class AllocationTests
         var c = new SnapshotCounter(new CounterSettings { ClockHz = 1e6, GateSeconds = 0.1, JitterTicks = 11.5 });
         var ut = new TimerUnwrapper(32);
         var uc = new TimerUnwrapper(16, true);
+        var r = new GateResult();
         double sink = 0;
-        FeedSnapshots(c, ut, uc, 0, 200_000, ref sink);
+        FeedSnapshots(c, ut, uc, r, 0, 200_000, ref sink);
         long before = GC.GetAllocatedBytesForCurrentThread();
-        long gates = FeedSnapshots(c, ut, uc, 200_000, 1_100_000, ref sink);
+        long gates = FeedSnapshots(c, ut, uc, r, 200_000, 1_100_000, ref sink);
         long after = GC.GetAllocatedBytesForCurrentThread();
         Assert.Equal(0, after - before);
         Assert.True(gates > 10_000, "gates " + gates);

@@ -18,14 +18,20 @@ public class AllocationTests
         }
 
         GateResult[] gates = stream.Gates().ToArray();
+        GateResult[] silent = new GateResult[gates.Length];
+        for (int k = 5000; k < 5020; k++)
+        {
+            silent[k] = CoreTestExtensions.Gate(GateState.NoSignal, EstimatorKind.Regression, SignalKind.Search, false, 0, 0, 0, 0, 0, 1, 0, 0, gates[k].StartSeconds, gates[k].EndSeconds, 0, 0);
+        }
 
         // Warm up on a first pipeline over the very same sequence, so that every path (targets,
         // re-baselines, hold, no signal) is jitted and its one-time type loading done before measuring;
         // then measure a second, fresh pipeline (built before the measurement starts).
-        Drive(new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 }), gates, out _, out _);
+        Drive(new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 }), gates, silent, new Outputs(), out _, out _);
         var pipeline = new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 });
+        var outputs = new Outputs(); // caller-owned result objects, made once as a device loop makes them
         long before = GC.GetAllocatedBytesForCurrentThread();
-        Drive(pipeline, gates, out int events, out int notices);
+        Drive(pipeline, gates, silent, outputs, out int events, out int notices);
         long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
         Assert.Equal(0, allocated);
 
@@ -34,8 +40,11 @@ public class AllocationTests
         Assert.True(notices >= 4, "notices " + notices);
     }
 
-    private static void Drive(ReadoutPipeline pipeline, GateResult[] gates, out int events, out int notices)
+    private static void Drive(ReadoutPipeline pipeline, GateResult[] gates, GateResult[] silent, Outputs outputs, out int events, out int notices)
     {
+        Reading reading = outputs.Reading;
+        DetectionEvent e = outputs.Event;
+        RebaselineNotice n = outputs.Notice;
         events = 0;
         notices = 0;
         for (int k = 0; k < gates.Length; k++)
@@ -60,17 +69,26 @@ public class AllocationTests
                 pipeline.SetHold(false);
             }
 
-            GateResult g = k >= 5000 && k < 5020 ? new GateResult(GateState.NoSignal, EstimatorKind.Regression, SignalKind.Search, false, 0, 0, 0, 0, 0, 1, 0, 0, gates[k].StartSeconds, gates[k].EndSeconds, 0, 0) : gates[k];
-            pipeline.Process(g, out Reading reading);
-            while (pipeline.TryTakeEvent(out DetectionEvent e))
+            GateResult g = silent[k] ?? gates[k];
+            pipeline.Process(g, reading);
+            while (pipeline.TryTakeEvent(e))
             {
                 events++;
             }
 
-            while (pipeline.TryTakeRebaseline(out RebaselineNotice n))
+            while (pipeline.TryTakeRebaseline(n))
             {
                 notices++;
             }
         }
+    }
+
+    private sealed class Outputs
+    {
+        public Reading Reading { get; } = new();
+
+        public DetectionEvent Event { get; } = new();
+
+        public RebaselineNotice Notice { get; } = new();
     }
 }

@@ -102,12 +102,12 @@ internal sealed class SyntheticGateStream
     public GateResult Make(double frequencyHz, double t0, double t1)
     {
         int edges = (int)Math.Max(2, Math.Round(frequencyHz * (t1 - t0)));
-        return new GateResult(GateState.Ok, EstimatorKind.Regression, Signal, true, frequencyHz, 0.0, frequencyHz, frequencyHz,
+        return CoreTestExtensions.Gate(GateState.Ok, EstimatorKind.Regression, Signal, true, frequencyHz, 0.0, frequencyHz, frequencyHz,
             edges, 1, (long)(t0 * 80e6), (long)(t1 * 80e6), t0, t1, 0, 0);
     }
 
     public static GateResult NoSignal(double t0, double t1) =>
-        new(GateState.NoSignal, EstimatorKind.Regression, SignalKind.Search, false, 0, 0, 0, 0, 0, 1, 0, 0, t0, t1, 0, 0);
+        CoreTestExtensions.Gate(GateState.NoSignal, EstimatorKind.Regression, SignalKind.Search, false, 0, 0, 0, 0, 0, 1, 0, 0, t0, t1, 0, 0);
 
     public static double Gaussian(Random rng)
     {
