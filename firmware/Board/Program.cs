@@ -19,6 +19,8 @@ namespace FreqReadout.Firmware.Board
             while (true)
             {
                 loop.Step();
+                // Thread.Sleep(1) lasts a whole 10 ms system tick on nanoFramework: this paces about 100
+                // reads a second. Pacing on HighResTimer deadlines is the device issue's work.
                 Thread.Sleep(1);
             }
         }

@@ -26,11 +26,13 @@ namespace FreqReadout.Readout
     /// </para>
     /// <para>
     /// The tracker runs on offsets from the last captured baseline (and the capture on offsets from
-    /// its first gate), so a device whose double is computed in single precision keeps the resolution
-    /// of small shifts instead of losing updates below the ulp of 1e5 Hz (about 0.008 Hz).
+    /// its first gate), so its sums work on small numbers rather than differences of ~1e5 Hz values
+    /// (the device's double is IEEE double, done in software on ESP32; only System.Math is single precision).
     /// The first baseline takes the capture's own slope; later ones keep the tracked slope (filtered
     /// over tracker_slope_s, better than a few seconds of capture). Nothing here allocates after the
-    /// constructor; Process, the setters and the TryTake methods are safe for a device loop.
+    /// constructor, and no struct is made or copied (results are caller-owned objects filled in place);
+    /// Process, the setters and the TryTake methods are safe for a device loop. Per gate the work is
+    /// O(log noise_window_gates); the gate that completes a capture adds O(baseline_max_gates) expected.
     /// </para>
     /// </summary>
     public sealed class ReadoutPipeline

@@ -4,7 +4,9 @@ namespace FreqReadout.Tracking
 {
     /// <summary>
     /// Collects the gates of a baseline capture into fixed arrays (allocated once) and estimates level,
-    /// slope and robust noise with outlier rejection.
+    /// slope and robust noise with outlier rejection. Adding a gate is O(1); the estimate, once per
+    /// capture, is O(n) expected (in-place selections, see <see cref="RobustStatistics.SelectInPlace"/>),
+    /// never O(n^2).
     /// <para>
     /// Method: (1) resistant line (Tukey's three-group line): b = (median x_R - median x_L) /
     /// (median t_R - median t_L) over the first and last thirds of the points, a = median(x_i - b t_i)
@@ -86,7 +88,7 @@ namespace FreqReadout.Tracking
                 originHz = valueHz;
             }
 
-            // Offsets from the first gate keep small differences exact on a single-precision device double.
+            // Offsets from the first gate keep the small differences the fit works on free of cancellation against ~1e5 Hz.
             times[count] = timeSeconds - originSeconds;
             values[count] = valueHz - originHz;
             count++;
