@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using FreqReadout.Counting;
+using FreqReadout.Detection;
 using FreqReadout.Host.Captures;
 using FreqReadout.Host.Counting;
 using FreqReadout.Host.Replay;
@@ -217,6 +218,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 json.WriteNumber("peak_shift_hz", e.Event.PeakShiftHz);
                 Nullable(json, "peak_shift_ppm", e.Event.HasPpm ? e.Event.PeakShiftPpm : null);
                 json.WriteString("class", e.ClassName);
+                json.WriteBoolean("absorbed", e.Event.End == EventEnd.AutoRebaseline);
                 if (e.StartUtc is DateTimeOffset utc)
                 {
                     json.WriteString("start_utc", utc.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture));
@@ -305,7 +307,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             N(d.PeakSigma),
             N(d.NoiseHz),
             e.ClassName,
-            d.End.ToString().ToLowerInvariant(),
+            ReplayEvent.EndText(d.End),
             e.StartUtc is DateTimeOffset u ? u.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture) : string.Empty);
     }
 

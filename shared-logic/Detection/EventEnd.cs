@@ -14,5 +14,11 @@ namespace FreqReadout.Detection
 
         /// <summary>Still open at the end of a replay: closed at the last gate.</summary>
         EndOfRun = 3,
+
+        /// <summary>The shift outlasted persistent_shift_s (outside hold mode): reported, then absorbed by an automatic re-baseline.</summary>
+        AutoRebaseline = 4,
+
+        /// <summary>Decided afterwards from the readings on both sides of it (a local quadratic baseline): the shift returned like a coil pass.</summary>
+        Resolved = 5,
     }
 }

@@ -81,6 +81,12 @@ namespace FreqReadout.Detection
             get { return persistSinceSeconds; }
         }
 
+        /// <summary>Some reading of the open candidate or event had the beat note below its floor.</summary>
+        public bool BelowFloorSeen
+        {
+            get { return phase != 0 && belowFloor; }
+        }
+
         /// <summary>Signed peak shift of the open candidate or event, Hz (search oscillator).</summary>
         public double PeakShiftHz
         {

@@ -34,6 +34,8 @@ namespace FreqReadout.Numerics
                 return x;
             }
 
+            // Scale m into [1, 4) by exact powers of four, coarse steps first, so every loop is short
+            // (at most 16, 3, 3 and 1 passes downwards; the same upwards) whatever the exponent.
             double m = x;
             double scale = 1;
             while (m >= TwoTo64)
@@ -46,6 +48,30 @@ namespace FreqReadout.Numerics
             {
                 m *= TwoTo64;
                 scale *= TwoToMinus32;
+            }
+
+            while (m >= 65536.0)
+            {
+                m *= 1.0 / 65536.0;
+                scale *= 256.0;
+            }
+
+            while (m < 1.0 / 65536.0)
+            {
+                m *= 65536.0;
+                scale *= 1.0 / 256.0;
+            }
+
+            while (m >= 16.0)
+            {
+                m *= 0.0625;
+                scale *= 4.0;
+            }
+
+            while (m < 0.0625)
+            {
+                m *= 16.0;
+                scale *= 0.25;
             }
 
             while (m >= 4)
@@ -153,7 +179,8 @@ namespace FreqReadout.Numerics
 
         /// <summary>
         /// e^x by range reduction x = k ln2 + r, |r| &lt;= ln2 / 2, a Taylor series of e^r to the 16th
-        /// power (truncation below 1e-17 relative), then scaling by 2^k. Returns 0 below -745,
+        /// power (truncation below 1e-17 relative), then scaling by 2^k through the binary digits of k
+        /// (O(log |k|) exact multiplications by powers of two). Returns 0 below -745,
         /// +infinity above 709.78, NaN for NaN.
         /// </summary>
         public static double Exp(double x)
@@ -184,16 +211,28 @@ namespace FreqReadout.Numerics
                 sum += term;
             }
 
-            while (k > 0)
+            // Scaling by 2^k through the bits of |k| (at most 11 passes): factor 2^(2^i) or 2^-(2^i).
+            // Below k = -1000 the scaling is split in two so no factor underflows on its own.
+            if (k < -1000)
             {
-                sum *= 2.0;
-                k--;
+                sum *= TwoToMinus64;
+                k += 64;
             }
 
-            while (k < 0)
+            double factor = k >= 0 ? 2.0 : 0.5;
+            long bits = k >= 0 ? k : -k;
+            while (bits > 0)
             {
-                sum *= 0.5;
-                k++;
+                if ((bits & 1) == 1)
+                {
+                    sum *= factor;
+                }
+
+                bits >>= 1;
+                if (bits > 0)
+                {
+                    factor *= factor;
+                }
             }
 
             return sum;

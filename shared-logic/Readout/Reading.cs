@@ -33,7 +33,8 @@ namespace FreqReadout.Readout
             bool targetPresent,
             bool holdActive,
             bool belowBeatFloor,
-            TargetClass targetClass)
+            TargetClass targetClass,
+            bool baselineDisturbed)
         {
             State = state;
             TimeSeconds = timeSeconds;
@@ -53,6 +54,7 @@ namespace FreqReadout.Readout
             HoldActive = holdActive;
             BelowBeatFloor = belowBeatFloor;
             Class = targetClass;
+            BaselineDisturbed = baselineDisturbed;
         }
 
         /// <summary>State of the readout at this reading.</summary>
@@ -109,6 +111,9 @@ namespace FreqReadout.Readout
         /// <summary>Live class of the open target by the sign rule (None without a target).</summary>
         public TargetClass Class { get; private set; }
 
+        /// <summary>The last baseline capture was disturbed (being captured again, or kept as the best of several disturbed attempts).</summary>
+        public bool BaselineDisturbed { get; private set; }
+
         /// <summary>True when this reading is a target-free residual (baseline tracked, no target open).</summary>
         public bool IsTargetFree
         {
@@ -136,7 +141,8 @@ namespace FreqReadout.Readout
                 other.TargetPresent,
                 other.HoldActive,
                 other.BelowBeatFloor,
-                other.Class);
+                other.Class,
+                other.BaselineDisturbed);
         }
     }
 }

@@ -41,6 +41,11 @@ namespace FreqReadout.Readout
         private const int MinCaptureGates = 5;
         private const double TimeEpsilonSeconds = 1e-6;
 
+        private const int MaxRecaptures = 3;
+        private const int MinDisturbanceGates = 10;
+        private const double DisturbedNoiseRatio = 2.5;
+        private const double CurvedNoiseRatio = 0.7;
+
         private const int PhaseSettling = 0;
         private const int PhaseCapturing = 1;
         private const int PhaseTracking = 2;
@@ -60,6 +65,23 @@ namespace FreqReadout.Readout
         private readonly int delayGates;
 
         private readonly BaselineEstimate estimate;
+        private readonly ReadingHistory history;
+        private readonly ExcursionResolver resolver;
+        private readonly ExcursionVerdict verdict;
+        private readonly QuadraticFit curveFit;
+        private double lastCheckSeconds;
+        private long lockRecoveries;
+        private int recaptures;
+        private bool disturbed;
+        private bool hasBest;
+        private double bestRatio;
+        private double bestLevelHz;
+        private double bestSlopeHzPerSecond;
+        private double bestNoiseHz;
+        private double bestTimeSeconds;
+        private int bestGates;
+        private int bestOutliers;
+        private double disturbanceSign;
 
         private int delayHead;
         private int delayCount;
@@ -119,6 +141,10 @@ namespace FreqReadout.Readout
             delaySpans = new double[delayGates + 1];
             delayValid = new bool[delayGates + 1];
             estimate = new BaselineEstimate();
+            history = new ReadingHistory(settings.HistoryGates);
+            resolver = new ExcursionResolver();
+            verdict = new ExcursionVerdict();
+            curveFit = new QuadraticFit();
             state = ReadoutState.Settling;
         }
 
@@ -162,6 +188,12 @@ namespace FreqReadout.Readout
         public double FirstBaselineHz
         {
             get { return firstBaselineHz; }
+        }
+
+        /// <summary>Candidates decided afterwards to be drift the tracker had failed to follow (lock recovered by re-anchoring, no event).</summary>
+        public long LockRecoveries
+        {
+            get { return lockRecoveries; }
         }
 
         /// <summary>Hold mode is on.</summary>
@@ -271,7 +303,7 @@ namespace FreqReadout.Readout
                 EnterNoSignal();
                 lastTimeSeconds = t;
                 state = ReadoutState.NoSignal;
-                reading.Set(ReadoutState.NoSignal, t, span, false, 0, false, 0, 0, false, 0, 0, 0, 0, 0, false, hold, false, TargetClass.None);
+                reading.Set(ReadoutState.NoSignal, t, span, false, 0, false, 0, 0, false, 0, 0, 0, 0, 0, false, hold, false, TargetClass.None, false);
                 return false;
             }
 
@@ -332,32 +364,50 @@ namespace FreqReadout.Readout
 
             double relative = x - originHz;
             double predictedRelative = tracker.Predict(t);
-            double predicted = originHz + predictedRelative;
             double shift = sideSign * (relative - predictedRelative);
             double sigma = Sigma(gate.ErrorHz);
-            double ppmReference = PpmReferenceHz(predicted);
+            double ppmReference = PpmReferenceHz(originHz + predictedRelative);
+            history.Add(t, span, relative);
             bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, events.NextSlot());
+            bool anchored = false;
             if (ended)
             {
                 events.Commit();
+                history.Exclude(detector.StartSeconds - ExcursionResolver.EdgeMarginSeconds, t);
                 blankRemaining = delayGates;
             }
 
             if (detector.JustStarted)
             {
                 InvalidateDelayLine();
+                lastCheckSeconds = t;
+            }
+            else if (detector.TargetPresent && !hold && t - lastCheckSeconds + TimeEpsilonSeconds >= ExcursionResolver.CheckIntervalSeconds)
+            {
+                lastCheckSeconds = t;
+                anchored = Decide(t, sigma, belowFloor);
             }
 
             if (detector.EventOpen && !hold && t - detector.PersistSinceSeconds + TimeEpsilonSeconds >= settings.PersistentShiftSeconds)
             {
-                detector.Discard();
-                BeginRebaseline(RebaselineReason.Auto, t);
-                SettlingReading(t, span, frequency, correction, belowFloor, reading);
-                return false;
+                if (!AbsorbPersistentShift(t, sigma))
+                {
+                    SettlingReading(t, span, frequency, correction, belowFloor, reading);
+                    return false;
+                }
+
+                anchored = true;
             }
 
+            if (anchored)
+            {
+                predictedRelative = tracker.Predict(t);
+                shift = sideSign * (relative - predictedRelative);
+            }
+
+            double predicted = originHz + predictedRelative;
             bool present = detector.TargetPresent;
-            bool valid = !present && !ended && blankRemaining == 0;
+            bool valid = !present && !ended && !anchored && blankRemaining == 0;
             if (!present && !ended && blankRemaining > 0)
             {
                 blankRemaining--;
@@ -387,19 +437,133 @@ namespace FreqReadout.Readout
                 hasPpm ? shift / ppmReference * 1e6 : 0.0,
                 ScalarMath.Abs(shift) / sigma,
                 sigma,
-                tracker.SlopeHzPerSecond,
+                tracker.PredictSlope(t),
                 correction,
                 present,
                 hold,
                 belowFloor,
-                live);
+                live,
+                disturbed);
             return true;
+        }
+
+        // An open candidate decided from both sides of it (ExcursionResolver): a pass is reported with its
+        // two-sided peak, drift and false starts re-anchor the tracker; true when the tracker was re-anchored.
+        private bool Decide(double t, double sigma, bool belowFloorNow)
+        {
+            double releaseSigma = settings.ThresholdSigma - settings.HysteresisSigma;
+            double age = t - detector.StartSeconds + TimeEpsilonSeconds;
+            bool allowDrift = age >= settings.LockCheckSeconds;
+            bool allowPass = age < 2.0 * settings.LockCheckSeconds;
+            if (!allowPass && !allowDrift)
+            {
+                return false;
+            }
+
+            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, verdict);
+            if (verdict.Kind == ExcursionVerdict.Pending)
+            {
+                return false;
+            }
+
+            if (verdict.Kind == ExcursionVerdict.Pass)
+            {
+                double peakShift = sideSign * verdict.PeakCountedHz;
+                double peakSigma = ScalarMath.Abs(peakShift) / sigma;
+                double ppmReference = PpmReferenceHz(originHz + verdict.PeakBaselineHz);
+                bool hasPpm = ppmReference > 0;
+                bool floorSeen = detector.BelowFloorSeen || belowFloorNow;
+                TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.MixedSign);
+                events.NextSlot().Set(
+                    verdict.StartSeconds,
+                    verdict.EndSeconds,
+                    verdict.PeakSeconds,
+                    peakShift,
+                    hasPpm,
+                    hasPpm ? peakShift / ppmReference * 1e6 : 0.0,
+                    peakSigma,
+                    sigma,
+                    cls,
+                    floorSeen,
+                    verdict.MixedSign,
+                    EventEnd.Resolved);
+                events.Commit();
+                history.Exclude(verdict.StartSeconds - ExcursionResolver.EdgeMarginSeconds, verdict.EndSeconds);
+            }
+            else if (verdict.Kind == ExcursionVerdict.Drift)
+            {
+                lockRecoveries++;
+            }
+
+            detector.Discard();
+            Reanchor(t);
+            return true;
+        }
+
+        // An event that outlasted persistent_shift_s: reported (end AutoRebaseline), then its level becomes the
+        // baseline, re-acquired from the last fit_window_s of readings held (no blind settling). False when
+        // too few readings are held for that; the caller then re-baselines by settling and capture.
+        private bool AbsorbPersistentShift(double t, double sigma)
+        {
+            double eventStart = detector.StartSeconds;
+            if (detector.ForceClose(EventEnd.AutoRebaseline, events.NextSlot()))
+            {
+                events.Commit();
+            }
+
+            double from = t - settings.FitWindowSeconds;
+            history.Exclude(eventStart - ExcursionResolver.EdgeMarginSeconds, from);
+            if (!resolver.FitRecent(history, from, t, t, sigma, verdict))
+            {
+                detector.Discard();
+                BeginRebaseline(RebaselineReason.Auto, t);
+                return false;
+            }
+
+            double absorbed = sideSign * (verdict.LevelHz - tracker.Predict(t));
+            double ppmReference = PpmReferenceHz(originHz + verdict.LevelHz);
+            bool hasPpm = ppmReference > 0;
+            bool hint = disturbanceSign != 0 && absorbed != 0 && (absorbed > 0) != (disturbanceSign > 0);
+            notices.NextSlot().Set(
+                RebaselineReason.Auto,
+                t,
+                t,
+                originHz + verdict.LevelHz,
+                sigma,
+                true,
+                absorbed,
+                hasPpm,
+                hasPpm ? absorbed / ppmReference * 1e6 : 0.0,
+                0,
+                0,
+                false,
+                0,
+                hint);
+            notices.Commit();
+            detector.Discard();
+            Reanchor(t);
+            return true;
+        }
+
+        // The tracker restarts on the fit; its acceleration only when the fit determines it (3 sigma), since a
+        // noisy acceleration integrates into a slope error of a tau_a.
+        private void Reanchor(double t)
+        {
+            double acceleration = verdict.AccelerationHzPerSecond2;
+            if (ScalarMath.Abs(acceleration) < 3.0 * verdict.AccelerationSigmaHzPerSecond2)
+            {
+                acceleration = 0.0;
+            }
+
+            tracker.Reset(verdict.LevelHz, verdict.SlopeHzPerSecond, acceleration, t);
+            ClearDelayLine();
+            blankRemaining = 0;
         }
 
         private void SettlingReading(double t, double span, double frequency, double correction, bool belowFloor, Reading reading)
         {
             state = ReadoutState.Settling;
-            reading.Set(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None);
+            reading.Set(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None, disturbed);
         }
 
         private double Sigma(double gateErrorHz)
@@ -448,6 +612,7 @@ namespace FreqReadout.Readout
             detector.Discard();
             phase = PhaseSettling;
             capture.Clear();
+            history.Clear();
             noSignal = started;
         }
 
@@ -468,6 +633,9 @@ namespace FreqReadout.Readout
 
             pendingReason = everBaselined ? reason : RebaselineReason.Initial;
             requestedSeconds = timeSeconds;
+            recaptures = 0;
+            hasBest = false;
+            history.Clear();
             phase = PhaseSettling;
             phaseStartSeconds = timeSeconds;
             capture.Clear();
@@ -479,45 +647,125 @@ namespace FreqReadout.Readout
         private void CompleteCapture()
         {
             capture.TryEstimate(settings.OutlierSigma, estimate);
+            double differenceNoise = capture.DifferenceNoiseHz();
+            double curvedNoise = capture.FitQuadratic(settings.OutlierSigma, curveFit);
+            bool curved = curvedNoise >= 0 && curvedNoise < CurvedNoiseRatio * estimate.NoiseHz;
+            double levelHz = curved ? capture.OriginHz + curveFit.Value : estimate.LevelHz;
+            double slope = curved ? curveFit.Slope : estimate.SlopeHzPerSecond;
+            double acceleration = curved ? 2.0 * curveFit.HalfCurvature : 0.0;
+            double noise = curved ? curvedNoise : estimate.NoiseHz;
+            double time = estimate.TimeSeconds;
+            int gates = estimate.Gates;
+            int outliers = estimate.Outliers;
+            bool keptDisturbed = false;
+            if (estimate.Gates >= MinDisturbanceGates && differenceNoise > 0 && noise > DisturbedNoiseRatio * differenceNoise)
+            {
+                // A step or a run of outliers inside the capture: metal moved near the coil, or the coil moved.
+                double ratio = noise / differenceNoise;
+                double step = capture.StepHz(slope);
+                disturbanceSign = step > 0 ? sideSign : (step < 0 ? -sideSign : 0.0);
+                if (!hasBest || ratio < bestRatio)
+                {
+                    hasBest = true;
+                    bestRatio = ratio;
+                    bestLevelHz = levelHz;
+                    bestSlopeHzPerSecond = slope;
+                    bestNoiseHz = differenceNoise;
+                    bestTimeSeconds = time;
+                    bestGates = gates;
+                    bestOutliers = outliers;
+                }
+
+                disturbed = true;
+                if (recaptures < MaxRecaptures)
+                {
+                    recaptures++;
+                    capture.Clear();
+                    captureStartSeconds = lastTimeSeconds;
+                    captureMaxErrorHz = 0;
+                    return;
+                }
+
+                keptDisturbed = true;
+                levelHz = bestLevelHz + (bestSlopeHzPerSecond * (time - bestTimeSeconds));
+                slope = bestSlopeHzPerSecond;
+                acceleration = 0.0;
+                noise = bestNoiseHz;
+                gates = bestGates;
+                outliers = bestOutliers;
+            }
+            else
+            {
+                disturbed = false;
+                disturbanceSign = 0.0;
+            }
+
             noiseWindow.Clear();
-            capture.CopyAbsoluteResiduals(noiseWindow);
-            runningNoiseHz = estimate.NoiseHz;
+            if (keptDisturbed || curved)
+            {
+                capture.CopyAbsoluteDifferences(noiseWindow);
+                runningNoiseHz = keptDisturbed ? noise : RobustStatistics.MadToSigma * noiseWindow.Median();
+            }
+            else
+            {
+                capture.CopyAbsoluteResiduals(noiseWindow);
+                runningNoiseHz = noise;
+            }
+
             double sigma = ScalarMath.Max(ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), captureMaxErrorHz);
-            double ppmReference = PpmReferenceHz(estimate.LevelHz);
+            double ppmReference = PpmReferenceHz(levelHz);
             bool hasPpm = ppmReference > 0;
             double shift = 0;
             if (hasOld)
             {
-                double oldPrediction = oldLevelHz + (oldSlopeHzPerSecond * (estimate.TimeSeconds - oldTimeSeconds));
-                shift = sideSign * (estimate.LevelHz - oldPrediction);
+                double oldPrediction = oldLevelHz + (oldSlopeHzPerSecond * (time - oldTimeSeconds));
+                shift = sideSign * (levelHz - oldPrediction);
             }
 
             notices.NextSlot().Set(
                 pendingReason,
                 requestedSeconds,
-                estimate.TimeSeconds,
-                estimate.LevelHz,
+                time,
+                levelHz,
                 sigma,
                 hasOld,
                 shift,
                 hasPpm && hasOld,
                 hasPpm && hasOld ? shift / ppmReference * 1e6 : 0.0,
-                estimate.Gates,
-                estimate.Outliers);
+                gates,
+                outliers,
+                keptDisturbed,
+                recaptures,
+                false);
             notices.Commit();
 
-            double slope = hasOld ? oldSlopeHzPerSecond : estimate.SlopeHzPerSecond;
-            originHz = estimate.LevelHz;
-            tracker.Reset(0.0, slope, estimate.TimeSeconds);
+            if (hasOld && !curved)
+            {
+                slope = oldSlopeHzPerSecond;
+            }
+
+            originHz = levelHz;
+            tracker.Reset(0.0, slope, acceleration, time);
             detector.Discard();
             ClearDelayLine();
             blankRemaining = 0;
             phase = PhaseTracking;
             everBaselined = true;
+            recaptures = 0;
+            hasBest = false;
+            history.Clear();
+            if (!keptDisturbed)
+            {
+                for (int i = 0; i < capture.Count; i++)
+                {
+                    history.Add(capture.TimeSecondsAt(i), 0.0, capture.ValueHzAt(i) - originHz);
+                }
+            }
+
             if (!hasFirstBaseline)
             {
                 hasFirstBaseline = true;
-                firstBaselineHz = estimate.LevelHz;
+                firstBaselineHz = levelHz;
             }
         }
 

@@ -67,8 +67,22 @@ namespace FreqReadout.Readout
         /// <summary>polarity: normal (positive search shift = non-ferrous, default) or inverted.</summary>
         public Polarity Polarity { get; set; } = Polarity.Normal;
 
-        /// <summary>persistent_shift_s: an event lasting this long outside hold mode becomes the new baseline (auto re-baseline), [1, 86400]. Default 30 s.</summary>
+        /// <summary>persistent_shift_s: an event lasting this long outside hold mode is reported (end auto_rebaseline) and its level becomes the new baseline, re-acquired from the readings already held (auto re-baseline), [1, 86400]. Default 30 s.</summary>
         public double PersistentShiftSeconds { get; set; } = 30.0;
+
+        /// <summary>
+        /// lock_check_s: a target candidate that has lasted this long and that one smooth local quadratic
+        /// (drift) explains together with the fit_window_s before it is taken as drift the tracker failed
+        /// to follow: no event, and the tracker re-anchors on that fit (lock recovered without settling),
+        /// [0.5, 600]. Default 2.5 s (a coil pass lasts 0.2-3 s; drift time constants are tens of seconds).
+        /// </summary>
+        public double LockCheckSeconds { get; set; } = 2.5;
+
+        /// <summary>fit_window_s: target-free readings before a candidate that the local quadratic baseline is fitted to, [1, 600]. Default 8 s (the curvature of a shorter window is too uncertain to extrapolate across a pass).</summary>
+        public double FitWindowSeconds { get; set; } = 8.0;
+
+        /// <summary>history_gates: recent readings kept for deciding a candidate afterwards (baseline on both sides of it), [64, 16384]. Default 2048 (about 20 s of 10 ms gates).</summary>
+        public int HistoryGates { get; set; } = 2048;
 
         /// <summary>beat_floor_hz: in beat mode a beat note below this is flagged and its sign unclear, [0, 1e9]. Default 50 Hz.</summary>
         public double BeatFloorHz { get; set; } = 50.0;
@@ -187,6 +201,21 @@ namespace FreqReadout.Readout
                 return Bad(out error, "persistent_shift_s", "[1, 86400]", PersistentShiftSeconds);
             }
 
+            if (!InRange(LockCheckSeconds, 0.5, 600))
+            {
+                return Bad(out error, "lock_check_s", "[0.5, 600]", LockCheckSeconds);
+            }
+
+            if (!InRange(FitWindowSeconds, 1, 600))
+            {
+                return Bad(out error, "fit_window_s", "[1, 600]", FitWindowSeconds);
+            }
+
+            if (HistoryGates < 64 || HistoryGates > 16384)
+            {
+                return BadInteger(out error, "history_gates", "[64, 16384]", HistoryGates);
+            }
+
             if (!InRange(BeatFloorHz, 0, 1e9))
             {
                 return Bad(out error, "beat_floor_hz", "[0, 1e9]", BeatFloorHz);
@@ -230,6 +259,9 @@ namespace FreqReadout.Readout
             c.UnclearBandSigma = UnclearBandSigma;
             c.Polarity = Polarity;
             c.PersistentShiftSeconds = PersistentShiftSeconds;
+            c.LockCheckSeconds = LockCheckSeconds;
+            c.FitWindowSeconds = FitWindowSeconds;
+            c.HistoryGates = HistoryGates;
             c.BeatFloorHz = BeatFloorHz;
             c.TempcoPpmPerK = TempcoPpmPerK;
             return c;

@@ -145,6 +145,151 @@ namespace FreqReadout.Tracking
             return true;
         }
 
+        /// <summary>Value of the first gate held, Hz (the capture works on offsets from it).</summary>
+        public double OriginHz
+        {
+            get { return originHz; }
+        }
+
+        /// <summary>
+        /// Least-squares quadratic through the gates held (offsets from <see cref="OriginHz"/>, time origin at the
+        /// last gate), refitted once without the gates beyond outlierSigma robust sigmas of the first fit; returns
+        /// the robust sigma (MadToSigma * median |r|) of the kept gates about it, or -1 when no quadratic is
+        /// determined (fewer than 6 gates). Used when the drift curves within the capture.
+        /// </summary>
+        public double FitQuadratic(double outlierSigma, QuadraticFit fit)
+        {
+            if (count < 6)
+            {
+                return -1.0;
+            }
+
+            double last = times[count - 1];
+            fit.Clear(last + originSeconds);
+            for (int i = 0; i < count; i++)
+            {
+                fit.Add(times[i] + originSeconds, values[i]);
+            }
+
+            if (!fit.TrySolve())
+            {
+                return -1.0;
+            }
+
+            double sigma = QuadraticResidualSigma(fit, 0.0);
+            if (sigma > 0)
+            {
+                double limit = outlierSigma * sigma;
+                fit.Clear(last + originSeconds);
+                for (int i = 0; i < count; i++)
+                {
+                    double t = times[i] + originSeconds;
+                    if (ScalarMath.Abs(values[i] - fit.Evaluate(t)) <= limit)
+                    {
+                        fit.Add(t, values[i]);
+                    }
+                }
+
+                if (!fit.TrySolve())
+                {
+                    return -1.0;
+                }
+
+                sigma = QuadraticResidualSigma(fit, limit);
+            }
+
+            return sigma;
+        }
+
+        // Robust sigma of the residuals about the fit (only those within limit when limit > 0).
+        private double QuadraticResidualSigma(QuadraticFit fit, double limit)
+        {
+            int n = 0;
+            for (int i = 0; i < count; i++)
+            {
+                double r = values[i] - fit.Evaluate(times[i] + originSeconds);
+                if (limit <= 0 || ScalarMath.Abs(r) <= limit * 2.0)
+                {
+                    residuals[n] = r;
+                    n++;
+                }
+            }
+
+            return RobustStatistics.MadSigma(residuals, n, 0.0, scratch);
+        }
+
+        /// <summary>Time of the i-th gate held, s (0 = oldest).</summary>
+        public double TimeSecondsAt(int i)
+        {
+            return times[i] + originSeconds;
+        }
+
+        /// <summary>Value of the i-th gate held, Hz.</summary>
+        public double ValueHzAt(int i)
+        {
+            return values[i] + originHz;
+        }
+
+        /// <summary>
+        /// Noise from successive differences: MadToSigma * median |x_i - x_(i-1)| / sqrt 2 over the gates held
+        /// (a step or a slow drift moves one difference or all of them by a little, so this stays near the
+        /// white noise while the residuals about a line do not). 0 for fewer than 2 gates.
+        /// </summary>
+        public double DifferenceNoiseHz()
+        {
+            int n = count - 1;
+            if (n < 1)
+            {
+                return 0.0;
+            }
+
+            for (int i = 0; i < n; i++)
+            {
+                residuals[i] = values[i + 1] - values[i];
+            }
+
+            return RobustStatistics.MadSigma(residuals, n, 0.0, scratch) / ScalarMath.Sqrt(2.0);
+        }
+
+        /// <summary>
+        /// Signed size of a step inside the capture: median of the last third minus median of the first third
+        /// of the values, less what the fitted slope explains; 0 for fewer than 6 gates.
+        /// </summary>
+        public double StepHz(double slopeHzPerSecond)
+        {
+            int third = count / 3;
+            if (third < 2)
+            {
+                return 0.0;
+            }
+
+            double first = RobustStatistics.Median(values, third, scratch);
+            double firstTime = RobustStatistics.Median(times, third, scratch);
+            for (int i = 0; i < third; i++)
+            {
+                residuals[i] = values[count - third + i];
+            }
+
+            double last = RobustStatistics.Median(residuals, third, scratch);
+            for (int i = 0; i < third; i++)
+            {
+                residuals[i] = times[count - third + i];
+            }
+
+            double lastTime = RobustStatistics.Median(residuals, third, scratch);
+            return (last - first) - (slopeHzPerSecond * (lastTime - firstTime));
+        }
+
+        /// <summary>Copies |x_i - x_(i-1)| / sqrt 2 of the gates held into a running window (to seed the running noise from a disturbed capture).</summary>
+        public void CopyAbsoluteDifferences(MedianWindow window)
+        {
+            double scale = 1.0 / ScalarMath.Sqrt(2.0);
+            for (int i = 1; i < count; i++)
+            {
+                window.Add(ScalarMath.Abs(values[i] - values[i - 1]) * scale);
+            }
+        }
+
         /// <summary>
         /// Copies |r_i| of the kept points of the last estimate into a running window (to seed the
         /// running noise estimate).

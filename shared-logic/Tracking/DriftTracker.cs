@@ -21,6 +21,14 @@ namespace FreqReadout.Tracking
     /// (derived from those equations). White reading noise of sigma leaks into the level with about
     /// sigma sqrt(alpha / 2) for small alpha. Defaults (see ReadoutSettings): tau_L = 2 s, tau_b = 10 s.
     /// </para>
+    /// <para>
+    /// Curvature: an acceleration a (Hz/s^2), set only by <see cref="Reset"/> (the pipeline re-anchors the
+    /// tracker on a local quadratic fit when it re-acquires lock), decays with tau_a = 3 tau_b (thermal
+    /// settling has time constants of tens of seconds and more, so its curvature fades). It enters the
+    /// forecast as the exact double integral of a e^(-s / tau_a): over dt the level gains
+    /// a tau_a (dt - tau_a (1 - e^(-dt / tau_a))) and the slope a tau_a (1 - e^(-dt / tau_a)); the Holt
+    /// update then corrects level and slope as above. With a = 0 this is plain Holt smoothing.
+    /// </para>
     /// The tracker never decides whether a reading is a target: its owner feeds it only target-free readings.
     /// </summary>
     public sealed class DriftTracker
@@ -28,6 +36,7 @@ namespace FreqReadout.Tracking
         private double levelHz;
         private double slopeHzPerSecond;
         private double timeSeconds;
+        private double accelerationHzPerSecond2;
         private bool initialised;
 
         /// <summary>Creates a tracker.</summary>
@@ -42,6 +51,16 @@ namespace FreqReadout.Tracking
 
             LevelSeconds = levelSeconds;
             SlopeSeconds = slopeSeconds;
+            AccelerationSeconds = 3.0 * slopeSeconds;
+        }
+
+        /// <summary>Decay time constant of the acceleration, tau_a = 3 tau_b, s.</summary>
+        public double AccelerationSeconds { get; }
+
+        /// <summary>Acceleration at <see cref="TimeSeconds"/>, Hz/s^2 (0 unless set by <see cref="Reset"/>).</summary>
+        public double AccelerationHzPerSecond2
+        {
+            get { return accelerationHzPerSecond2; }
         }
 
         /// <summary>Level time constant tau_L, s.</summary>
@@ -74,11 +93,18 @@ namespace FreqReadout.Tracking
             get { return timeSeconds; }
         }
 
-        /// <summary>Starts from a known level and slope (a captured baseline).</summary>
+        /// <summary>Starts from a known level and slope (a captured baseline), no acceleration.</summary>
         public void Reset(double levelHz, double slopeHzPerSecond, double timeSeconds)
+        {
+            Reset(levelHz, slopeHzPerSecond, 0.0, timeSeconds);
+        }
+
+        /// <summary>Starts from a known level, slope and acceleration (a local quadratic fit).</summary>
+        public void Reset(double levelHz, double slopeHzPerSecond, double accelerationHzPerSecond2, double timeSeconds)
         {
             this.levelHz = levelHz;
             this.slopeHzPerSecond = slopeHzPerSecond;
+            this.accelerationHzPerSecond2 = ScalarMath.IsFinite(accelerationHzPerSecond2) ? accelerationHzPerSecond2 : 0.0;
             this.timeSeconds = timeSeconds;
             initialised = true;
         }
@@ -88,14 +114,45 @@ namespace FreqReadout.Tracking
         {
             levelHz = 0;
             slopeHzPerSecond = 0;
+            accelerationHzPerSecond2 = 0;
             timeSeconds = 0;
             initialised = false;
         }
 
-        /// <summary>P(t) = L + b (t - t_L), Hz. Returns 0 before <see cref="Reset"/>.</summary>
+        /// <summary>P(t) = L + b dt + a tau_a (dt - tau_a (1 - e^(-dt / tau_a))), dt = t - t_L, Hz. Returns 0 before <see cref="Reset"/>.</summary>
         public double Predict(double timeSeconds)
         {
-            return levelHz + (slopeHzPerSecond * (timeSeconds - this.timeSeconds));
+            double dt = timeSeconds - this.timeSeconds;
+            return levelHz + (slopeHzPerSecond * dt) + AccelerationLevel(dt);
+        }
+
+        /// <summary>The forecast slope at a time, b + a tau_a (1 - e^(-dt / tau_a)), Hz/s.</summary>
+        public double PredictSlope(double timeSeconds)
+        {
+            double dt = timeSeconds - this.timeSeconds;
+            return slopeHzPerSecond + AccelerationSlope(dt);
+        }
+
+        private double AccelerationLevel(double dt)
+        {
+            if (accelerationHzPerSecond2 == 0 || dt == 0)
+            {
+                return 0.0;
+            }
+
+            double tau = AccelerationSeconds;
+            return accelerationHzPerSecond2 * tau * (dt - (tau * (1.0 - ScalarMath.Exp(-dt / tau))));
+        }
+
+        private double AccelerationSlope(double dt)
+        {
+            if (accelerationHzPerSecond2 == 0 || dt == 0)
+            {
+                return 0.0;
+            }
+
+            double tau = AccelerationSeconds;
+            return accelerationHzPerSecond2 * tau * (1.0 - ScalarMath.Exp(-dt / tau));
         }
 
         /// <summary>
@@ -114,9 +171,16 @@ namespace FreqReadout.Tracking
             double w = ScalarMath.Min(spanSeconds, dt);
             double alpha = 1.0 - ScalarMath.Exp(-w / LevelSeconds);
             double beta = 1.0 - ScalarMath.Exp(-w / SlopeSeconds);
-            double forecast = levelHz + (slopeHzPerSecond * dt);
+            double curve = AccelerationLevel(dt);
+            double forecast = levelHz + (slopeHzPerSecond * dt) + curve;
             double newLevel = forecast + (alpha * (valueHz - forecast));
-            slopeHzPerSecond += beta * (((newLevel - levelHz) / dt) - slopeHzPerSecond);
+            double slopeForecast = slopeHzPerSecond + AccelerationSlope(dt);
+            slopeHzPerSecond = slopeForecast + (beta * (((newLevel - levelHz - curve) / dt) - slopeHzPerSecond));
+            if (accelerationHzPerSecond2 != 0)
+            {
+                accelerationHzPerSecond2 *= ScalarMath.Exp(-dt / AccelerationSeconds);
+            }
+
             levelHz = newLevel;
             this.timeSeconds = timeSeconds;
         }

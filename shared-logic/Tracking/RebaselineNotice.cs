@@ -23,7 +23,10 @@ namespace FreqReadout.Tracking
             bool hasPpm,
             double shiftPpm,
             int gates,
-            int outliers)
+            int outliers,
+            bool disturbed,
+            int recaptures,
+            bool overMetalHint)
         {
             Reason = reason;
             RequestedSeconds = requestedSeconds;
@@ -36,6 +39,9 @@ namespace FreqReadout.Tracking
             ShiftPpm = shiftPpm;
             Gates = gates;
             Outliers = outliers;
+            Disturbed = disturbed;
+            Recaptures = recaptures;
+            OverMetalHint = overMetalHint;
         }
 
         /// <summary>Why.</summary>
@@ -71,6 +77,21 @@ namespace FreqReadout.Tracking
         /// <summary>Gates rejected as outliers in the capture.</summary>
         public int Outliers { get; private set; }
 
+        /// <summary>
+        /// The capture that gave this baseline was disturbed (a step or a run of outliers inside it: metal
+        /// moved, or the coil did) and was kept as the best of several attempts.
+        /// </summary>
+        public bool Disturbed { get; private set; }
+
+        /// <summary>Disturbed captures discarded (and captured again) before this baseline.</summary>
+        public int Recaptures { get; private set; }
+
+        /// <summary>
+        /// This automatic re-baseline absorbed a lasting shift opposite in sign to a disturbance seen in an
+        /// earlier capture: a hint that that baseline was taken with metal near the coil.
+        /// </summary>
+        public bool OverMetalHint { get; private set; }
+
         /// <summary>Copies every field of <paramref name="other"/> into this object.</summary>
         public void CopyFrom(RebaselineNotice other)
         {
@@ -85,7 +106,10 @@ namespace FreqReadout.Tracking
                 other.HasPpm,
                 other.ShiftPpm,
                 other.Gates,
-                other.Outliers);
+                other.Outliers,
+                other.Disturbed,
+                other.Recaptures,
+                other.OverMetalHint);
         }
     }
 }

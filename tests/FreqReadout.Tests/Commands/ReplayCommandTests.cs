@@ -144,7 +144,13 @@ public sealed class ReplayCommandTests : IDisposable
         Assert.Equal("auto", r.GetProperty("reason").GetString());
         Assert.InRange(r.GetProperty("time_s").GetDouble(), 30.0, 30.3);
         Assert.InRange(r.GetProperty("shift_hz").GetDouble(), -2.7, -2.3);
-        Assert.Empty(o.GetProperty("events").EnumerateArray());
+        Assert.Equal(r.GetProperty("time_s").GetDouble(), r.GetProperty("completed_s").GetDouble()); // re-acquired from the readings held
+
+        // The confirmed event that the re-baseline absorbed is reported and flagged (issue 8).
+        JsonElement e = Assert.Single(o.GetProperty("events").EnumerateArray().ToArray());
+        Assert.True(e.GetProperty("absorbed").GetBoolean());
+        Assert.Equal("ferrous", e.GetProperty("class").GetString());
+        Assert.InRange(e.GetProperty("peak_shift_hz").GetDouble(), -3.0, -2.2);
     }
 
     [Theory]

@@ -149,30 +149,31 @@ public sealed class ReplayContractMeaningsTests : IDisposable
     [Fact]
     public void A_re_baseline_still_under_way_at_the_end_is_listed_without_a_shift_and_warned()
     {
-        // A -2.5 Hz step at 20 s persists; with --persistent-shift-s 10 the auto re-baseline begins at about 30 s
-        // and needs settling_s 1 + baseline_s 5 more, but the capture ends at 33 s. Before, the JSON then said
-        // neither event nor re-baseline: the persistent shift vanished without a word.
-        var capture = new SyntheticEdgeCapture { DurationSeconds = 33, SearchHzAt = t => F0 + (t >= 20 ? -2.5 : 0) };
-        string path = Path.Combine(_dir, "late-auto.edges.csv");
+        // A rebaseline mark at 20 s: the manual re-baseline needs settling_s 1 + baseline_s 5 more, but the
+        // capture ends at 23 s. Before, the JSON then said nothing of it.
+        var capture = new SyntheticEdgeCapture { DurationSeconds = 23, SearchHzAt = t => F0 };
+        capture.Marks.Add((20.0, "rebaseline"));
+        string path = Path.Combine(_dir, "late-manual.edges.csv");
         capture.Write(path);
-        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json", "--persistent-shift-s", "10");
+        var (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
         Assert.True(exit == 0, stderr);
         using var doc = JsonDocument.Parse(stdout);
         JsonElement r = Assert.Single(doc.RootElement.GetProperty("rebaselines").EnumerateArray().ToArray());
-        Assert.Equal("auto", r.GetProperty("reason").GetString());
-        Assert.InRange(r.GetProperty("time_s").GetDouble(), 30.0, 30.3);
+        Assert.Equal("manual", r.GetProperty("reason").GetString());
+        Assert.InRange(r.GetProperty("time_s").GetDouble(), 20.0, 20.3);
         Assert.Equal(JsonValueKind.Null, r.GetProperty("shift_hz").ValueKind);
         Assert.Equal(JsonValueKind.Null, r.GetProperty("completed_s").ValueKind);
-        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("the auto re-baseline begun at 30."));
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("the manual re-baseline begun at 20."));
 
-        // Given 6 s more, the same re-baseline completes and carries its shift (ReplayCommandTests).
-        var longer = new SyntheticEdgeCapture { DurationSeconds = 40, SearchHzAt = t => F0 + (t >= 20 ? -2.5 : 0) };
+        // Given 6 s more, the same re-baseline completes and carries its shift.
+        var longer = new SyntheticEdgeCapture { DurationSeconds = 30, SearchHzAt = t => F0 };
+        longer.Marks.Add((20.0, "rebaseline"));
         longer.Write(path);
-        (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json", "--persistent-shift-s", "10");
+        (exit, stdout, stderr) = ConsoleCapture.Run("replay", path, "--json");
         Assert.True(exit == 0, stderr);
         using var done = JsonDocument.Parse(stdout);
         JsonElement c = Assert.Single(done.RootElement.GetProperty("rebaselines").EnumerateArray().ToArray());
-        Assert.InRange(c.GetProperty("shift_hz").GetDouble(), -2.7, -2.3);
+        Assert.InRange(c.GetProperty("shift_hz").GetDouble(), -0.2, 0.2);
         Assert.DoesNotContain(done.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("had not completed"));
     }
 

@@ -24,17 +24,23 @@ public class RebaselineAndHoldTests
         RebaselineNotice auto = Assert.Single(run.Rebaselines);
         Assert.Equal(RebaselineReason.Auto, auto.Reason);
 
-        // Triggered persistent_shift_s after the step was detected; ready after settling + capture.
+        // Triggered persistent_shift_s after the step was detected, and ready at once: the new baseline is
+        // re-acquired from the readings already held (the last fit_window_s), with no blind settling.
         Assert.InRange(auto.RequestedSeconds, 130.0, 130.3);
-        Assert.InRange(auto.CompletedSeconds, auto.RequestedSeconds + 5.9, auto.RequestedSeconds + 6.2);
+        Assert.Equal(auto.RequestedSeconds, auto.CompletedSeconds);
 
         // The absorbed shift is the step (search oscillator; within 3 % + the slope extrapolation).
         Assert.InRange(auto.ShiftHz, -4.12, -3.88);
         Assert.True(auto.HasShift && auto.HasPpm);
         Assert.InRange(auto.ShiftPpm, -41.2, -38.8);
 
-        // The step is not reported as a target event, and afterwards the readout is back at zero shift.
-        Assert.Empty(run.Events);
+        // The confirmed event the re-baseline absorbed is reported, flagged so (issue 8: never discarded),
+        // and afterwards the readout is back at zero shift.
+        DetectionEvent absorbed = Assert.Single(run.Events);
+        Assert.Equal(EventEnd.AutoRebaseline, absorbed.End);
+        Assert.InRange(absorbed.StartSeconds, 100.0, 100.3);
+        Assert.InRange(absorbed.PeakShiftHz, -4.6, -3.6);
+        Assert.Equal(TargetClass.Ferrous, absorbed.Class);
         Reading last = run.Readings[^1];
         Assert.Equal(ReadoutState.Tracking, last.State);
         Assert.InRange(last.ShiftHz, -0.5, 0.5);
@@ -43,16 +49,26 @@ public class RebaselineAndHoldTests
     [Fact]
     public void A_re_baseline_under_way_is_pending_until_its_capture_completes()
     {
-        // The same step, runs ending 3 s into the auto re-baseline (begun at about 130 s) and 10 s into it.
-        var shortRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 133, ExtraHz = Step(100, -4.0) });
+        // A manual re-baseline requested at 50 s needs settling_s 1 + baseline_s 5: runs ending 3 s into it and 10 s into it.
+        static void Press(ReadoutPipeline p, FreqReadout.Counting.GateResult g)
+        {
+            if (Math.Abs(g.StartSeconds - 50) < 0.05) { p.RequestRebaseline(); }
+        }
+
+        var shortRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 53 }, null, Press);
         Assert.Empty(shortRun.Rebaselines);
         Assert.True(shortRun.Pipeline.TryGetPendingRebaseline(out RebaselineReason reason, out double since));
-        Assert.Equal(RebaselineReason.Auto, reason);
-        Assert.InRange(since, 130.0, 130.3);
+        Assert.Equal(RebaselineReason.Manual, reason);
+        Assert.InRange(since, 49.95, 50.05);
 
-        var longRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 140, ExtraHz = Step(100, -4.0) });
+        var longRun = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 60 }, null, Press);
         Assert.Single(longRun.Rebaselines);
         Assert.False(longRun.Pipeline.TryGetPendingRebaseline(out _, out _));
+
+        // An automatic re-baseline is never pending: it re-acquires the baseline from the readings held.
+        var auto = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 131, ExtraHz = Step(100, -4.0) });
+        Assert.Single(auto.Rebaselines);
+        Assert.False(auto.Pipeline.TryGetPendingRebaseline(out _, out _));
 
         // The first baseline is never "pending" in this sense (it is not listed as a re-baseline either).
         var start = PipelineRun.Of(new SyntheticGateStream { DurationSeconds = 3 });
@@ -86,10 +102,13 @@ public class RebaselineAndHoldTests
         var stream = new SyntheticGateStream { DurationSeconds = 300, ExtraHz = Step(100, 2.0, 220), DriftHz = t => 0.001 * t };
         PipelineRun run = PipelineRun.Of(stream);
 
-        // Absorbed at 130 s (reported, +2 Hz), and its removal at 220 s is itself a persistent -2 Hz shift.
+        // Absorbed at 130 s (reported, +2 Hz), and its removal at 220 s is itself a persistent -2 Hz shift;
+        // both confirmed events are reported, flagged as absorbed by the automatic re-baseline.
         Assert.Equal(new[] { RebaselineReason.Auto, RebaselineReason.Auto }, run.Rebaselines.Select(n => n.Reason).ToArray());
         Assert.InRange(run.Rebaselines.First().ShiftHz, 1.85, 2.15);
         Assert.InRange(run.Rebaselines.Last().ShiftHz, -2.15, -1.85);
+        Assert.Equal(new[] { EventEnd.AutoRebaseline, EventEnd.AutoRebaseline }, run.Events.Select(e => e.End).ToArray());
+        Assert.Equal(new[] { TargetClass.NonFerrous, TargetClass.Ferrous }, run.Events.Select(e => e.Class).ToArray());
     }
 
     [Fact]

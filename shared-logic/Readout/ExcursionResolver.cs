@@ -1,0 +1,290 @@
+using FreqReadout.Numerics;
+
+namespace FreqReadout.Readout
+{
+    /// <summary>
+    /// Decides an open target candidate afterwards, from the readings on both sides of it — the part
+    /// of the readout that tells a coil pass from drift the causal tracker failed to follow.
+    /// <para>
+    /// Windows (times are gate ends; s = the candidate's first reading at or above the threshold, now =
+    /// the newest reading): before B = [s - m - W, s - m) with m = <see cref="EdgeMarginSeconds"/> (a pass
+    /// starts before it crosses the threshold) and W = fit_window_s; after A = (now - a, now] with
+    /// a = max(<see cref="AfterSeconds"/>, release_s); middle M = [s - m, now - a]. Readings that belong to an
+    /// earlier reported event are left out of B. sigma is the pipeline's noise sigma; k_t the threshold,
+    /// k_r = threshold - hysteresis the release level, both in sigmas.
+    /// </para>
+    /// <para>
+    /// (1) Pass: fit a quadratic Q_b to B alone and Q to B and A together (least squares,
+    /// <see cref="QuadraticFit"/>). The shift has returned when every reading of A is within k_r sigma of Q
+    /// and Q's curvature agrees with Q_b's: |c2 - c2_b| &lt;= 3 sigma sqrt(v_b) + 0.25 |c2_b| (v_b the variance
+    /// factor of c2_b; drift curvature changes little over a few seconds, while bending a quadratic onto a
+    /// shift that stayed takes a large change), and the mean of A lies within 3 sigma sqrt(1/n_A + v(t_A)) +
+    /// |c2_b| d^3 / (3 tau_min) of Q_b extrapolated (v the prediction variance factor, d the distance from the
+    /// middle of B, tau_min = <see cref="MinDriftSeconds"/>: the third-order term of a settling drift). Then the middle's residuals r = x - Q(t) give the event:
+    /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r|; none at k_t: no target.
+    /// The pass test runs only while the candidate is younger than 2 lock_check_s: a shift that has not
+    /// returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
+    /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to B, M and A together
+    /// leaves every residual below k_t sigma and a mean square below 2 sigma^2: a smooth change, not a pass.
+    /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
+    /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
+    /// </para>
+    /// </summary>
+    internal sealed class ExcursionResolver
+    {
+        /// <summary>How long before its threshold crossing a pass may already have started, s.</summary>
+        public const double EdgeMarginSeconds = 1.0;
+
+        /// <summary>Least length of the window after the candidate, s.</summary>
+        public const double AfterSeconds = 1.0;
+
+        /// <summary>Least spacing of two decisions while a candidate is open, s.</summary>
+        public const double CheckIntervalSeconds = 0.2;
+
+        /// <summary>Shortest time constant of thermal drift assumed when a quadratic is extrapolated, s.</summary>
+        public const double MinDriftSeconds = 30.0;
+
+        private const double AgreementSigmas = 3.0;
+        private const int MinBeforeReadings = 6;
+        private const int MinAfterReadings = 3;
+
+        private readonly QuadraticFit before = new QuadraticFit();
+        private readonly QuadraticFit sides = new QuadraticFit();
+        private readonly QuadraticFit all = new QuadraticFit();
+        private double beforeCenterSeconds;
+
+        /// <summary>Fits a quadratic to the non-excluded readings with from &lt;= t &lt;= to, origin at originSeconds; false when it is not determined.</summary>
+        public bool FitRecent(ReadingHistory history, double fromSeconds, double toSeconds, double originSeconds, double sigmaHz, ExcursionVerdict into)
+        {
+            all.Clear(originSeconds);
+            for (int i = 0; i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t >= fromSeconds && t <= toSeconds && !history.IsExcluded(i))
+                {
+                    all.Add(t, history.ValueAt(i));
+                }
+            }
+
+            if (all.Count < MinBeforeReadings || !all.TrySolve())
+            {
+                return false;
+            }
+
+            Anchor(all, sigmaHz, into);
+            return true;
+        }
+
+        /// <summary>Decides the candidate that opened at <paramref name="startSeconds"/> (method in the class summary).</summary>
+        public void Resolve(
+            ReadingHistory history,
+            double startSeconds,
+            double nowSeconds,
+            double sigmaHz,
+            double thresholdSigma,
+            double releaseSigma,
+            double releaseSeconds,
+            double fitWindowSeconds,
+            bool allowDrift,
+            bool allowPass,
+            ExcursionVerdict into)
+        {
+            into.Kind = ExcursionVerdict.Pending;
+            beforeCenterSeconds = startSeconds - EdgeMarginSeconds - (fitWindowSeconds / 2.0);
+            double afterSeconds = ScalarMath.Max(AfterSeconds, releaseSeconds);
+            double middleFrom = startSeconds - EdgeMarginSeconds;
+            double beforeFrom = middleFrom - fitWindowSeconds;
+            double afterFrom = nowSeconds - afterSeconds;
+            if (afterFrom <= startSeconds || !(sigmaHz > 0))
+            {
+                return;
+            }
+
+            before.Clear(nowSeconds);
+            sides.Clear(nowSeconds);
+            all.Clear(nowSeconds);
+            int afterCount = 0;
+            for (int i = 0; i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t < beforeFrom)
+                {
+                    continue;
+                }
+
+                double x = history.ValueAt(i);
+                if (t < middleFrom)
+                {
+                    if (!history.IsExcluded(i))
+                    {
+                        before.Add(t, x);
+                        sides.Add(t, x);
+                        all.Add(t, x);
+                    }
+                }
+                else if (t > afterFrom)
+                {
+                    sides.Add(t, x);
+                    all.Add(t, x);
+                    afterCount++;
+                }
+                else
+                {
+                    all.Add(t, x);
+                }
+            }
+
+            if (before.Count < MinBeforeReadings || afterCount < MinAfterReadings || !before.TrySolve() || !sides.TrySolve())
+            {
+                return;
+            }
+
+            if (allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
+            {
+                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, into);
+                return;
+            }
+
+            if (allowDrift && all.TrySolve() && Smooth(history, beforeFrom, sigmaHz, thresholdSigma))
+            {
+                into.Kind = ExcursionVerdict.Drift;
+                Anchor(all, sigmaHz, into);
+            }
+        }
+
+        private static void Anchor(QuadraticFit fit, double sigmaHz, ExcursionVerdict into)
+        {
+            into.LevelHz = fit.Value;
+            into.SlopeHzPerSecond = fit.Slope;
+            into.AccelerationHzPerSecond2 = 2.0 * fit.HalfCurvature;
+            into.AccelerationSigmaHzPerSecond2 = 2.0 * sigmaHz * ScalarMath.Sqrt(fit.CurvatureVarianceFactor);
+        }
+
+        private bool SidesAgree(ReadingHistory history, double afterFrom, double sigmaHz, double releaseSigma)
+        {
+            double curvatureTolerance = (AgreementSigmas * sigmaHz * ScalarMath.Sqrt(before.CurvatureVarianceFactor)) + (0.25 * ScalarMath.Abs(before.HalfCurvature));
+            if (ScalarMath.Abs(sides.HalfCurvature - before.HalfCurvature) > curvatureTolerance)
+            {
+                return false;
+            }
+
+            double limit = releaseSigma * sigmaHz;
+            double sumResidual = 0;
+            double sumTime = 0;
+            int n = 0;
+            for (int i = history.Count - 1; i >= 0; i--)
+            {
+                double t = history.TimeAt(i);
+                if (t <= afterFrom)
+                {
+                    break;
+                }
+
+                if (ScalarMath.Abs(history.ValueAt(i) - sides.Evaluate(t)) >= limit)
+                {
+                    return false;
+                }
+
+                sumResidual += history.ValueAt(i) - before.Evaluate(t);
+                sumTime += t;
+                n++;
+            }
+
+            if (n == 0)
+            {
+                return false;
+            }
+
+            // The after window must also continue what the readings before the candidate predict: within
+            // 4 sigma of the extrapolation's own uncertainty plus what drift curvature can change over the
+            // distance (third-order term of a settling with a time constant of at least MinDriftSeconds).
+            double meanTime = sumTime / n;
+            double distance = meanTime - beforeCenterSeconds;
+            double spread = sigmaHz * ScalarMath.Sqrt((1.0 / n) + before.PredictionVarianceFactor(meanTime));
+            double allowance = ScalarMath.Abs(before.HalfCurvature) * distance * distance * distance / (3.0 * MinDriftSeconds);
+            return ScalarMath.Abs(sumResidual / n) <= (AgreementSigmas * spread) + allowance;
+        }
+
+        private bool Smooth(ReadingHistory history, double beforeFrom, double sigmaHz, double thresholdSigma)
+        {
+            double limit = thresholdSigma * sigmaHz;
+            double sumSquares = 0;
+            int n = 0;
+            for (int i = 0; i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t < beforeFrom || history.IsExcluded(i))
+                {
+                    continue;
+                }
+
+                double r = history.ValueAt(i) - all.Evaluate(t);
+                if (ScalarMath.Abs(r) >= limit)
+                {
+                    return false;
+                }
+
+                sumSquares += r * r;
+                n++;
+            }
+
+            return n > 0 && sumSquares / n < 2.0 * sigmaHz * sigmaHz;
+        }
+
+        private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, ExcursionVerdict into)
+        {
+            Anchor(sides, sigmaHz, into);
+            double threshold = thresholdSigma * sigmaHz;
+            double release = releaseSigma * sigmaHz;
+            bool found = false;
+            bool positive = false;
+            bool negative = false;
+            double peak = 0;
+            for (int i = 0; i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t < middleFrom || t > afterFrom)
+                {
+                    continue;
+                }
+
+                double baseline = sides.Evaluate(t);
+                double r = history.ValueAt(i) - baseline;
+                double size = ScalarMath.Abs(r);
+                if (size >= threshold)
+                {
+                    if (!found)
+                    {
+                        found = true;
+                        into.StartSeconds = t;
+                    }
+
+                    if (r > 0)
+                    {
+                        positive = true;
+                    }
+                    else
+                    {
+                        negative = true;
+                    }
+                }
+
+                if (found && size >= release)
+                {
+                    into.EndSeconds = t;
+                }
+
+                if (size > ScalarMath.Abs(peak))
+                {
+                    peak = r;
+                    into.PeakSeconds = t;
+                    into.PeakBaselineHz = baseline;
+                }
+            }
+
+            into.PeakCountedHz = peak;
+            into.MixedSign = positive && negative;
+            into.Kind = found ? ExcursionVerdict.Pass : ExcursionVerdict.NoTarget;
+        }
+    }
+}

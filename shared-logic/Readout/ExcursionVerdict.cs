@@ -1,0 +1,44 @@
+namespace FreqReadout.Readout
+{
+    /// <summary>What <see cref="ExcursionResolver"/> decided about an open candidate (caller-owned, filled in place).</summary>
+    internal sealed class ExcursionVerdict
+    {
+        public const int Pending = 0;
+        public const int Drift = 1;
+        public const int Pass = 2;
+        public const int NoTarget = 3;
+
+        /// <summary>Pending, Drift, Pass or NoTarget.</summary>
+        public int Kind;
+
+        /// <summary>Baseline (relative to the pipeline's origin) at the decision time, Hz of the counted signal.</summary>
+        public double LevelHz;
+
+        /// <summary>Baseline slope at the decision time, Hz/s.</summary>
+        public double SlopeHzPerSecond;
+
+        /// <summary>Baseline second derivative at the decision time, Hz/s^2.</summary>
+        public double AccelerationHzPerSecond2;
+
+        /// <summary>1-sigma uncertainty of <see cref="AccelerationHzPerSecond2"/> from the fit, Hz/s^2 (the pipeline keeps only a significant acceleration).</summary>
+        public double AccelerationSigmaHzPerSecond2;
+
+        /// <summary>Pass: first reading at or above the threshold, s.</summary>
+        public double StartSeconds;
+
+        /// <summary>Pass: last reading at or above the release level, s.</summary>
+        public double EndSeconds;
+
+        /// <summary>Pass: reading with the largest |shift|, s.</summary>
+        public double PeakSeconds;
+
+        /// <summary>Pass: signed peak shift of the counted signal from the two-sided baseline, Hz.</summary>
+        public double PeakCountedHz;
+
+        /// <summary>Pass: the two-sided baseline at the peak (relative to the origin), Hz.</summary>
+        public double PeakBaselineHz;
+
+        /// <summary>Pass: readings beyond the threshold had both signs.</summary>
+        public bool MixedSign;
+    }
+}
