@@ -41,14 +41,8 @@ namespace FreqReadout.Numerics
             int lo = 0;
             int hi = count - 1;
             int rounds = 0;
-            while (hi > lo)
+            while (hi > lo && rounds < limit)
             {
-                if (rounds >= limit)
-                {
-                    HeapSort(values, lo, hi);
-                    return values[k];
-                }
-
                 rounds++;
                 int mid = lo + ((hi - lo) / 2);
                 if (values[mid] < values[lo])
@@ -69,19 +63,20 @@ namespace FreqReadout.Numerics
                 double pivot = values[mid];
                 int i = lo;
                 int j = hi;
+
+                // Hoare's partition written as one loop: every pass moves i up, j down, or both (at most
+                // hi - lo + 2 passes), so the step count is bounded without nested scans.
                 while (i <= j)
                 {
-                    while (values[i] < pivot)
+                    if (values[i] < pivot)
                     {
                         i++;
                     }
-
-                    while (values[j] > pivot)
+                    else if (values[j] > pivot)
                     {
                         j--;
                     }
-
-                    if (i <= j)
+                    else
                     {
                         Swap(values, i, j);
                         i++;
@@ -101,6 +96,12 @@ namespace FreqReadout.Numerics
                 {
                     return values[k];
                 }
+            }
+
+            if (hi > lo)
+            {
+                // Too many unbalanced rounds: finish the remaining range by heapsort (once).
+                HeapSort(values, lo, hi);
             }
 
             return values[k];

@@ -57,7 +57,7 @@ namespace FreqReadout.Readout
         public bool FitRecent(ReadingHistory history, double fromSeconds, double toSeconds, double originSeconds, double sigmaHz, ExcursionVerdict into)
         {
             all.Clear(originSeconds);
-            for (int i = 0; i < history.Count; i++)
+            for (int i = FirstAtOrAfter(history, fromSeconds); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
                 if (t >= fromSeconds && t <= toSeconds && !history.IsExcluded(i))
@@ -104,13 +104,9 @@ namespace FreqReadout.Readout
             sides.Clear(nowSeconds);
             all.Clear(nowSeconds);
             int afterCount = 0;
-            for (int i = 0; i < history.Count; i++)
+            for (int i = FirstAtOrAfter(history, beforeFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
-                if (t < beforeFrom)
-                {
-                    continue;
-                }
 
                 double x = history.ValueAt(i);
                 if (t < middleFrom)
@@ -150,6 +146,18 @@ namespace FreqReadout.Readout
                 into.Kind = ExcursionVerdict.Drift;
                 Anchor(all, sigmaHz, into);
             }
+        }
+
+        // Index of the oldest reading at or after a time, found from the newest end (readings are in time order).
+        private static int FirstAtOrAfter(ReadingHistory history, double timeSeconds)
+        {
+            int i = history.Count;
+            while (i > 0 && history.TimeAt(i - 1) >= timeSeconds)
+            {
+                i--;
+            }
+
+            return i;
         }
 
         private static void Anchor(QuadraticFit fit, double sigmaHz, ExcursionVerdict into)
@@ -210,10 +218,10 @@ namespace FreqReadout.Readout
             double limit = thresholdSigma * sigmaHz;
             double sumSquares = 0;
             int n = 0;
-            for (int i = 0; i < history.Count; i++)
+            for (int i = FirstAtOrAfter(history, beforeFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
-                if (t < beforeFrom || history.IsExcluded(i))
+                if (history.IsExcluded(i))
                 {
                     continue;
                 }
@@ -240,10 +248,10 @@ namespace FreqReadout.Readout
             bool positive = false;
             bool negative = false;
             double peak = 0;
-            for (int i = 0; i < history.Count; i++)
+            for (int i = FirstAtOrAfter(history, middleFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
-                if (t < middleFrom || t > afterFrom)
+                if (t > afterFrom)
                 {
                     continue;
                 }

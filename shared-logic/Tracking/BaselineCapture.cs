@@ -264,19 +264,14 @@ namespace FreqReadout.Tracking
             }
 
             double first = RobustStatistics.Median(values, third, scratch);
-            double firstTime = RobustStatistics.Median(times, third, scratch);
+            double firstTime = MedianOfAscending(times, 0, third);
             for (int i = 0; i < third; i++)
             {
                 residuals[i] = values[count - third + i];
             }
 
             double last = RobustStatistics.Median(residuals, third, scratch);
-            for (int i = 0; i < third; i++)
-            {
-                residuals[i] = times[count - third + i];
-            }
-
-            double lastTime = RobustStatistics.Median(residuals, third, scratch);
+            double lastTime = MedianOfAscending(times, count - third, third);
             return (last - first) - (slopeHzPerSecond * (lastTime - firstTime));
         }
 
@@ -302,6 +297,13 @@ namespace FreqReadout.Tracking
             }
         }
 
+        // Median of a[start .. start + n), which is in ascending order (gate times always are): no selection needed.
+        private static double MedianOfAscending(double[] a, int start, int n)
+        {
+            int mid = start + (n / 2);
+            return (n & 1) == 1 ? a[mid] : 0.5 * (a[mid - 1] + a[mid]);
+        }
+
         // Resistant line over keptTimes/keptValues[0..keptCount); sets fitA, fitB; returns the robust sigma.
         private double Fit()
         {
@@ -310,14 +312,9 @@ namespace FreqReadout.Tracking
             if (n >= 6)
             {
                 int third = n / 3;
-                double tLeft = RobustStatistics.Median(keptTimes, third, scratch);
+                double tLeft = MedianOfAscending(keptTimes, 0, third);
                 double xLeft = RobustStatistics.Median(keptValues, third, scratch);
-                for (int i = 0; i < third; i++)
-                {
-                    residuals[i] = keptTimes[n - third + i];
-                }
-
-                double tRight = RobustStatistics.Median(residuals, third, scratch);
+                double tRight = MedianOfAscending(keptTimes, n - third, third);
                 for (int i = 0; i < third; i++)
                 {
                     residuals[i] = keptValues[n - third + i];

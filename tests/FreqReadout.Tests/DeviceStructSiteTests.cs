@@ -18,10 +18,7 @@ namespace FreqReadout.Tests;
 /// </summary>
 public class DeviceStructSiteTests
 {
-    // Fails until the struct-free core lands; the trait lets a run leave it out meanwhile
-    // (--filter "Status!=FailsUntilStructFreeCore"). Remove the trait when it passes.
     [Fact]
-    [Trait("Status", "FailsUntilStructFreeCore")]
     public void Device_assembly_holds_and_creates_no_structs_outside_constructors()
     {
         string path = DeviceAssemblyMetadataTests.FindDeviceAssembly();

@@ -11,44 +11,79 @@ namespace FreqReadout.Tests.DeviceFit;
 internal static class DeviceLoopBounds
 {
     // ReadoutSettings: baseline_max_gates [8, 8192] default 512; noise_window_gates [16, 4096] default 512;
-    // tracker_delay_gates [0, 1000] default 5. DeviceSettings.MaxEdgesPerStep >= 1 default 256, no upper limit.
+    // history_gates [64, 16384] default 256; tracker_delay_gates [0, 1000] default 5.
+    // DeviceSettings.MaxEdgesPerStep >= 1 default 256, no upper limit.
     private const long BaselineMaxGatesDefault = 512;
     private const long BaselineMaxGatesLimit = 8192;
     private const long NoiseWindowGatesDefault = 512;
     private const long NoiseWindowGatesLimit = 4096;
+    private const long HistoryGatesDefault = 256;
+    private const long HistoryGatesLimit = 16384;
+
+    // floor(log2 n) + 1 for the heap depths and selection rounds below.
+    private const long Log2BaselineDefault = 9;
+    private const long Log2BaselineLimit = 13;
+    private const long Log2NoiseDefault = 9;
+    private const long Log2NoiseLimit = 12;
 
     public static IReadOnlyList<LoopBound> Table { get; } =
     [
         new("DeviceLoop.StepEdges", 0, "MaxEdgesPerStep (DeviceSettings; default 256, no upper limit)", 256, null),
 
         new("ReadoutPipeline.InvalidateDelayLine", 0, "TrackerDelayGates + 1 (ReadoutSettings tracker_delay_gates, default 5, at most 1000)", 6, 1001),
+        new("ReadoutPipeline.CompleteCapture", 0, "capture.Count <= BaselineMaxGates (the capture's gates copied into the reading history)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
-        new("MedianWindow.RemoveSorted", 0, "count <= Capacity = NoiseWindowGates (ReadoutSettings noise_window_gates, default 512, at most 4096)", NoiseWindowGatesDefault, NoiseWindowGatesLimit),
-        new("MedianWindow.RemoveSorted", 1, "count - 1 < Capacity = NoiseWindowGates", NoiseWindowGatesDefault, NoiseWindowGatesLimit),
-        new("MedianWindow.InsertSorted", 0, "count - 1 < Capacity = NoiseWindowGates", NoiseWindowGatesDefault, NoiseWindowGatesLimit),
+        // Running noise median: two indexed heaps of at most NoiseWindowGates slots; a sift moves one level per pass.
+        new("MedianWindow.LowSiftUp", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
+        new("MedianWindow.LowSiftDown", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
+        new("MedianWindow.HighSiftUp", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
+        new("MedianWindow.HighSiftDown", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
 
         new("BaselineCapture.TryEstimate", 0, "count <= BaselineMaxGates (ReadoutSettings baseline_max_gates, default 512, at most 8192)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.TryEstimate", 1, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.CopyAbsoluteResiduals", 0, "keptCount <= count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.CopyAbsoluteDifferences", 0, "count - 1 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.DifferenceNoiseHz", 0, "count - 1 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.FitQuadratic", 0, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.FitQuadratic", 1, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.QuadraticResidualSigma", 0, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.StepHz", 0, "third = count / 3 <= BaselineMaxGates / 3", BaselineMaxGatesDefault / 3, BaselineMaxGatesLimit / 3),
         new("BaselineCapture.Fit", 0, "third = keptCount / 3 <= BaselineMaxGates / 3", BaselineMaxGatesDefault / 3, BaselineMaxGatesLimit / 3),
-        new("BaselineCapture.Fit", 1, "third = keptCount / 3 <= BaselineMaxGates / 3", BaselineMaxGatesDefault / 3, BaselineMaxGatesLimit / 3),
+        new("BaselineCapture.Fit", 1, "keptCount <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.Fit", 2, "keptCount <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
-        new("BaselineCapture.Fit", 3, "keptCount <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
-        // RobustStatistics is called only by BaselineCapture.Fit, with counts <= keptCount <= BaselineMaxGates.
-        new("RobustStatistics.SortAscending", 0, "count - 1 < BaselineMaxGates (insertion sort, outer loop)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
-        new("RobustStatistics.SortAscending", 1, "i < count <= BaselineMaxGates (insertion sort, inner shift per outer pass)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        // RobustStatistics is called only by BaselineCapture, with counts <= BaselineMaxGates: selection in place
+        // (at most 2 floor(log2 n) + 2 partition rounds of at most n + 2 steps, then one heapsort), never a sort by insertion.
         new("RobustStatistics.Median", 0, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("RobustStatistics.MadSigma", 0, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("RobustStatistics.MedianInPlace", 0, "count / 2 <= BaselineMaxGates / 2", BaselineMaxGatesDefault / 2, BaselineMaxGatesLimit / 2),
+        new("RobustStatistics.FloorLog2", 0, "floor(log2 count) <= floor(log2 BaselineMaxGates)", Log2BaselineDefault, Log2BaselineLimit),
+        new("RobustStatistics.SelectInPlace(double[], int, int, int)", 0, "partition rounds <= 2 floor(log2 count) + 2 (then the heapsort)", (2 * Log2BaselineDefault) + 2, (2 * Log2BaselineLimit) + 2),
+        new("RobustStatistics.SelectInPlace(double[], int, int, int)", 1, "partition steps <= hi - lo + 2 <= count + 2", BaselineMaxGatesDefault + 2, BaselineMaxGatesLimit + 2),
+        new("RobustStatistics.HeapSort", 0, "heapify: n / 2 <= BaselineMaxGates / 2", BaselineMaxGatesDefault / 2, BaselineMaxGatesLimit / 2),
+        new("RobustStatistics.HeapSort", 1, "extraction: n - 1 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("RobustStatistics.SiftDown", 0, "heap depth floor(log2 n) + 1", Log2BaselineDefault + 1, Log2BaselineLimit + 1),
+
+        // Deciding an open candidate from both sides: one pass over the readings held (at most HistoryGates).
+        new("ReadingHistory.Exclude", 0, "count <= HistoryGates (ReadoutSettings history_gates, default 256, at most 16384)", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.FirstAtOrAfter", 0, "i <= count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.FitRecent", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.Resolve", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.SidesAgree", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.Smooth", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.FillPass", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
 
         // ScalarMath: bounds from the range of double (largest 2^1024, smallest subnormal 2^-1074) and the code's own constants.
         new("ScalarMath.Sqrt", 0, "m < 2^1024 scaled by 2^-64 per pass while m >= 2^64: 1024 / 64 = 16", 16, 16),
         new("ScalarMath.Sqrt", 1, "m >= 2^-1074 scaled by 2^64 per pass while m < 2^-64: ceil(1074 / 64) = 17", 17, 17),
-        new("ScalarMath.Sqrt", 2, "m < 2^64 after loop 0, divided by 4 per pass while m >= 4: 32", 32, 32),
-        new("ScalarMath.Sqrt", 3, "m >= 2^-64 after loop 1, multiplied by 4 per pass while m < 1: 32", 32, 32),
-        new("ScalarMath.Sqrt", 4, "Newton steps k < 8", 8, 8),
+        new("ScalarMath.Sqrt", 2, "m < 2^64 after loop 0, scaled by 2^-16 per pass while m >= 2^16: 3", 3, 3),
+        new("ScalarMath.Sqrt", 3, "m >= 2^-64 after loop 1, scaled by 2^16 per pass while m < 2^-16: 3", 3, 3),
+        new("ScalarMath.Sqrt", 4, "m < 2^16, divided by 16 per pass while m >= 16: 3", 3, 3),
+        new("ScalarMath.Sqrt", 5, "m >= 2^-16, multiplied by 16 per pass while m < 1/16: 3", 3, 3),
+        new("ScalarMath.Sqrt", 6, "m < 16, divided by 4 per pass while m >= 4: 1", 1, 1),
+        new("ScalarMath.Sqrt", 7, "m >= 1/16, multiplied by 4 per pass while m < 1: 2", 2, 2),
+        new("ScalarMath.Sqrt", 8, "Newton steps k < 8", 8, 8),
         new("ScalarMath.Exp", 0, "series terms n = 1..16", 16, 16),
-        new("ScalarMath.Exp", 1, "k = round(x / ln 2) <= 1024 (x > 709.78 returns first)", 1024, 1024),
-        new("ScalarMath.Exp", 2, "-k <= 1075 (x < -745 returns first)", 1075, 1075),
+        new("ScalarMath.Exp", 1, "binary digits of |k| <= 1075 < 2^11: 11", 11, 11),
     ];
 }
