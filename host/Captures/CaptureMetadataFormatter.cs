@@ -19,14 +19,14 @@ internal static class CaptureMetadataFormatter
     /// <summary>Checks what a writer needs; throws <see cref="ArgumentException"/> naming the bad property and its allowed range.</summary>
     public static void Validate(CaptureMetadata md)
     {
-        if (!(md.ClockHz > 0) || !double.IsFinite(md.ClockHz))
+        if (!(md.ClockHz >= CaptureMetadata.MinClockHz && md.ClockHz <= CaptureMetadata.MaxClockHz))
         {
-            throw new ArgumentException($"ClockHz (clock_hz) must be a finite number > 0, was {md.ClockHz.ToString("R", CultureInfo.InvariantCulture)}", nameof(md));
+            throw new ArgumentException($"ClockHz (clock_hz) must be in [1, 1e12] Hz, was {md.ClockHz.ToString("R", CultureInfo.InvariantCulture)}", nameof(md));
         }
 
-        if (md.Prescale < 1)
+        if (md.Prescale < 1 || md.Prescale > CaptureMetadata.MaxPrescale)
         {
-            throw new ArgumentException($"Prescale (prescale) must be an integer >= 1, was {md.Prescale}", nameof(md));
+            throw new ArgumentException($"Prescale (prescale) must be an integer from 1 to {CaptureMetadata.MaxPrescale}, was {md.Prescale}", nameof(md));
         }
 
         if (!CaptureMetadataParser.IsSupportedBits(md.TimerBits))
@@ -44,9 +44,9 @@ internal static class CaptureMetadataFormatter
             throw new ArgumentException("BeatSide (beat_side) must be above or below when Signal is beat", nameof(md));
         }
 
-        if (md.SearchHz is double s && (!(s > 0) || !double.IsFinite(s)))
+        if (md.SearchHz is double s && !(s >= CaptureMetadata.MinSearchHz && s <= CaptureMetadata.MaxSearchHz))
         {
-            throw new ArgumentException("SearchHz (search_hz) must be a finite number > 0 when given", nameof(md));
+            throw new ArgumentException("SearchHz (search_hz) must be in [1, 1e9] Hz when given", nameof(md));
         }
 
         CheckValue("note", md.Note);

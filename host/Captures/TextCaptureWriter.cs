@@ -199,9 +199,9 @@ public sealed class TextCaptureWriter : ICaptureWriter
                 throw new ArgumentException("the row has a temperature but the capture has no temp_c column (add it to ExtraColumns)", nameof(row));
             }
 
-            if (!double.IsFinite(t))
+            if (CaptureColumns.TemperatureProblem(t) is string range)
             {
-                throw new ArgumentException("temp_c must be a finite number", nameof(row));
+                throw new ArgumentException(range, nameof(row));
             }
         }
 
