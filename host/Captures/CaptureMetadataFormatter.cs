@@ -56,12 +56,12 @@ internal static class CaptureMetadataFormatter
             string? syntax = CaptureMetadataParser.CheckKeySyntax(pair.Key);
             if (syntax != null)
             {
-                throw new ArgumentException($"metadata key '{pair.Key}': {syntax}", nameof(md));
+                throw new ArgumentException($"metadata key {TextExcerpt.Quote(pair.Key)}: {syntax}", nameof(md));
             }
 
             if (!keys.Add(pair.Key))
             {
-                throw new ArgumentException($"metadata key '{pair.Key}' appears twice (or is a known key kept in Extra)", nameof(md));
+                throw new ArgumentException($"metadata key {TextExcerpt.Quote(pair.Key)} appears twice (or is a known key kept in Extra)", nameof(md));
             }
 
             CheckValue(pair.Key, pair.Value);
@@ -74,7 +74,7 @@ internal static class CaptureMetadataFormatter
                 string c = line.Comment ?? string.Empty;
                 if (c.Contains('=') || c.Contains('\n') || c.Contains('\r'))
                 {
-                    throw new ArgumentException($"header comment '{c}' must not contain '=' or a line break", nameof(md));
+                    throw new ArgumentException($"header comment {TextExcerpt.Quote(c)} must not contain '=' or a line break", nameof(md));
                 }
             }
         }
@@ -84,7 +84,7 @@ internal static class CaptureMetadataFormatter
         {
             if (!CaptureColumns.Optional.Contains(column) || !columns.Add(column))
             {
-                throw new ArgumentException($"ExtraColumns may hold temp_c and mark, each once; found '{column}'", nameof(md));
+                throw new ArgumentException($"ExtraColumns may hold temp_c and mark, each once; found {TextExcerpt.Quote(column)}", nameof(md));
             }
         }
     }
@@ -98,12 +98,12 @@ internal static class CaptureMetadataFormatter
             string? syntax = CaptureMetadataParser.CheckKeySyntax(pair.Key);
             if (syntax != null)
             {
-                throw new ArgumentException($"trailer key '{pair.Key}': {syntax}", nameof(trailer));
+                throw new ArgumentException($"trailer key {TextExcerpt.Quote(pair.Key)}: {syntax}", nameof(trailer));
             }
 
             if (!keys.Add(pair.Key))
             {
-                throw new ArgumentException($"trailer key '{pair.Key}' appears twice", nameof(trailer));
+                throw new ArgumentException($"trailer key {TextExcerpt.Quote(pair.Key)} appears twice", nameof(trailer));
             }
 
             CheckValue(pair.Key, pair.Value);
