@@ -1,3 +1,4 @@
+using FreqReadout.Host.Captures;
 using FreqReadout.Host.Commands;
 using Spectre.Console.Cli;
 
@@ -11,6 +12,20 @@ public static class Program
         // Numbers in messages and output use '.' whatever the machine's culture (the capture contract's rule).
         System.Globalization.CultureInfo.DefaultThreadCurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
         System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
+        if (args.Length == 0)
+        {
+            // No command: the help, and the usage exit code (nothing was done).
+            BuildApp(args).Run(new[] { "--help" });
+            return ExitCodes.Usage;
+        }
+
+        if (args.Length == 1 && args[0] == "--version")
+        {
+            Console.Out.WriteLine(VersionText());
+            return ExitCodes.Ok;
+        }
+
+        args = StandardStreams.MapArguments(args);
         try
         {
             return BuildApp(args).Run(args);
@@ -18,7 +33,12 @@ public static class Program
         catch (MissingOptionValueException e)
         {
             Console.Error.WriteLine("error: " + e.Message + "; see freqreadout --help");
-            return 2;
+            return ExitCodes.Usage;
+        }
+        catch (CommandLineException e)
+        {
+            Console.Error.WriteLine("error: " + e.Message + "; see freqreadout --help");
+            return ExitCodes.Usage;
         }
         catch (CommandAppException e)
         {
@@ -29,36 +49,51 @@ public static class Program
                 && MissingValueInterceptor.OptionMissingItsValue(args) is string missing)
             {
                 Console.Error.WriteLine("error: " + missing + " needs a value; see freqreadout --help");
-                return 2;
+                return ExitCodes.Usage;
             }
 
             if (ConversionError(e.Message + " " + e.InnerException?.Message, args) is string conversion)
             {
                 Console.Error.WriteLine("error: " + conversion + "; see freqreadout --help");
-                return 2;
+                return ExitCodes.Usage;
             }
 
             string detail = e.InnerException is { } inner && inner.Message != e.Message ? " (" + inner.Message + ")" : string.Empty;
-            Console.Error.WriteLine("error: " + e.Message.TrimEnd('.') + detail + "; see freqreadout --help");
-            return 2;
+            Console.Error.WriteLine("error: " + TextExcerpt.Plain(e.Message.TrimEnd('.') + detail, 400) + "; see freqreadout --help");
+            return ExitCodes.Usage;
         }
         catch (OperationCanceledException)
         {
             Console.Error.WriteLine("error: interrupted");
-            return 130;
+            return ExitCodes.Interrupted;
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             // A file that went away or a disk that failed mid-run (commands handle opening and writing themselves).
             Console.Error.WriteLine("error: " + e.Message.TrimEnd('.'));
-            return 1;
+            return ExitCodes.DataError;
         }
         catch (Exception e) when (Environment.GetEnvironmentVariable("FREQREADOUT_TRACE") != "1")
         {
             // A bug: one line for the user; FREQREADOUT_TRACE=1 lets the exception (and its stack trace) through.
             Console.Error.WriteLine($"error: unexpected {e.GetType().Name}: {e.Message.Split('\n')[0].TrimEnd('.')} (a bug in freqreadout; run with FREQREADOUT_TRACE=1 for the stack trace)");
-            return 70;
+            return ExitCodes.Bug;
         }
+    }
+
+    /// <summary>The <c>--version</c> line: the program's version and the capture format versions it reads and writes.</summary>
+    public static string VersionText()
+    {
+        var assembly = typeof(Program).Assembly;
+        string version = System.Reflection.CustomAttributeExtensions.GetCustomAttribute<System.Reflection.AssemblyInformationalVersionAttribute>(assembly)?.InformationalVersion
+            ?? assembly.GetName().Version?.ToString() ?? "unknown";
+        int plus = version.IndexOf('+');
+        if (plus > 0)
+        {
+            version = version[..plus]; // no build metadata (source revision) in the user-facing line
+        }
+
+        return $"freqreadout {version} (text capture format 1, binary capture format {BinaryCaptureFormat.Version})";
     }
 
     /// <summary>
@@ -94,7 +129,7 @@ public static class Program
             }
         }
 
-        return $"{option} must be {kind}, got '{value}'";
+        return $"{option} must be {kind}, got {TextExcerpt.Quote(value)}";
     }
 
     /// <summary>The command tree; tests run commands through this too.</summary>

@@ -177,6 +177,11 @@ public sealed class BinaryCaptureReader : ICaptureReader
                         }
 
                         temperature = BinaryPrimitives.ReadDoubleLittleEndian(data.Slice(pos, 8));
+                        if (CaptureColumns.TemperatureProblem(temperature.Value) is string range)
+                        {
+                            throw Error(_blockNumber, $"block {_blockNumber}, row {_rowsRead + 1}: {range}");
+                        }
+
                         pos += 8;
                     }
 
@@ -344,14 +349,14 @@ public sealed class BinaryCaptureReader : ICaptureReader
         string expected = md.Kind == CaptureKind.Snapshots ? "tick,count" : "tick";
         if (columns.Count < first || columns[0] != CaptureColumns.Tick || (first == 2 && columns[1] != CaptureColumns.Count))
         {
-            throw Error(0, $"expected the columns to start with '{expected}' (kind = {(first == 2 ? "snapshots" : "edges")}), found '{string.Join(",", columns)}'");
+            throw Error(0, $"expected the columns to start with '{expected}' (kind = {(first == 2 ? "snapshots" : "edges")}), found {TextExcerpt.Quote(string.Join(",", columns))}");
         }
 
         for (int i = first; i < columns.Count; i++)
         {
             if (!CaptureColumns.Optional.Contains(columns[i]) || md.ExtraColumns.Contains(columns[i]))
             {
-                throw Error(0, $"unknown or repeated column '{columns[i]}'; expected only temp_c and mark after '{expected}', each once");
+                throw Error(0, $"unknown or repeated column {TextExcerpt.Quote(columns[i])}; expected only temp_c and mark after '{expected}', each once");
             }
 
             md.ExtraColumns.Add(columns[i]);

@@ -8,13 +8,28 @@ namespace FreqReadout.Host.Captures;
 /// </summary>
 public sealed class CaptureMetadata
 {
-    /// <summary>Timer clock, Hz (&gt; 0). Required key <c>clock_hz</c>.</summary>
+    /// <summary>Lowest <c>clock_hz</c>, Hz (a timer slower than 1 Hz cannot time an oscillator).</summary>
+    public const double MinClockHz = 1;
+
+    /// <summary>Highest <c>clock_hz</c>, Hz (1 THz, beyond any counter or logic analyser).</summary>
+    public const double MaxClockHz = 1e12;
+
+    /// <summary>Lowest <c>search_hz</c>, Hz.</summary>
+    public const double MinSearchHz = 1;
+
+    /// <summary>Highest <c>search_hz</c>, Hz (1 GHz, far above any LC search oscillator).</summary>
+    public const double MaxSearchHz = 1e9;
+
+    /// <summary>Largest <c>prescale</c> (2^24, beyond any prescaler chain).</summary>
+    public const int MaxPrescale = 1 << 24;
+
+    /// <summary>Timer clock, Hz, in [<see cref="MinClockHz"/>, <see cref="MaxClockHz"/>]. Required key <c>clock_hz</c>.</summary>
     public double ClockHz { get; set; }
 
     /// <summary>Key <c>kind</c>: edges (default) or snapshots.</summary>
     public CaptureKind Kind { get; set; } = CaptureKind.Edges;
 
-    /// <summary>Key <c>prescale</c>: input edges per recorded edge, default 1.</summary>
+    /// <summary>Key <c>prescale</c>: input edges per recorded edge, 1 to <see cref="MaxPrescale"/>, default 1.</summary>
     public int Prescale { get; set; } = 1;
 
     /// <summary>Key <c>timer_bits</c>: 16, 24, 32 or 64 (default).</summary>
@@ -29,7 +44,7 @@ public sealed class CaptureMetadata
     /// <summary>Key <c>beat_side</c>: required when signal = beat.</summary>
     public BeatSide BeatSide { get; set; } = BeatSide.None;
 
-    /// <summary>Key <c>search_hz</c>: nominal search-oscillator frequency, if given.</summary>
+    /// <summary>Key <c>search_hz</c>: nominal search-oscillator frequency, Hz, in [<see cref="MinSearchHz"/>, <see cref="MaxSearchHz"/>], if given.</summary>
     public double? SearchHz { get; set; }
 
     /// <summary>Key <c>started_utc</c>, if given.</summary>

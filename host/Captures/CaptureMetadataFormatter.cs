@@ -19,14 +19,14 @@ internal static class CaptureMetadataFormatter
     /// <summary>Checks what a writer needs; throws <see cref="ArgumentException"/> naming the bad property and its allowed range.</summary>
     public static void Validate(CaptureMetadata md)
     {
-        if (!(md.ClockHz > 0) || !double.IsFinite(md.ClockHz))
+        if (!(md.ClockHz >= CaptureMetadata.MinClockHz && md.ClockHz <= CaptureMetadata.MaxClockHz))
         {
-            throw new ArgumentException($"ClockHz (clock_hz) must be a finite number > 0, was {md.ClockHz.ToString("R", CultureInfo.InvariantCulture)}", nameof(md));
+            throw new ArgumentException($"ClockHz (clock_hz) must be in [1, 1e12] Hz, was {md.ClockHz.ToString("R", CultureInfo.InvariantCulture)}", nameof(md));
         }
 
-        if (md.Prescale < 1)
+        if (md.Prescale < 1 || md.Prescale > CaptureMetadata.MaxPrescale)
         {
-            throw new ArgumentException($"Prescale (prescale) must be an integer >= 1, was {md.Prescale}", nameof(md));
+            throw new ArgumentException($"Prescale (prescale) must be an integer from 1 to {CaptureMetadata.MaxPrescale}, was {md.Prescale}", nameof(md));
         }
 
         if (!CaptureMetadataParser.IsSupportedBits(md.TimerBits))
@@ -44,9 +44,9 @@ internal static class CaptureMetadataFormatter
             throw new ArgumentException("BeatSide (beat_side) must be above or below when Signal is beat", nameof(md));
         }
 
-        if (md.SearchHz is double s && (!(s > 0) || !double.IsFinite(s)))
+        if (md.SearchHz is double s && !(s >= CaptureMetadata.MinSearchHz && s <= CaptureMetadata.MaxSearchHz))
         {
-            throw new ArgumentException("SearchHz (search_hz) must be a finite number > 0 when given", nameof(md));
+            throw new ArgumentException("SearchHz (search_hz) must be in [1, 1e9] Hz when given", nameof(md));
         }
 
         CheckValue("note", md.Note);
@@ -56,12 +56,12 @@ internal static class CaptureMetadataFormatter
             string? syntax = CaptureMetadataParser.CheckKeySyntax(pair.Key);
             if (syntax != null)
             {
-                throw new ArgumentException($"metadata key '{pair.Key}': {syntax}", nameof(md));
+                throw new ArgumentException($"metadata key {TextExcerpt.Quote(pair.Key)}: {syntax}", nameof(md));
             }
 
             if (!keys.Add(pair.Key))
             {
-                throw new ArgumentException($"metadata key '{pair.Key}' appears twice (or is a known key kept in Extra)", nameof(md));
+                throw new ArgumentException($"metadata key {TextExcerpt.Quote(pair.Key)} appears twice (or is a known key kept in Extra)", nameof(md));
             }
 
             CheckValue(pair.Key, pair.Value);
@@ -74,7 +74,7 @@ internal static class CaptureMetadataFormatter
                 string c = line.Comment ?? string.Empty;
                 if (c.Contains('=') || c.Contains('\n') || c.Contains('\r'))
                 {
-                    throw new ArgumentException($"header comment '{c}' must not contain '=' or a line break", nameof(md));
+                    throw new ArgumentException($"header comment {TextExcerpt.Quote(c)} must not contain '=' or a line break", nameof(md));
                 }
             }
         }
@@ -84,7 +84,7 @@ internal static class CaptureMetadataFormatter
         {
             if (!CaptureColumns.Optional.Contains(column) || !columns.Add(column))
             {
-                throw new ArgumentException($"ExtraColumns may hold temp_c and mark, each once; found '{column}'", nameof(md));
+                throw new ArgumentException($"ExtraColumns may hold temp_c and mark, each once; found {TextExcerpt.Quote(column)}", nameof(md));
             }
         }
     }
@@ -98,12 +98,12 @@ internal static class CaptureMetadataFormatter
             string? syntax = CaptureMetadataParser.CheckKeySyntax(pair.Key);
             if (syntax != null)
             {
-                throw new ArgumentException($"trailer key '{pair.Key}': {syntax}", nameof(trailer));
+                throw new ArgumentException($"trailer key {TextExcerpt.Quote(pair.Key)}: {syntax}", nameof(trailer));
             }
 
             if (!keys.Add(pair.Key))
             {
-                throw new ArgumentException($"trailer key '{pair.Key}' appears twice", nameof(trailer));
+                throw new ArgumentException($"trailer key {TextExcerpt.Quote(pair.Key)} appears twice", nameof(trailer));
             }
 
             CheckValue(pair.Key, pair.Value);

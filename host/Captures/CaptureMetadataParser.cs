@@ -63,10 +63,10 @@ internal sealed class CaptureMetadataParser
 
         if (key.ToLowerInvariant() != key)
         {
-            return $"metadata keys are lowercase: expected '{key.ToLowerInvariant()}', found '{key}'";
+            return $"metadata keys are lowercase: expected {TextExcerpt.Quote(key.ToLowerInvariant())}, found {TextExcerpt.Quote(key)}";
         }
 
-        return $"expected a metadata key of lowercase letters, digits and '_' before '=', found '{key}'";
+        return $"expected a metadata key of lowercase letters, digits and '_' before '=', found {TextExcerpt.Quote(key)}";
     }
 
     /// <summary>Records a comment line (text after '#').</summary>
@@ -86,7 +86,7 @@ internal sealed class CaptureMetadataParser
 
         if (_seen.TryGetValue(key, out long firstLine))
         {
-            throw Error(line, $"duplicate metadata key '{key}' (first given at line {firstLine}); each key may appear once");
+            throw Error(line, $"duplicate metadata key {TextExcerpt.Quote(key)} (first given at line {firstLine}); each key may appear once");
         }
 
         _seen[key] = line;
@@ -94,20 +94,20 @@ internal sealed class CaptureMetadataParser
         switch (key)
         {
             case "clock_hz":
-                md.ClockHz = ParsePositiveDouble(key, value, line, "the timer clock in Hz, a number > 0 such as 1000000 or 9999987.5");
+                md.ClockHz = ParseDoubleIn(key, value, line, CaptureMetadata.MinClockHz, CaptureMetadata.MaxClockHz, "the timer clock in Hz, a number in [1, 1e12] such as 1000000 or 9999987.5");
                 break;
             case "kind":
                 md.Kind = value switch
                 {
                     "edges" => CaptureKind.Edges,
                     "snapshots" => CaptureKind.Snapshots,
-                    _ => throw Error(line, $"expected kind = edges or kind = snapshots, found '{value}'"),
+                    _ => throw Error(line, $"expected kind = edges or kind = snapshots, found {TextExcerpt.Quote(value)}"),
                 };
                 break;
             case "prescale":
-                if (!int.TryParse(value, NumberStyles.None, CultureInfo.InvariantCulture, out int prescale) || prescale < 1)
+                if (!int.TryParse(value, NumberStyles.None, CultureInfo.InvariantCulture, out int prescale) || prescale < 1 || prescale > CaptureMetadata.MaxPrescale)
                 {
-                    throw Error(line, $"expected prescale = an integer >= 1 (input edges per recorded edge), found '{value}'");
+                    throw Error(line, $"expected prescale = an integer from 1 to {CaptureMetadata.MaxPrescale} (input edges per recorded edge), found {TextExcerpt.Quote(value)}");
                 }
 
                 md.Prescale = prescale;
@@ -123,7 +123,7 @@ internal sealed class CaptureMetadataParser
                 {
                     "search" => SignalKind.Search,
                     "beat" => SignalKind.Beat,
-                    _ => throw Error(line, $"expected signal = search or signal = beat, found '{value}'"),
+                    _ => throw Error(line, $"expected signal = search or signal = beat, found {TextExcerpt.Quote(value)}"),
                 };
                 break;
             case "beat_side":
@@ -131,17 +131,17 @@ internal sealed class CaptureMetadataParser
                 {
                     "above" => BeatSide.Above,
                     "below" => BeatSide.Below,
-                    _ => throw Error(line, $"expected beat_side = above or beat_side = below (the search oscillator relative to the reference), found '{value}'"),
+                    _ => throw Error(line, $"expected beat_side = above or beat_side = below (the search oscillator relative to the reference), found {TextExcerpt.Quote(value)}"),
                 };
                 break;
             case "search_hz":
-                md.SearchHz = ParsePositiveDouble(key, value, line, "the nominal search-oscillator frequency in Hz, a number > 0");
+                md.SearchHz = ParseDoubleIn(key, value, line, CaptureMetadata.MinSearchHz, CaptureMetadata.MaxSearchHz, "the nominal search-oscillator frequency in Hz, a number in [1, 1e9]");
                 break;
             case "started_utc":
                 if (!DateTimeOffset.TryParseExact(value, StartedUtcFormat, CultureInfo.InvariantCulture,
                         DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out DateTimeOffset started))
                 {
-                    throw Error(line, $"expected started_utc = YYYY-MM-DDTHH:MM:SSZ (ISO 8601, UTC), found '{value}'");
+                    throw Error(line, $"expected started_utc = YYYY-MM-DDTHH:MM:SSZ (ISO 8601, UTC), found {TextExcerpt.Quote(value)}");
                 }
 
                 md.StartedUtc = started;
@@ -191,20 +191,20 @@ internal sealed class CaptureMetadataParser
             return bits;
         }
 
-        throw Error(line, $"expected {key} = 16, 24, 32 or 64, found '{value}'");
+        throw Error(line, $"expected {key} = 16, 24, 32 or 64, found {TextExcerpt.Quote(value)}");
     }
 
     /// <summary>True for a supported timer or counter width: 16, 24, 32 or 64 bits.</summary>
     public static bool IsSupportedBits(int bits) => bits is 16 or 24 or 32 or 64;
 
-    private double ParsePositiveDouble(string key, string value, long line, string what)
+    private double ParseDoubleIn(string key, string value, long line, double low, double high, string what)
     {
-        if (TryParseDouble(value, out double v) && v > 0)
+        if (TryParseDouble(value, out double v) && v >= low && v <= high)
         {
             return v;
         }
 
-        throw Error(line, $"expected {key} = {what}, found '{value}'");
+        throw Error(line, $"expected {key} = {what}, found {TextExcerpt.Quote(value)}");
     }
 
     /// <summary>Parses a finite number with '.' as the decimal separator (invariant culture), no thousands separators.</summary>

@@ -180,9 +180,14 @@ public sealed class TextCaptureReader : ICaptureReader
                     case ColumnKind.TemperatureC:
                         if (!text.IsEmpty)
                         {
-                            if (!CaptureMetadataParser.TryParseDouble(text, out double t) || t < -273.15)
+                            if (!CaptureMetadataParser.TryParseDouble(text, out double t))
                             {
-                                throw Error(_lineNumber, $"expected temp_c as a number in degrees Celsius with '.' as decimal separator (or blank for no new sample), found '{text.ToString()}'");
+                                throw Error(_lineNumber, $"expected temp_c as a number in degrees Celsius in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found {TextExcerpt.Quote(text)}");
+                            }
+
+                            if (CaptureColumns.TemperatureProblem(t) is string range)
+                            {
+                                throw Error(_lineNumber, range);
                             }
 
                             temperature = t;
@@ -236,7 +241,7 @@ public sealed class TextCaptureReader : ICaptureReader
     {
         if (!CaptureMetadataParser.TrySplitKeyValue(afterHash, out string key, out string value))
         {
-            throw Error(_lineNumber, $"expected a trailer line '# key = value' (only trailer metadata may follow the data rows), found '#{afterHash}'");
+            throw Error(_lineNumber, $"expected a trailer line '# key = value' (only trailer metadata may follow the data rows), found {TextExcerpt.Quote("#" + afterHash)}");
         }
 
         string? syntax = CaptureMetadataParser.CheckKeySyntax(key);
@@ -247,7 +252,7 @@ public sealed class TextCaptureReader : ICaptureReader
 
         if (keys.TryGetValue(key, out long first))
         {
-            throw Error(_lineNumber, $"duplicate trailer key '{key}' (first given at line {first}); each key may appear once");
+            throw Error(_lineNumber, $"duplicate trailer key {TextExcerpt.Quote(key)} (first given at line {first}); each key may appear once");
         }
 
         keys[key] = _lineNumber;
@@ -265,13 +270,13 @@ public sealed class TextCaptureReader : ICaptureReader
         {
             if (c < '0' || c > '9')
             {
-                throw Error(_lineNumber, $"expected the {column} as an unsigned integer (digits only), found '{text.ToString()}'");
+                throw Error(_lineNumber, $"expected the {column} as an unsigned integer (digits only), found {TextExcerpt.Quote(text)}");
             }
         }
 
         if (!ulong.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out ulong value) || value > max)
         {
-            throw Error(_lineNumber, $"{column} {text.ToString()} exceeds the {(column == "tick" ? "timer" : "counter")} width: {widthKey} = {bits} allows 0 to {max}");
+            throw Error(_lineNumber, $"{column} {TextExcerpt.Plain(text)} exceeds the {(column == "tick" ? "timer" : "counter")} width: {widthKey} = {bits} allows 0 to {max}");
         }
 
         return value;
@@ -284,7 +289,7 @@ public sealed class TextCaptureReader : ICaptureReader
         string? line;
         do
         {
-            line = NextLine();
+            line = NextMagicCandidate();
             if (line == null)
             {
                 throw Error(Math.Max(1, _lineNumber), $"not a capture: expected the first line '{MagicLine}', found an empty file");
@@ -297,10 +302,10 @@ public sealed class TextCaptureReader : ICaptureReader
         {
             if (magic.StartsWith(MagicPrefix, StringComparison.Ordinal))
             {
-                throw Error(_lineNumber, $"unsupported capture version: expected '{MagicLine}', found '{Shorten(magic)}'");
+                throw Error(_lineNumber, $"unsupported capture version: expected '{MagicLine}', found {TextExcerpt.Quote(magic)}");
             }
 
-            throw Error(_lineNumber, $"not a capture: expected the first line '{MagicLine}', found '{Shorten(magic)}'");
+            throw Error(_lineNumber, $"not a capture: expected the first line '{MagicLine}', found {TextExcerpt.Quote(magic)}");
         }
 
         var parser = new CaptureMetadataParser(SourceName, _warnings);
@@ -343,7 +348,7 @@ public sealed class TextCaptureReader : ICaptureReader
 
             if (names[0] != CaptureColumns.Tick)
             {
-                throw Error(_lineNumber, $"expected the column header row starting with {expected} before the data rows, found '{Shorten(trimmed)}'");
+                throw Error(_lineNumber, $"expected the column header row starting with {expected} before the data rows, found {TextExcerpt.Quote(trimmed)}");
             }
 
             parser.Finish(_lineNumber);
@@ -353,7 +358,7 @@ public sealed class TextCaptureReader : ICaptureReader
             {
                 if (names.Length < 2 || names[1] != CaptureColumns.Count)
                 {
-                    throw Error(_lineNumber, $"expected the column header row starting with {expected}, found '{Shorten(trimmed)}'");
+                    throw Error(_lineNumber, $"expected the column header row starting with {expected}, found {TextExcerpt.Quote(trimmed)}");
                 }
 
                 columns.Add(ColumnKind.Count);
@@ -382,12 +387,12 @@ public sealed class TextCaptureReader : ICaptureReader
                 }
                 else
                 {
-                    throw Error(_lineNumber, $"unknown column '{name}'; expected only temp_c and mark after {expected}");
+                    throw Error(_lineNumber, $"unknown column {TextExcerpt.Quote(name)}; expected only temp_c and mark after {expected}");
                 }
 
                 if (columns.Contains(kind))
                 {
-                    throw Error(_lineNumber, $"column '{name}' appears twice in the column header; each column may appear once");
+                    throw Error(_lineNumber, $"column {TextExcerpt.Quote(name)} appears twice in the column header; each column may appear once");
                 }
 
                 columns.Add(kind);
@@ -396,6 +401,61 @@ public sealed class TextCaptureReader : ICaptureReader
 
             return (md, columns.ToArray(), string.Join(",", names));
         }
+    }
+
+    /// <summary>Longest first line read while looking for the magic line (an image or binary file need not hold a line break at all).</summary>
+    private const int MaxMagicLineChars = 4096;
+
+    /// <summary>
+    /// The next line before the magic line is found, read at most <see cref="MaxMagicLineChars"/> characters far: a
+    /// file that is not text (an image, an archive, a binary of another program) is "not a capture", not a UTF-8 fault.
+    /// </summary>
+    private string? NextMagicCandidate()
+    {
+        var text = new System.Text.StringBuilder();
+        int c;
+        while ((c = _reader.Read()) >= 0 && c != '\n' && text.Length < MaxMagicLineChars)
+        {
+            text.Append((char)c);
+        }
+
+        if (c < 0 && text.Length == 0)
+        {
+            return null;
+        }
+
+        _lineNumber++;
+        string line = text.ToString().TrimEnd('\r');
+        if (_lineNumber == 1 && line.Length > 0 && line[0] == '\uFEFF')
+        {
+            line = line.Substring(1);
+        }
+
+        if (LooksBinary(line))
+        {
+            throw Error(_lineNumber, $"not a capture (no '{MagicLine}' line): the file starts with binary data, not text");
+        }
+
+        if (text.Length >= MaxMagicLineChars)
+        {
+            throw Error(_lineNumber, $"not a capture: expected the first line '{MagicLine}', found {TextExcerpt.Quote(line)}");
+        }
+
+        return line;
+    }
+
+    /// <summary>True for text that cannot be the start of a text capture: bytes that are not UTF-8, or control characters other than tab.</summary>
+    private static bool LooksBinary(string line)
+    {
+        foreach (char ch in line)
+        {
+            if (ch == '\uFFFD' || (char.IsControl(ch) && ch != '\t' && ch != '\r'))
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private string? NextLine()
@@ -419,8 +479,6 @@ public sealed class TextCaptureReader : ICaptureReader
 
         return line;
     }
-
-    private static string Shorten(string text) => text.Length <= 60 ? text : text.Substring(0, 57) + "...";
 
     private CaptureFormatException Error(long line, string problem) => new(SourceName, line, problem);
 }

@@ -199,9 +199,9 @@ public sealed class TextCaptureWriter : ICaptureWriter
                 throw new ArgumentException("the row has a temperature but the capture has no temp_c column (add it to ExtraColumns)", nameof(row));
             }
 
-            if (!double.IsFinite(t))
+            if (CaptureColumns.TemperatureProblem(t) is string range)
             {
-                throw new ArgumentException("temp_c must be a finite number", nameof(row));
+                throw new ArgumentException(range, nameof(row));
             }
         }
 
@@ -214,7 +214,7 @@ public sealed class TextCaptureWriter : ICaptureWriter
 
             if (row.Mark.Length == 0 || row.Mark.Contains(',') || row.Mark.Contains('\n') || row.Mark.Contains('\r') || row.Mark.Trim().Length != row.Mark.Length)
             {
-                throw new ArgumentException($"a mark is non-empty text without commas, line breaks or surrounding spaces, was '{row.Mark}'", nameof(row));
+                throw new ArgumentException($"a mark is non-empty text without commas, line breaks or surrounding spaces, was {TextExcerpt.Quote(row.Mark)}", nameof(row));
             }
         }
     }

@@ -64,24 +64,18 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             // The fit needs the uncompensated frequencies; and a temperature step must not hide as a long
             // "target": unless told otherwise, a shift lasting longer than a coil pass is re-baselined soon.
             readout.TempcoPpmPerK = 0;
-            if (settings.TempcoPpmPerK != null)
-            {
-                CommandOutput.Diagnostic($"warning: --tempco-ppm-per-k {settings.TempcoPpmPerK} is ignored by calibrate: the fit needs the uncompensated frequencies");
-            }
 
             if (settings.PersistentShiftSeconds == null)
             {
                 readout.PersistentShiftSeconds = DefaultPersistentShiftSeconds;
             }
-            CaptureGateSource source;
-            try
+            int sourceExit = CommandOutput.TryCreateGateSource(reader, options, settings, readout.SearchHz > 0 ? readout.SearchHz : null, out CaptureGateSource? created);
+            if (created == null)
             {
-                source = new CaptureGateSource(reader, options);
+                return sourceExit;
             }
-            catch (ArgumentException e)
-            {
-                return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
-            }
+
+            CaptureGateSource source = created;
 
             ReplayReport report;
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
@@ -97,6 +91,11 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             foreach (string w in report.Warnings)
             {
                 CommandOutput.Diagnostic("warning: " + w);
+            }
+
+            if (report.Gates == 0)
+            {
+                return CommandOutput.Fail($"{reader.SourceName}: {CountCommand.NoGateText(source)}", CommandOutput.BadInput);
             }
 
             if (!TempcoCalibration.TryFit(session.TempcoPoints, readout.Signal, readout.BeatSide, readout.SearchHz, out TempcoFitResult fit, out string? fitError))

@@ -17,26 +17,27 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
     {
         [CommandOption("--scene <FILE>")]
         [Description("Take coil and oscillator from a scene file (options below override).")]
+        [FilePath]
         public string? Scene { get; set; }
 
         [CommandOption("--turns <N>")]
-        [Description("Turns, 1..100000 (default 45).")]
+        [Description("Turns, an integer in [[1, 100000]] (default 45).")]
         public int? Turns { get; set; }
 
         [CommandOption("--diameter-mm <MM>")]
-        [Description("Mean winding diameter, mm (default 180).")]
+        [Description("Mean winding diameter, mm, (5, 5000]] (default 180).")]
         public double? DiameterMm { get; set; }
 
         [CommandOption("--winding-length-mm <MM>")]
-        [Description("Axial winding length, mm; 0 = from the wire (default).")]
+        [Description("Axial winding length, mm, [[0, diameter); 0 = from the wire (default).")]
         public double? WindingLengthMm { get; set; }
 
         [CommandOption("--winding-depth-mm <MM>")]
-        [Description("Radial winding depth, mm; 0 = from the wire (default).")]
+        [Description("Radial winding depth, mm, [[0, diameter / 2); 0 = from the wire (default).")]
         public double? WindingDepthMm { get; set; }
 
         [CommandOption("--wire-mm <MM>")]
-        [Description("Wire diameter, mm (default 0.5).")]
+        [Description("Wire diameter, mm, (0, 10) (default 0.5).")]
         public double? WireMm { get; set; }
 
         [CommandOption("--inductance-model <MODEL>")]
@@ -44,11 +45,11 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         public string? InductanceModel { get; set; }
 
         [CommandOption("--frequency-hz <HZ>")]
-        [Description("Operating frequency, Hz (the capacitance follows). Default 100000.")]
+        [Description("Operating frequency, Hz, (100, 2e7]] (the capacitance follows). Default 100000.")]
         public double? FrequencyHz { get; set; }
 
         [CommandOption("--capacitance-nf <NF>")]
-        [Description("Tuning capacitance, nF (the frequency follows).")]
+        [Description("Tuning capacitance, nF, (0.001, 1e6]] (the frequency follows).")]
         public double? CapacitanceNf { get; set; }
 
         [CommandOption("--material <NAME>")]
@@ -56,23 +57,23 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         public string? Material { get; set; }
 
         [CommandOption("--radius-mm <MM>")]
-        [Description("Target sphere radius, mm (default 10).")]
+        [Description("Target sphere radius, mm, (0, 1000]] (default 10).")]
         public double RadiusMm { get; set; } = 10;
 
         [CommandOption("--mu-r <MU>")]
-        [Description("Relative permeability (carbon steel default 100; custom default 1).")]
+        [Description("Relative permeability, [[1, 1e6]] (carbon steel default 100; custom default 1).")]
         public double? MuR { get; set; }
 
         [CommandOption("--conductivity <S_PER_M>")]
-        [Description("Conductivity, S/m (required for custom; overrides a preset).")]
+        [Description("Conductivity, S/m, (0, 1e9]] (required for custom; overrides a preset).")]
         public double? Conductivity { get; set; }
 
         [CommandOption("--depths-mm <LIST>")]
-        [Description("Target-centre depths below the surface, mm, comma separated, target on the coil axis (default 20,50,80,100,150,200,300).")]
+        [Description("Target-centre depths below the surface, mm, each in [[0, 100000]], comma separated, target on the coil axis (default 20,50,80,100,150,200,300).")]
         public string Depths { get; set; } = "20,50,80,100,150,200,300";
 
         [CommandOption("--height-mm <MM>")]
-        [Description("Height of the coil plane above the surface, mm (>= 0, default 0).")]
+        [Description("Height of the coil plane above the surface, mm, [[0, 5000]] (default 0).")]
         public double HeightMm { get; set; }
 
         [CommandOption("--json")]
@@ -89,7 +90,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
+            return CommandOutput.Fail(ex.Message, ex.CommandLine ? CommandOutput.BadOption : CommandOutput.BadInput);
         }
         catch (ArgumentOutOfRangeException ex) when (ex.ParamName != "deltaInductanceH")
         {
@@ -147,13 +148,13 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             {
                 "wheeler" => Simulation.InductanceModel.Wheeler,
                 "thin_loop" or "thin-loop" => Simulation.InductanceModel.ThinLoop,
-                _ => throw new SceneException($"--inductance-model must be wheeler or thin_loop (got {s.InductanceModel})"),
+                _ => throw SceneException.Usage($"--inductance-model must be wheeler or thin_loop (got {OptionValues.Quote(s.InductanceModel)})"),
             };
         }
 
         if (s.FrequencyHz.HasValue && s.CapacitanceNf.HasValue)
         {
-            throw new SceneException("give --frequency-hz or --capacitance-nf, not both");
+            throw SceneException.Usage("give --frequency-hz or --capacitance-nf, not both");
         }
 
         if (s.FrequencyHz.HasValue)
@@ -169,12 +170,12 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
 
         if (osc.FrequencyHz.HasValue && !(osc.FrequencyHz > 100 && osc.FrequencyHz <= 20e6))
         {
-            throw new SceneException($"--frequency-hz must be in (100, 2e7] Hz (got {Fmt(osc.FrequencyHz.Value)})");
+            throw SceneException.Usage($"--frequency-hz must be in (100, 2e7] Hz (got {Fmt(osc.FrequencyHz.Value)})");
         }
 
         if (osc.TuningCapacitanceNf.HasValue && !(osc.TuningCapacitanceNf > 0.001 && osc.TuningCapacitanceNf <= 1e6))
         {
-            throw new SceneException($"--capacitance-nf must be in (0.001, 1e6] nF (got {Fmt(osc.TuningCapacitanceNf.Value)})");
+            throw SceneException.Usage($"--capacitance-nf must be in (0.001, 1e6] nF (got {Fmt(osc.TuningCapacitanceNf.Value)})");
         }
 
         // Coil geometry checks with option names.
@@ -185,7 +186,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         }
         catch (SceneException ex)
         {
-            throw new SceneException(ex.Message
+            throw SceneException.Usage(ex.Message
                 .Replace("coil.turns", "--turns").Replace("coil.mean_diameter_m", "--diameter-mm (as metres)")
                 .Replace("coil.wire_diameter_m", "--wire-mm (as metres)").Replace("coil.winding_length_m", "--winding-length-mm (as metres)")
                 .Replace("coil.winding_depth_m", "--winding-depth-mm (as metres)"));
@@ -196,40 +197,40 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         {
             if (!(s.RadiusMm > 0 && s.RadiusMm <= 1000))
             {
-                throw new SceneException($"--radius-mm must be in (0, 1000] mm (got {Fmt(s.RadiusMm)})");
+                throw SceneException.Usage($"--radius-mm must be in (0, 1000] mm (got {Fmt(s.RadiusMm)})");
             }
 
             if (s.Conductivity.HasValue && !(s.Conductivity > 0 && s.Conductivity <= 1e9))
             {
-                throw new SceneException($"--conductivity must be in (0, 1e9] S/m (got {Fmt(s.Conductivity.Value)})");
+                throw SceneException.Usage($"--conductivity must be in (0, 1e9] S/m (got {Fmt(s.Conductivity.Value)})");
             }
 
             if (s.MuR.HasValue && !(s.MuR >= 1 && s.MuR <= 1e6))
             {
-                throw new SceneException($"--mu-r must be in [1, 1e6] (got {Fmt(s.MuR.Value)})");
+                throw SceneException.Usage($"--mu-r must be in [1, 1e6] (got {Fmt(s.MuR.Value)})");
             }
 
             if (s.Material.Trim().Equals("custom", StringComparison.OrdinalIgnoreCase) && !s.Conductivity.HasValue)
             {
-                throw new SceneException("--material custom needs --conductivity <S_PER_M>, in (0, 1e9] S/m (and --mu-r, default 1)");
+                throw SceneException.Usage("--material custom needs --conductivity <S_PER_M>, in (0, 1e9] S/m (and --mu-r, default 1)");
             }
 
             var target = new SceneTarget { Material = s.Material, MuR = s.MuR, ConductivitySPerM = s.Conductivity };
             if (!FreqReadout.Host.Simulation.Scene.TryResolveMaterial(target, out Material m, out string? why))
             {
-                throw new SceneException($"--material must be {why!.Replace("conductivity_s_per_m", "--conductivity").Replace("mu_r", "--mu-r")} (got {s.Material})");
+                throw SceneException.Usage($"--material must be {why!.Replace("conductivity_s_per_m", "--conductivity").Replace("mu_r", "--mu-r")} (got {OptionValues.Quote(s.Material)})");
             }
 
             material = m;
         }
         else if (s.MuR.HasValue || s.Conductivity.HasValue)
         {
-            throw new SceneException("--mu-r and --conductivity describe a target: give --material too");
+            throw SceneException.Usage("--mu-r and --conductivity describe a target: give --material too");
         }
 
         if (!(s.HeightMm >= 0 && s.HeightMm <= 5000))
         {
-            throw new SceneException($"--height-mm must be in [0, 5000] mm (got {Fmt(s.HeightMm)})");
+            throw SceneException.Usage($"--height-mm must be in [0, 5000] mm (got {Fmt(s.HeightMm)})");
         }
 
         var depths = new List<double>();
@@ -237,7 +238,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         {
             if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out double mm) || !(mm >= 0 && mm <= 100_000) || mm + s.HeightMm <= 0)
             {
-                throw new SceneException($"--depths-mm must be a comma-separated list of depths in [0, 100000] mm, not all zero with --height-mm 0 (got '{part}')");
+                throw SceneException.Usage($"--depths-mm must be a comma-separated list of depths in [0, 100000] mm, not all zero with --height-mm 0 (got {OptionValues.Quote(part)})");
             }
 
             depths.Add(mm / 1000);
@@ -245,7 +246,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
 
         if (depths.Count == 0)
         {
-            throw new SceneException("--depths-mm must list at least one depth");
+            throw SceneException.Usage("--depths-mm must list at least one depth");
         }
 
         var searchCoil = coil.ToSearchCoil();
@@ -265,7 +266,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         bool ok = (zeroAllowed && v == 0) || (v > lowMm && (upperOpen ? v < highMm : v <= highMm));
         if (!ok)
         {
-            throw new SceneException($"{option} must be {range} (got {Fmt(v)})");
+            throw SceneException.Usage($"{option} must be {range} (got {Fmt(v)})");
         }
     }
 

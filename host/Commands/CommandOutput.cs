@@ -10,11 +10,17 @@ namespace FreqReadout.Host.Commands;
 /// </summary>
 public static class CommandOutput
 {
-    /// <summary>Exit code of a malformed or missing capture file.</summary>
-    public const int BadInput = 1;
+    /// <summary>Exit code of a data problem: a malformed, missing or unusable input, an output that cannot be written (<see cref="ExitCodes.DataError"/>).</summary>
+    public const int BadInput = ExitCodes.DataError;
 
-    /// <summary>Exit code of an invalid option value.</summary>
-    public const int BadOption = 2;
+    /// <summary>Exit code of a usage problem: an invalid option value (<see cref="ExitCodes.Usage"/>).</summary>
+    public const int BadOption = ExitCodes.Usage;
+
+    /// <summary>
+    /// Whether stderr is an interactive terminal, where progress bars and status lines belong; redirected to a
+    /// file or a pipe they would only fill it. Tests replace it.
+    /// </summary>
+    public static Func<bool> ErrorIsTerminal { get; set; } = () => !Console.IsErrorRedirected;
 
     /// <summary>A Spectre console writing to the current <see cref="Console.Out"/> (plain text when redirected).</summary>
     public static IAnsiConsole Stdout()
@@ -55,9 +61,16 @@ public static class CommandOutput
     public static int TryOpenCapture(string path, out ICaptureReader? reader)
     {
         reader = null;
+        if (string.IsNullOrWhiteSpace(path))
+        {
+            return Fail("the capture path is empty: expected a file name (or - for standard input)", BadOption);
+        }
+
         try
         {
-            reader = CaptureFile.Open(path);
+            reader = StandardStreams.IsInput(path)
+                ? CaptureFile.Open(StandardStreams.OpenInput(), StandardStreams.InputToken)
+                : CaptureFile.Open(path);
             return 0;
         }
         catch (CaptureFormatException e)
@@ -67,6 +80,36 @@ public static class CommandOutput
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             return Fail($"{path}: cannot open the capture: {FileErrorText.Reason(path, e)}", BadInput);
+        }
+    }
+
+    /// <summary>
+    /// Prepares a capture's replay through the counters (<see cref="FreqReadout.Host.Counting.CaptureGateSource"/>), which
+    /// checks the options against the capture and the capture's first rows against its metadata; on failure writes
+    /// the one-line error and gives the exit code (usage for an option that does not suit the capture, data error
+    /// for a capture whose data contradict its metadata).
+    /// </summary>
+    /// <returns>0 with <paramref name="source"/> set, or the exit code with it null.</returns>
+    public static int TryCreateGateSource(
+        ICaptureReader reader,
+        FreqReadout.Counting.CounterSettings options,
+        CounterOptionSettings given,
+        double? searchHz,
+        out FreqReadout.Host.Counting.CaptureGateSource? source)
+    {
+        source = null;
+        try
+        {
+            source = new FreqReadout.Host.Counting.CaptureGateSource(reader, options, searchHz, given.NoSignalSeconds != null);
+            return 0;
+        }
+        catch (ArgumentException e)
+        {
+            return Fail(e.Message, BadOption);
+        }
+        catch (CaptureFormatException e)
+        {
+            return Fail(e.Message, BadInput);
         }
     }
 

@@ -10,18 +10,22 @@ namespace FreqReadout.Host.Commands;
 /// <c>freqreadout convert &lt;in&gt; &lt;out&gt; [--to text|binary] [--from-s X] [--to-s Y]</c>: rewrites a
 /// capture in the other format (or the one given), losslessly: metadata, comments, columns, rows
 /// and trailer as they were. With a time range, keeps only the rows whose time from the first row
-/// lies in [from, to] (raw values unchanged) and notes the range in a header comment.
+/// lies in [from, to] (raw values unchanged) and notes the range in a header comment; <c>started_utc</c> moves
+/// with the start of the range (to the nearest second, the key's resolution), and the last temperature sample
+/// before the range is carried into the first kept row, so the trimmed capture reads as the original did there.
 /// </summary>
 public sealed class ConvertCommand : Command<ConvertCommand.Settings>
 {
     public sealed class Settings : CommandSettings
     {
         [CommandArgument(0, "<in>")]
-        [Description("Capture to read, text or binary (picked by content).")]
+        [Description("Capture to read, text or binary (picked by content); - reads it from standard input.")]
+        [FilePath(StandardInput = true)]
         public string Input { get; set; } = string.Empty;
 
         [CommandArgument(1, "<out>")]
         [Description("Capture to write (overwritten).")]
+        [FilePath]
         public string Output { get; set; } = string.Empty;
 
         [CommandOption("--to <FORMAT>")]
@@ -29,11 +33,11 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
         public string? To { get; set; }
 
         [CommandOption("--from-s <SECONDS>")]
-        [Description("Keep rows from this time on, seconds from the first row (>= 0).")]
+        [Description("Keep rows from this time on, seconds from the first row, [[0, 1e9]].")]
         public string? FromSeconds { get; set; }
 
         [CommandOption("--to-s <SECONDS>")]
-        [Description("Keep rows up to this time, seconds from the first row (> --from-s).")]
+        [Description("Keep rows up to this time, seconds from the first row, (--from-s, 1e9]].")]
         public string? ToSeconds { get; set; }
     }
 
@@ -50,22 +54,22 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
         }
         else if (settings.To != null)
         {
-            return CommandOutput.Fail($"--to must be text or binary, got '{settings.To}'", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--to must be text or binary, got {OptionValues.Quote(settings.To)}", CommandOutput.BadOption);
         }
 
         double from = 0;
         double until = double.PositiveInfinity;
-        if (settings.FromSeconds != null && (!OptionValues.TryNumber(settings.FromSeconds, out from) || !(from >= 0)))
+        if (settings.FromSeconds != null && (!OptionValues.TryNumber(settings.FromSeconds, out from) || !(from >= 0 && from <= MaxSeconds)))
         {
-            return CommandOutput.Fail($"--from-s must be a number >= 0 (seconds from the first row), got '{settings.FromSeconds}'", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--from-s must be a number of seconds from the first row in [0, 1e9], got {OptionValues.Quote(settings.FromSeconds)}", CommandOutput.BadOption);
         }
 
-        if (settings.ToSeconds != null && (!OptionValues.TryNumber(settings.ToSeconds, out until) || !(until > from)))
+        if (settings.ToSeconds != null && (!OptionValues.TryNumber(settings.ToSeconds, out until) || !(until > from && until <= MaxSeconds)))
         {
-            return CommandOutput.Fail($"--to-s must be a number greater than --from-s ({Num(from)} s), got '{settings.ToSeconds}'", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--to-s must be a number of seconds from the first row greater than --from-s ({Num(from)} s) and at most 1e9, got {OptionValues.Quote(settings.ToSeconds)}", CommandOutput.BadOption);
         }
 
-        if (Path.GetFullPath(settings.Input) == Path.GetFullPath(settings.Output))
+        if (!StandardStreams.IsInput(settings.Input) && Path.GetFullPath(settings.Input) == Path.GetFullPath(settings.Output))
         {
             return CommandOutput.Fail("<out> must be another file than <in>", CommandOutput.BadOption);
         }
@@ -84,12 +88,22 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             bool trim = settings.FromSeconds != null || settings.ToSeconds != null;
             if (trim)
             {
+                string shifted = string.Empty;
+                if (from > 0 && reader.Metadata.StartedUtc is DateTimeOffset started)
+                {
+                    // Time 0 of the trimmed capture is its first row, about --from-s into the original.
+                    long seconds = (long)Math.Round(from, MidpointRounding.AwayFromZero);
+                    reader.Metadata.StartedUtc = started.AddSeconds(seconds);
+                    shifted = string.Format(CultureInfo.InvariantCulture, "; started_utc moved {0} s later (was {1})", seconds, started.ToUniversalTime().ToString(CaptureMetadataParser.StartedUtcFormat, CultureInfo.InvariantCulture));
+                }
+
                 reader.Metadata.HeaderLines.Add(CaptureHeaderLine.ForComment(string.Format(
                     CultureInfo.InvariantCulture,
-                    " trimmed by freqreadout convert to rows from {0} s to {1} s after the first row of {2}",
+                    " trimmed by freqreadout convert to rows from {0} s to {1} s after the first row of {2}{3}",
                     Num(from),
                     settings.ToSeconds != null ? Num(until) : "the end",
-                    Path.GetFileName(settings.Input))));
+                    StandardStreams.IsInput(settings.Input) ? "standard input" : Path.GetFileName(settings.Input),
+                    shifted)));
             }
 
             long kept = 0;
@@ -100,22 +114,36 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
                 {
                     var unwrapper = new TimerUnwrapper(reader.Metadata.TimerBits);
                     double clockHz = reader.Metadata.ClockHz;
+                    double? carriedTemperature = null;
                     foreach (var row in reader.ReadRows())
                     {
                         cancellationToken.ThrowIfCancellationRequested();
                         read++;
+                        CaptureRow kept1 = row;
                         if (trim)
                         {
                             // A rejected step keeps the last good time (the row stays with its neighbours).
                             unwrapper.TryUnwrap(row.Tick, out long tick);
                             double seconds = tick / clockHz;
-                            if (seconds < from || seconds > until)
+                            if (seconds < from)
+                            {
+                                carriedTemperature = row.TemperatureC ?? carriedTemperature;
+                                continue;
+                            }
+
+                            if (seconds > until)
                             {
                                 continue;
                             }
+
+                            if (kept == 0 && row.TemperatureC == null && carriedTemperature != null)
+                            {
+                                // The sample in force at the cut, so the first kept row knows the temperature.
+                                kept1 = row with { TemperatureC = carriedTemperature };
+                            }
                         }
 
-                        writer.WriteRow(row);
+                        writer.WriteRow(kept1);
                         kept++;
                     }
 
@@ -161,6 +189,9 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
         {
         }
     }
+
+    /// <summary>Largest --from-s / --to-s, seconds (about 32 years).</summary>
+    private const double MaxSeconds = 1e9;
 
     private static string Num(double value) => value.ToString("R", CultureInfo.InvariantCulture);
 }

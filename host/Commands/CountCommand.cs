@@ -6,6 +6,7 @@ using FreqReadout.Host.Captures;
 using FreqReadout.Host.Counting;
 using Spectre.Console;
 using Spectre.Console.Cli;
+using Spectre.Console.Rendering;
 
 namespace FreqReadout.Host.Commands;
 
@@ -23,11 +24,12 @@ public sealed class CountCommand : Command<CountCommand.Settings>
     public sealed class Settings : CounterOptionSettings
     {
         [CommandArgument(0, "<capture>")]
-        [Description("Capture file, text or binary (picked by content).")]
+        [Description("Capture file, text or binary (picked by content); - reads it from standard input.")]
+        [FilePath(StandardInput = true)]
         public string Capture { get; set; } = string.Empty;
 
         [CommandOption("--json")]
-        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz, edges, error_hz, estimator, state.")]
+        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz (counted signal), search_shift_hz (search oscillator, beat side applied), edges, error_hz, estimator, state.")]
         public bool Json { get; set; }
     }
 
@@ -65,28 +67,24 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         ICaptureReader reader = opened;
         using (reader)
         {
-            CaptureGateSource source;
-            try
+            int sourceExit = CommandOutput.TryCreateGateSource(reader, options, settings, null, out CaptureGateSource? created);
+            if (created == null)
             {
-                source = new CaptureGateSource(reader, options);
+                return sourceExit;
             }
-            catch (ArgumentException e)
+
+            CaptureGateSource source = created;
+            foreach (string ignored in settings.IgnoredOptionWarnings(reader.Metadata))
             {
-                return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
+                CommandOutput.Diagnostic("warning: " + ignored);
             }
 
             var format = CommandOutput.FormatOf(reader);
             int exit = 0;
+            long gates = 0;
             try
             {
-                if (settings.Json)
-                {
-                    WriteJson(source, cancellationToken);
-                }
-                else
-                {
-                    WriteTable(source, format, cancellationToken);
-                }
+                gates = settings.Json ? WriteJson(source, cancellationToken) : WriteTable(source, format, cancellationToken);
             }
             catch (CaptureFormatException e)
             {
@@ -102,16 +100,28 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                 CommandOutput.Diagnostic("warning: " + warning);
             }
 
+            if (exit == 0 && gates == 0)
+            {
+                // Nothing counted is not a success: the reason, as an error (stdout keeps what was printed).
+                exit = CommandOutput.Fail($"{reader.SourceName}: {NoGateText(source)}", CommandOutput.BadInput);
+            }
+
             return exit;
         }
     }
 
     /// <summary>Why no gate closed: no data rows at all, or fewer than one gate's worth.</summary>
-    private static string NoGateText(CaptureGateSource source) => source.RowsRead == 0
+    public static string NoGateText(CaptureGateSource source) => source.RowsRead == 0
         ? "no gate closed: the capture holds no data rows"
-        : "no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)";
+        : source.RowsFed < 2
+            ? $"no gate closed: the capture holds {source.RowsFed} usable row{(source.RowsFed == 1 ? string.Empty : "s")}, a gate needs at least 2"
+            : "no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)";
 
-    private static void WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
+    /// <summary>The search oscillator's shift from a shift of the counted signal: the beat's sign flips when the search oscillator is below the reference.</summary>
+    public static double SearchShiftHz(double countedShiftHz, CaptureMetadata metadata) =>
+        metadata.Signal == SignalKind.Beat && metadata.BeatSide == BeatSide.Below ? -countedShiftHz : countedShiftHz;
+
+    private static long WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
     {
         long gates = 0;
         var stdout = Console.Out;
@@ -134,7 +144,9 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                 json.WriteStartObject();
                 json.WriteNumber("time_s", gate.EndSeconds);
                 WriteNullable(json, "frequency_hz", gate.HasFrequency ? gate.FrequencyHz : null);
-                WriteNullable(json, "shift_hz", gate.HasFrequency ? gate.FrequencyHz - reference!.Value : null);
+                double? shift = gate.HasFrequency ? gate.FrequencyHz - reference!.Value : null;
+                WriteNullable(json, "shift_hz", shift);
+                WriteNullable(json, "search_shift_hz", shift is double sh ? SearchShiftHz(sh, source.Metadata) : null);
                 json.WriteNumber("edges", gate.Edges);
                 WriteNullable(json, "error_hz", gate.HasFrequency ? gate.ErrorHz : null);
                 json.WriteString("estimator", EstimatorName(gate.Estimator));
@@ -165,11 +177,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         }
 
         stdout.Flush();
-        if (gates == 0)
-        {
-            // stdout stays pure JSON lines (none here); the reason goes to stderr.
-            CommandOutput.Diagnostic("warning: " + NoGateText(source));
-        }
+        return gates;
     }
 
     private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
@@ -184,7 +192,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         }
     }
 
-    private static void WriteTable(CaptureGateSource source, CaptureFileFormat format, CancellationToken cancellationToken)
+    private static long WriteTable(CaptureGateSource source, CaptureFileFormat format, CancellationToken cancellationToken)
     {
         var console = CommandOutput.Stdout();
         CaptureMetadataView.Write(console, source.Reader, format);
@@ -193,6 +201,14 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             ? $"{s.GateEdges} recorded intervals"
             : $"{Num(s.GateSeconds)} s";
         console.WriteLine($"gate {gateText}, estimator {EstimatorName(s.Estimator)}, jitter {Num(s.JitterTicks)} ticks rms; frequencies of the {(s.Signal == SignalKind.Beat ? "beat note" : "search oscillator")} before the prescaler");
+        bool beat = s.Signal == SignalKind.Beat;
+        if (beat)
+        {
+            console.WriteLine(source.Metadata.BeatSide == BeatSide.Below
+                ? "beat shift: the beat note's change from the first gate; search shift: the search oscillator's, opposite in sign (beat_side = below: the search oscillator is below the reference)"
+                : "beat shift: the beat note's change from the first gate; search shift: the search oscillator's, the same (beat_side = above)");
+        }
+
         console.WriteLine();
 
         double? reference = null;
@@ -210,14 +226,22 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                     reference = gate.FrequencyHz;
                 }
 
-                table ??= NewTable();
-                table.AddRow(
+                table ??= NewTable(beat);
+                var cells = new List<IRenderable>
+                {
                     new Text(Num(gate.EndSeconds, "0.000000")),
                     new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
                     new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
-                    new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)),
-                    new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"),
-                    new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+                };
+                if (beat)
+                {
+                    cells.Add(new Text(gate.HasFrequency ? Num(SearchShiftHz(gate.FrequencyHz - reference!.Value, source.Metadata), "+0.000;-0.000;0.000") : "-"));
+                }
+
+                cells.Add(new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)));
+                cells.Add(new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"));
+                cells.Add(new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+                table.AddRow(cells);
                 gates++;
                 if (gate.HasFrequency)
                 {
@@ -242,20 +266,21 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
         console.WriteLine();
         console.WriteLine($"{gates} gates ({withFrequency} with a frequency) from {source.RowsRead} rows; {source.FlaggedSteps} rows skipped");
-        if (gates == 0)
-        {
-            console.WriteLine(NoGateText(source));
-        }
-
         CaptureMetadataView.WriteTrailer(console, source.Reader);
+        return gates;
     }
 
-    private static Table NewTable()
+    private static Table NewTable(bool beat)
     {
         var table = new Table().Border(TableBorder.Simple);
         table.AddColumn(new TableColumn("time s").RightAligned());
-        table.AddColumn(new TableColumn("frequency Hz").RightAligned());
-        table.AddColumn(new TableColumn("shift Hz").RightAligned());
+        table.AddColumn(new TableColumn(beat ? "beat Hz" : "frequency Hz").RightAligned());
+        table.AddColumn(new TableColumn(beat ? "beat shift Hz" : "shift Hz").RightAligned());
+        if (beat)
+        {
+            table.AddColumn(new TableColumn("search shift Hz").RightAligned());
+        }
+
         table.AddColumn(new TableColumn("edges").RightAligned());
         table.AddColumn(new TableColumn("error Hz").RightAligned());
         table.AddColumn(new TableColumn("state"));

@@ -14,11 +14,11 @@ namespace FreqReadout.Host.Commands;
 public class CounterOptionSettings : CommandSettings
 {
     [CommandOption("--gate-seconds <SECONDS>")]
-    [Description("Time gate: a gate closes on the first edge at or after this many seconds (> 0). Default 0.1.")]
+    [Description("Time gate: a gate closes on the first edge at or after this many seconds, [[1e-6, 86400]]. Default 0.1.")]
     public string? GateSeconds { get; set; }
 
     [CommandOption("--gate-edges <N>")]
-    [Description("Edge gate: a gate closes after N recorded intervals (integer >= 1). Instead of --gate-seconds.")]
+    [Description("Edge gate: a gate closes after N recorded intervals, an integer in [[1, 1048576]]. Instead of --gate-seconds.")]
     public string? GateEdges { get; set; }
 
     [CommandOption("--estimator <NAME>")]
@@ -26,11 +26,11 @@ public class CounterOptionSettings : CommandSettings
     public string? Estimator { get; set; }
 
     [CommandOption("--jitter-ticks <TICKS>")]
-    [Description("Timestamp jitter, rms ticks (>= 0), added to the quantisation in the error model. Default 0.")]
+    [Description("Timestamp jitter, rms ticks, [[0, 1e9]], added to the quantisation in the error model. Default 0.")]
     public string? JitterTicks { get; set; }
 
     [CommandOption("--no-signal-seconds <SECONDS>")]
-    [Description("No edge within this many seconds reports no_signal (> 0). Default 0.5.")]
+    [Description("No edge within this many seconds reports no_signal, [[0.001, 3600]] and at least 3 periods of the capture's recorded edges. Default 0.5 (lengthened, with a warning, for a slower signal).")]
     public string? NoSignalSeconds { get; set; }
 
     /// <summary>Builds the counter options from the command-line settings; null with an error naming the option and its range.</summary>
@@ -46,9 +46,9 @@ public class CounterOptionSettings : CommandSettings
 
         if (GateSeconds != null)
         {
-            if (!OptionValues.TryNumber(GateSeconds, out double seconds) || !(seconds > 0))
+            if (!OptionValues.TryNumber(GateSeconds, out double seconds) || !(seconds >= CounterSettings.MinGateSeconds && seconds <= CounterSettings.MaxGateSeconds))
             {
-                error = $"--gate-seconds must be a number > 0 (seconds), got '{GateSeconds}'";
+                error = $"--gate-seconds must be a number of seconds in [1e-6, 86400], got {OptionValues.Quote(GateSeconds)}";
                 return null;
             }
 
@@ -60,7 +60,7 @@ public class CounterOptionSettings : CommandSettings
         {
             if (!int.TryParse(GateEdges, NumberStyles.None, CultureInfo.InvariantCulture, out int edges) || edges < 1 || edges > EdgeCounter.MaxGateIntervals)
             {
-                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got '{GateEdges}'";
+                error = $"--gate-edges must be an integer from 1 to {EdgeCounter.MaxGateIntervals}, got {OptionValues.Quote(GateEdges)}";
                 return null;
             }
 
@@ -78,15 +78,15 @@ public class CounterOptionSettings : CommandSettings
                 options.Estimator = EstimatorKind.Reciprocal;
                 break;
             default:
-                error = $"--estimator must be reciprocal or regression, got '{Estimator}'";
+                error = $"--estimator must be reciprocal or regression, got {OptionValues.Quote(Estimator)}";
                 return null;
         }
 
         if (JitterTicks != null)
         {
-            if (!OptionValues.TryNumber(JitterTicks, out double jitter) || !(jitter >= 0))
+            if (!OptionValues.TryNumber(JitterTicks, out double jitter) || !(jitter >= 0 && jitter <= CounterSettings.MaxJitterTicks))
             {
-                error = $"--jitter-ticks must be a number >= 0 (rms ticks), got '{JitterTicks}'";
+                error = $"--jitter-ticks must be a number of rms ticks in [0, 1e9], got {OptionValues.Quote(JitterTicks)}";
                 return null;
             }
 
@@ -95,9 +95,9 @@ public class CounterOptionSettings : CommandSettings
 
         if (NoSignalSeconds != null)
         {
-            if (!OptionValues.TryNumber(NoSignalSeconds, out double noSignal) || !(noSignal > 0))
+            if (!OptionValues.TryNumber(NoSignalSeconds, out double noSignal) || !(noSignal >= CounterSettings.MinNoSignalSeconds && noSignal <= CounterSettings.MaxNoSignalSeconds))
             {
-                error = $"--no-signal-seconds must be a number > 0 (seconds), got '{NoSignalSeconds}'";
+                error = $"--no-signal-seconds must be a number of seconds in [0.001, 3600], got {OptionValues.Quote(NoSignalSeconds)}";
                 return null;
             }
 
@@ -105,5 +105,20 @@ public class CounterOptionSettings : CommandSettings
         }
 
         return options;
+    }
+
+    /// <summary>
+    /// Warnings for options the capture makes moot (so a user who asked for them learns, once, that they had no effect):
+    /// --estimator on a snapshot capture, whose gates always use snapshot-regression.
+    /// </summary>
+    public virtual IReadOnlyList<string> IgnoredOptionWarnings(FreqReadout.Host.Captures.CaptureMetadata metadata)
+    {
+        var warnings = new List<string>();
+        if (Estimator != null && metadata.Kind == FreqReadout.Host.Captures.CaptureKind.Snapshots)
+        {
+            warnings.Add($"--estimator {Estimator} does not apply to a snapshot capture: its gates always use snapshot-regression");
+        }
+
+        return warnings;
     }
 }

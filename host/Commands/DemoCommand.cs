@@ -20,6 +20,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
     {
         [CommandOption("--keep <DIR>")]
         [Description("Keep the simulated capture (floor-demo.csv) in DIR to replay or count it yourself. Default: a temporary file, deleted afterwards.")]
+        [FilePath]
         public string? Keep { get; set; }
 
         [CommandOption("--json")]
@@ -27,7 +28,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         public bool Json { get; set; }
 
         [CommandOption("--quiet")]
-        [Description("No progress display.")]
+        [Description("No progress display (there is none either when stderr is not a terminal).")]
         public bool Quiet { get; set; }
     }
 
@@ -43,7 +44,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException)
             {
-                return CommandOutput.Fail($"--keep {settings.Keep}: cannot create the folder ({e.Message})", CommandOutput.BadOption);
+                return CommandOutput.Fail($"--keep {settings.Keep}: cannot create the folder ({e.Message})", CommandOutput.BadInput);
             }
 
             path = Path.Combine(settings.Keep, "floor-demo.csv");
@@ -56,7 +57,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         DemoResult result;
         try
         {
-            result = settings.Quiet || settings.Json ? DemoRun.Run(path, null, cancellationToken) : RunWithProgress(path, cancellationToken);
+            result = settings.Quiet || settings.Json || !CommandOutput.ErrorIsTerminal() ? DemoRun.Run(path, null, cancellationToken) : RunWithProgress(path, cancellationToken);
             if (settings.Keep != null)
             {
                 File.WriteAllText(Path.Combine(settings.Keep, "floor-demo.truth.json"), result.Truth.ToJson() + "\n");

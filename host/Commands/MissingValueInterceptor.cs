@@ -66,6 +66,7 @@ public sealed class MissingValueInterceptor : ICommandInterceptor
     /// <inheritdoc />
     public void Intercept(CommandContext context, CommandSettings settings)
     {
+        CheckPaths(settings);
         if (Array.IndexOf(_args, SpectrePlaceholder) >= 0)
         {
             return;
@@ -85,5 +86,48 @@ public sealed class MissingValueInterceptor : ICommandInterceptor
                 throw new MissingOptionValueException(name);
             }
         }
+    }
+
+    /// <summary>
+    /// Checks every <see cref="FilePathAttribute"/> setting: an empty path, or standard input (<c>-</c>) where it
+    /// cannot be read, is a usage error naming the option or argument (instead of a runtime exception deep in the command).
+    /// </summary>
+    /// <exception cref="CommandLineException">A path is empty or blank, or is <c>-</c> where standard input is not accepted.</exception>
+    public static void CheckPaths(CommandSettings settings)
+    {
+        foreach (PropertyInfo property in settings.GetType().GetProperties(BindingFlags.Public | BindingFlags.Instance))
+        {
+            FilePathAttribute? path = property.GetCustomAttribute<FilePathAttribute>();
+            if (path == null || property.GetValue(settings) is not string value)
+            {
+                continue;
+            }
+
+            string name = NameOf(property);
+            if (string.IsNullOrWhiteSpace(value))
+            {
+                throw new CommandLineException($"{name} is an empty path: expected a file name{(path.StandardInput ? " (or - for standard input)" : string.Empty)}");
+            }
+
+            if (StandardStreams.IsInput(value) && !path.StandardInput)
+            {
+                throw new CommandLineException($"{name} cannot be - (standard input): expected a file name");
+            }
+        }
+    }
+
+    private static string NameOf(PropertyInfo property)
+    {
+        if (property.GetCustomAttribute<CommandOptionAttribute>() is { } option)
+        {
+            return option.LongNames.Count > 0 ? "--" + option.LongNames[0] : "-" + option.ShortNames[0];
+        }
+
+        if (property.GetCustomAttribute<CommandArgumentAttribute>() is { } argument)
+        {
+            return "<" + argument.ValueName + ">";
+        }
+
+        return property.Name;
     }
 }

@@ -16,4 +16,7 @@ public static class OptionValues
         value = 0;
         return false;
     }
+
+    /// <summary>A value the user typed, quoted for an error message: a short, escaped excerpt (see <see cref="FreqReadout.Host.Captures.TextExcerpt"/>).</summary>
+    public static string Quote(string? text) => FreqReadout.Host.Captures.TextExcerpt.Quote(text ?? string.Empty);
 }

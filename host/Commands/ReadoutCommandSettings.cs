@@ -10,13 +10,16 @@ namespace FreqReadout.Host.Commands;
 
 /// <summary>
 /// Options shared by <c>replay</c> and <c>calibrate</c>: the capture, the counter's gate and estimator
-/// (<see cref="CounterOptionSettings"/>, as <c>count</c>) and every readout setting (<see cref="ReadoutSettings"/>,
-/// defaults shown by --help). Signal, beat side and search_hz come from the capture's metadata.
+/// (<see cref="CounterOptionSettings"/>, as <c>count</c>) and the readout settings both use (<see cref="ReadoutSettings"/>,
+/// defaults shown by --help). Settings only <c>replay</c> uses (polarity, unclear band, tempco) are declared by
+/// replay's own settings and applied through <see cref="ApplyCommandOptions"/>, so calibrate does not offer them.
+/// Signal, beat side and search_hz come from the capture's metadata.
 /// </summary>
 public class ReadoutCommandSettings : CounterOptionSettings
 {
     [CommandArgument(0, "<capture>")]
-    [Description("Capture file, text or binary (picked by content).")]
+    [Description("Capture file, text or binary (picked by content); - reads it from standard input.")]
+    [FilePath(StandardInput = true)]
     public string Capture { get; set; } = string.Empty;
 
     [CommandOption("--json")]
@@ -24,7 +27,7 @@ public class ReadoutCommandSettings : CounterOptionSettings
     public bool Json { get; set; }
 
     [CommandOption("--search-hz <HZ>")]
-    [Description("Nominal search-oscillator frequency for ppm in beat mode, [[0, 1e12]]. Default: the capture's search_hz.")]
+    [Description("Nominal search-oscillator frequency, Hz, [[0, 1e12]] (0 = unknown): ppm in beat mode, and the check that the measured frequency is not an alias of a timer too narrow for the signal. Default: the capture's search_hz.")]
     public string? SearchHz { get; set; }
 
     [CommandOption("--threshold-sigma <SIGMA>")]
@@ -42,14 +45,6 @@ public class ReadoutCommandSettings : CounterOptionSettings
     [CommandOption("--release-s <SECONDS>")]
     [Description("Gate time below the release level that ends an event, [[0, 60]]. Default 0.2.")]
     public string? ReleaseSeconds { get; set; }
-
-    [CommandOption("--unclear-band-sigma <SIGMA>")]
-    [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 1.")]
-    public string? UnclearBandSigma { get; set; }
-
-    [CommandOption("--polarity <NAME>")]
-    [Description("normal (search frequency up = non-ferrous) or inverted. Default normal.")]
-    public string? Polarity { get; set; }
 
     [CommandOption("--persistent-shift-s <SECONDS>")]
     [Description("An event lasting this long outside hold mode becomes the new baseline (auto re-baseline), [[1, 86400]]. Default 30.")]
@@ -99,10 +94,6 @@ public class ReadoutCommandSettings : CounterOptionSettings
     [Description("Beat mode: a beat note below this is flagged and its sign unclear, [[0, 1e9]]. Default 50.")]
     public string? BeatFloorHz { get; set; }
 
-    [CommandOption("--tempco-ppm-per-k <PPM>")]
-    [Description("Search-oscillator tempco removed before tracking (from calibrate), [[-1000, 1000]]; 0 = off. Default 0.")]
-    public string? TempcoPpmPerK { get; set; }
-
     /// <summary>
     /// The readout settings for a capture: the options over the defaults, with signal, beat side and
     /// search_hz from the metadata. Null with an error naming the option, the setting and its range.
@@ -120,27 +111,11 @@ public class ReadoutCommandSettings : CounterOptionSettings
         {
             if (!OptionValues.TryNumber(SearchHz, out double searchHz))
             {
-                error = $"--search-hz must be a number (Hz){RangeOf(r => r.SearchHz = double.NaN)}, got '{SearchHz}'";
+                error = $"--search-hz must be a number (Hz){RangeOf(r => r.SearchHz = double.NaN)}, got {OptionValues.Quote(SearchHz)}";
                 return null;
             }
 
             s.SearchHz = searchHz;
-        }
-
-        if (Polarity != null)
-        {
-            switch (Polarity.Trim().ToLowerInvariant())
-            {
-                case "normal":
-                    s.Polarity = FreqReadout.Detection.Polarity.Normal;
-                    break;
-                case "inverted":
-                    s.Polarity = FreqReadout.Detection.Polarity.Inverted;
-                    break;
-                default:
-                    error = $"--polarity must be normal or inverted, got '{Polarity}'";
-                    return null;
-            }
         }
 
         var numbers = new (string? Text, string Option, Action<ReadoutSettings, double> Set)[]
@@ -149,7 +124,6 @@ public class ReadoutCommandSettings : CounterOptionSettings
             (HysteresisSigma, "--hysteresis-sigma", (r, v) => r.HysteresisSigma = v),
             (MinDurationSeconds, "--min-duration-s", (r, v) => r.MinDurationSeconds = v),
             (ReleaseSeconds, "--release-s", (r, v) => r.ReleaseSeconds = v),
-            (UnclearBandSigma, "--unclear-band-sigma", (r, v) => r.UnclearBandSigma = v),
             (PersistentShiftSeconds, "--persistent-shift-s", (r, v) => r.PersistentShiftSeconds = v),
             (SettlingSeconds, "--settling-s", (r, v) => r.SettlingSeconds = v),
             (BaselineSeconds, "--baseline-s", (r, v) => r.BaselineSeconds = v),
@@ -159,22 +133,13 @@ public class ReadoutCommandSettings : CounterOptionSettings
             (TrackerSlopeSeconds, "--tracker-slope-s", (r, v) => r.TrackerSlopeSeconds = v),
             (GuardSigma, "--guard-sigma", (r, v) => r.GuardSigma = v),
             (BeatFloorHz, "--beat-floor-hz", (r, v) => r.BeatFloorHz = v),
-            (TempcoPpmPerK, "--tempco-ppm-per-k", (r, v) => r.TempcoPpmPerK = v),
         };
         foreach (var (text, option, set) in numbers)
         {
-            if (text == null)
+            if (!TrySetNumber(s, text, option, set, out error))
             {
-                continue;
-            }
-
-            if (!OptionValues.TryNumber(text, out double value))
-            {
-                error = $"{option} must be a number{RangeOf(v => set(v, double.NaN))}, got '{text}'";
                 return null;
             }
-
-            set(s, value);
         }
 
         var integers = new (string? Text, string Option, Action<ReadoutSettings, int> Set)[]
@@ -192,11 +157,16 @@ public class ReadoutCommandSettings : CounterOptionSettings
 
             if (!int.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int value))
             {
-                error = $"{option} must be an integer{RangeOf(v => set(v, int.MinValue))}, got '{text}'";
+                error = $"{option} must be an integer{RangeOf(v => set(v, int.MinValue))}, got {OptionValues.Quote(text)}";
                 return null;
             }
 
             set(s, value);
+        }
+
+        if (!ApplyCommandOptions(s, out error))
+        {
+            return null;
         }
 
         if (!s.TryValidate(out string settingError))
@@ -209,6 +179,32 @@ public class ReadoutCommandSettings : CounterOptionSettings
         }
 
         return s;
+    }
+
+    /// <summary>Applies the options only one command declares (replay: polarity, unclear band, tempco); false with an error naming the option.</summary>
+    protected virtual bool ApplyCommandOptions(ReadoutSettings settings, out string? error)
+    {
+        error = null;
+        return true;
+    }
+
+    /// <summary>Parses one number option into a readout setting; false with an error naming the option and its allowed range.</summary>
+    protected static bool TrySetNumber(ReadoutSettings settings, string? text, string option, Action<ReadoutSettings, double> set, out string? error)
+    {
+        error = null;
+        if (text == null)
+        {
+            return true;
+        }
+
+        if (!OptionValues.TryNumber(text, out double value))
+        {
+            error = $"{option} must be a number{RangeOf(v => set(v, double.NaN))}, got {OptionValues.Quote(text)}";
+            return false;
+        }
+
+        set(settings, value);
+        return true;
     }
 
     /// <summary>
@@ -228,21 +224,6 @@ public class ReadoutCommandSettings : CounterOptionSettings
         int at = must < 0 ? -1 : message.IndexOf(" in ", must, StringComparison.Ordinal);
         int got = message.LastIndexOf(", got ", StringComparison.Ordinal);
         return at > 0 && got > at ? message[at..got] : string.Empty;
-    }
-
-    /// <summary>
-    /// Warnings for options the capture makes moot (so a user who asked for them learns they had no effect):
-    /// --estimator on a snapshot capture, whose gates always use snapshot-regression.
-    /// </summary>
-    public IReadOnlyList<string> IgnoredOptionWarnings(CaptureMetadata metadata)
-    {
-        var warnings = new List<string>();
-        if (Estimator != null && metadata.Kind == CaptureKind.Snapshots)
-        {
-            warnings.Add($"--estimator {Estimator} does not apply to a snapshot capture: its gates always use snapshot-regression");
-        }
-
-        return warnings;
     }
 
     /// <summary>The report with <see cref="IgnoredOptionWarnings"/> added to its warnings.</summary>

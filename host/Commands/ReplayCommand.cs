@@ -31,11 +31,49 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     {
         [CommandOption("--readings <FILE>")]
         [Description("Also write the gate-by-gate readings as CSV.")]
+        [FilePath]
         public string? ReadingsFile { get; set; }
 
         [CommandOption("--events <FILE>")]
         [Description("Also write the events as CSV.")]
+        [FilePath]
         public string? EventsFile { get; set; }
+
+        [CommandOption("--unclear-band-sigma <SIGMA>")]
+        [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 1.")]
+        public string? UnclearBandSigma { get; set; }
+
+        [CommandOption("--polarity <NAME>")]
+        [Description("normal (search frequency up = non-ferrous) or inverted. Default normal.")]
+        public string? Polarity { get; set; }
+
+        [CommandOption("--tempco-ppm-per-k <PPM>")]
+        [Description("Search-oscillator tempco removed before tracking (from calibrate), [[-1000, 1000]]; 0 = off. Default 0.")]
+        public string? TempcoPpmPerK { get; set; }
+
+        /// <inheritdoc/>
+        protected override bool ApplyCommandOptions(ReadoutSettings settings, out string? error)
+        {
+            error = null;
+            if (Polarity != null)
+            {
+                switch (Polarity.Trim().ToLowerInvariant())
+                {
+                    case "normal":
+                        settings.Polarity = FreqReadout.Detection.Polarity.Normal;
+                        break;
+                    case "inverted":
+                        settings.Polarity = FreqReadout.Detection.Polarity.Inverted;
+                        break;
+                    default:
+                        error = $"--polarity must be normal or inverted, got {OptionValues.Quote(Polarity)}";
+                        return false;
+                }
+            }
+
+            return TrySetNumber(settings, UnclearBandSigma, "--unclear-band-sigma", (r, v) => r.UnclearBandSigma = v, out error)
+                && TrySetNumber(settings, TempcoPpmPerK, "--tempco-ppm-per-k", (r, v) => r.TempcoPpmPerK = v, out error);
+        }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -61,15 +99,13 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 return CommandOutput.Fail(readoutError!, CommandOutput.BadOption);
             }
 
-            CaptureGateSource source;
-            try
+            int sourceExit = CommandOutput.TryCreateGateSource(reader, options, settings, readout.SearchHz > 0 ? readout.SearchHz : null, out CaptureGateSource? created);
+            if (created == null)
             {
-                source = new CaptureGateSource(reader, options);
+                return sourceExit;
             }
-            catch (ArgumentException e)
-            {
-                return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
-            }
+
+            CaptureGateSource source = created;
 
             ReplayReport report;
             StreamWriter? readingsCsv = null;
@@ -107,6 +143,17 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             finally
             {
                 readingsCsv?.Dispose();
+            }
+
+            if (report.Gates == 0 && damaged == null)
+            {
+                // Nothing replayed is not a success: the warnings say why, then the error.
+                foreach (string w in report.Warnings.Where(w => !w.StartsWith("no gate closed", StringComparison.Ordinal)))
+                {
+                    CommandOutput.Diagnostic("warning: " + w);
+                }
+
+                return CommandOutput.Fail($"{reader.SourceName}: {CountCommand.NoGateText(source)}", CommandOutput.BadInput);
             }
 
             if (settings.EventsFile != null)
@@ -151,7 +198,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     /// </summary>
     private static ReplayReport RunWithStatus(ReplaySession session, CaptureGateSource source, bool json, CancellationToken ct)
     {
-        if (json || Console.IsErrorRedirected)
+        if (json || !CommandOutput.ErrorIsTerminal())
         {
             return session.Run(source, ct);
         }

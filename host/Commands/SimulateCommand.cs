@@ -16,6 +16,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
     {
         [CommandOption("--scene <FILE>")]
         [Description("Scene file (JSON, see host/Scenes/).")]
+        [FilePath]
         public string? Scene { get; set; }
 
         [CommandOption("--demo")]
@@ -24,14 +25,16 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
 
         [CommandOption("--out <FILE>")]
         [Description("Capture file to write.")]
+        [FilePath]
         public string? Out { get; set; }
 
         [CommandOption("--truth <FILE>")]
         [Description("Truth file to write (JSON). Default: the capture path + .truth.json.")]
+        [FilePath]
         public string? Truth { get; set; }
 
         [CommandOption("--seed <N>")]
-        [Description("Random seed (overrides the scene's). Same seed, same capture.")]
+        [Description("Random seed, any whole number from -9223372036854775808 to 9223372036854775807 (overrides the scene's). Same seed, same capture.")]
         public long? Seed { get; set; }
 
         [CommandOption("--format <FORMAT>")]
@@ -43,15 +46,16 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public string? Kind { get; set; }
 
         [CommandOption("--duration-s <S>")]
-        [Description("Capture length, s (overrides the scene's; default the sweep plan's length).")]
+        [Description("Capture length, s, (0, 604800]] (overrides the scene's; default the sweep plan's length).")]
         public double? DurationS { get; set; }
 
         [CommandOption("--save-scene <FILE>")]
         [Description("Also write the effective scene (after overrides) as JSON; with no --out, only that.")]
+        [FilePath]
         public string? SaveScene { get; set; }
 
         [CommandOption("--quiet")]
-        [Description("No progress display.")]
+        [Description("No progress display (there is none either when stderr is not a terminal).")]
         public bool Quiet { get; set; }
     }
 
@@ -64,7 +68,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
+            return CommandOutput.Fail(ex.Message, ex.CommandLine ? CommandOutput.BadOption : CommandOutput.BadInput);
         }
 
         if (settings.SaveScene is not null)
@@ -75,7 +79,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {
-                return CommandOutput.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}", CommandOutput.BadOption);
+                return CommandOutput.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}", CommandOutput.BadInput);
             }
         }
 
@@ -87,7 +91,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         string format = settings.Format.Trim().ToLowerInvariant();
         if (format is not ("text" or "binary"))
         {
-            return CommandOutput.Fail($"--format must be text or binary (got {settings.Format})", CommandOutput.BadOption);
+            return CommandOutput.Fail($"--format must be text or binary (got {OptionValues.Quote(settings.Format)})", CommandOutput.BadOption);
         }
 
         SceneModel model;
@@ -97,7 +101,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex)
         {
-            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
+            return CommandOutput.Fail(ex.Message, ex.CommandLine ? CommandOutput.BadOption : CommandOutput.BadInput);
         }
 
         string truthPath = settings.Truth ?? settings.Out + ".truth.json";
@@ -106,15 +110,15 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         try
         {
             using var writer = CaptureOutput.Create(settings.Out, simulator.Metadata, format);
-            truth = settings.Quiet ? simulator.Run(writer, null, cancellationToken) : RunWithProgress(simulator, writer, cancellationToken);
+            truth = settings.Quiet || !CommandOutput.ErrorIsTerminal() ? simulator.Run(writer, null, cancellationToken) : RunWithProgress(simulator, writer, cancellationToken);
         }
         catch (ArgumentException ex)
         {
-            return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
+            return CommandOutput.Fail(ex.Message, CommandOutput.BadInput);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandOutput.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}", CommandOutput.BadOption);
+            return CommandOutput.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}", CommandOutput.BadInput);
         }
 
         try
@@ -123,7 +127,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return CommandOutput.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}", CommandOutput.BadOption);
+            return CommandOutput.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}", CommandOutput.BadInput);
         }
 
         PrintSummary(settings.Out, truthPath, truth);
@@ -135,7 +139,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
     {
         if (settings.Demo == (settings.Scene is not null))
         {
-            throw new SceneException("give exactly one of --scene <FILE> and --demo");
+            throw SceneException.Usage("give exactly one of --scene <FILE> and --demo");
         }
 
         var scene = settings.Demo ? DemoScenes.FloorScan() : FreqReadout.Host.Simulation.Scene.Load(settings.Scene!);
@@ -161,7 +165,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
                     scene.Hardware.Prescale = 1;
                     break;
                 default:
-                    throw new SceneException($"--kind must be edges or snapshots (got {settings.Kind})");
+                    throw SceneException.Usage($"--kind must be edges or snapshots (got {OptionValues.Quote(settings.Kind)})");
             }
         }
 
@@ -172,7 +176,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex) when (settings.DurationS.HasValue && ex.Message.Contains("duration_s", StringComparison.Ordinal))
         {
-            throw new SceneException(ex.Message.Replace("duration_s", "--duration-s"));
+            throw SceneException.Usage(ex.Message.Replace("duration_s", "--duration-s"));
         }
 
         return scene;

@@ -27,9 +27,28 @@ public sealed class CaptureGateSource
     /// <summary>Most no-signal polls replayed for one gap (a gap of hours on a corrupt capture must not stall the replay).</summary>
     public const long MaxPollsPerGap = 100_000;
 
+    /// <summary>Rows read ahead when the source is built, to learn the capture's period before any gate is made.</summary>
+    public const int LookaheadRows = 64;
+
+    /// <summary>The no-signal timeout must span at least this many periods of the recorded signal (edges, or counts and reads for snapshots).</summary>
+    public const double MinNoSignalPeriods = 3;
+
+    /// <summary>
+    /// A measurement that differs from the expected frequency by more than this factor disagrees with it. An
+    /// alias reads at least twice the true frequency (true period P = n W + r with n &gt;= 1 and the residue r &lt; W,
+    /// so P / r &gt; n + 1 &gt;= 2), far beyond any drift, target shift or component tolerance of the oscillator.
+    /// </summary>
+    public const double DisagreementFactor = 1.5;
+
     private readonly ICaptureReader _reader;
     private readonly List<string> _warnings = new();
     private readonly List<string> _unassignedMarks = new();
+    private readonly List<CaptureRow> _head = new();
+    private readonly IEnumerator<CaptureRow> _rows;
+    private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _headError;
+    private bool _rowsEnded;
+    private double _headIntervalTicks;
+    private double _headCountsPerRead;
     private bool _started;
 
     /// <summary>Prepares a replay.</summary>
@@ -38,8 +57,18 @@ public sealed class CaptureGateSource
     /// Gate, estimator, jitter and guard settings. Clock, prescale and signal are taken from the
     /// capture's metadata (the values in <paramref name="options"/> are ignored); <paramref name="options"/> itself is not changed.
     /// </param>
-    /// <exception cref="ArgumentException">A setting is out of range (the message names it and its allowed range).</exception>
-    public CaptureGateSource(ICaptureReader reader, CounterSettings options)
+    /// <param name="searchHz">
+    /// The search oscillator's nominal frequency, Hz, to check the measurement against (aliasing); null takes the
+    /// capture's <c>search_hz</c>, and without either the check is skipped.
+    /// </param>
+    /// <param name="noSignalSecondsGiven">
+    /// True when the user chose <see cref="CounterSettings.NoSignalSeconds"/>: one shorter than
+    /// <see cref="MinNoSignalPeriods"/> periods of the capture is refused. False for the default, which is then
+    /// lengthened to fit (with a warning).
+    /// </param>
+    /// <exception cref="ArgumentException">A setting is out of range, for the options or for this capture (the message names it and its allowed range).</exception>
+    /// <exception cref="CaptureFormatException">The capture's first rows contradict its metadata: the measured frequency is an alias (line 0: the whole file).</exception>
+    public CaptureGateSource(ICaptureReader reader, CounterSettings options, double? searchHz = null, bool noSignalSecondsGiven = true)
     {
         _reader = reader;
         Settings = SettingsFor(reader.Metadata, options);
@@ -61,6 +90,282 @@ public sealed class CaptureGateSource
         {
             throw new ArgumentException(FormattableString.Invariant(
                 $"--no-signal-seconds must be below {4e18 / clock:G6} s for this capture (4e18 ticks of clock_hz = {clock:R}), got {Settings.NoSignalSeconds:G6}"));
+        }
+
+        _rows = reader.ReadRows().GetEnumerator();
+        ReadAhead();
+        CheckNoSignalTimeout(noSignalSecondsGiven);
+        CheckAliasing(searchHz ?? reader.Metadata.SearchHz);
+    }
+
+    /// <summary>
+    /// Median ticks between the first rows (edges: the recorded-edge period; snapshots: the read interval), from
+    /// the rows read ahead; 0 when they hold fewer than two good rows.
+    /// </summary>
+    public double LookaheadIntervalTicks => _headIntervalTicks;
+
+    /// <summary>The counted signal's frequency before the prescaler, Hz, measured over the rows read ahead; 0 when unknown.</summary>
+    public double LookaheadFrequencyHz { get; private set; }
+
+    /// <summary>
+    /// Reads up to <see cref="LookaheadRows"/> rows and measures the signal over them (medians of the steps, so a
+    /// swapped row or a glitch does not move them). A malformed row ends the read-ahead; its error is raised when
+    /// the replay reaches it, after the gates before it, as without the read-ahead.
+    /// </summary>
+    private void ReadAhead()
+    {
+        var md = Metadata;
+        var ticks = new TimerUnwrapper(md.TimerBits);
+        var counts = new TimerUnwrapper(md.Kind == CaptureKind.Snapshots ? md.CountBits : 64, true);
+        var intervals = new List<double>();
+        var steps = new List<double>();
+        bool have = false;
+        long lastTick = 0;
+        long lastCount = 0;
+        try
+        {
+            while (_head.Count < LookaheadRows && _rows.MoveNext())
+            {
+                CaptureRow row = _rows.Current;
+                _head.Add(row);
+                if (!ticks.TryUnwrap(row.Tick, out long tick))
+                {
+                    continue;
+                }
+
+                long count = 0;
+                if (md.Kind == CaptureKind.Snapshots && !counts.TryUnwrap(row.Count, out count))
+                {
+                    continue;
+                }
+
+                if (have)
+                {
+                    intervals.Add(tick - lastTick);
+                    steps.Add(count - lastCount);
+                }
+
+                have = true;
+                lastTick = tick;
+                lastCount = count;
+            }
+
+            _rowsEnded = _head.Count < LookaheadRows;
+        }
+        catch (Exception e) when (e is CaptureFormatException or IOException)
+        {
+            _headError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
+            _rowsEnded = true;
+        }
+
+        if (intervals.Count == 0)
+        {
+            return;
+        }
+
+        _headIntervalTicks = Median(intervals);
+        double clock = Settings.ClockHz;
+        if (md.Kind == CaptureKind.Snapshots)
+        {
+            _headCountsPerRead = Median(steps);
+            if (_headIntervalTicks > 0 && _headCountsPerRead > 0)
+            {
+                LookaheadFrequencyHz = Settings.Prescale * clock * _headCountsPerRead / _headIntervalTicks;
+            }
+        }
+        else if (_headIntervalTicks > 0)
+        {
+            LookaheadFrequencyHz = Settings.Prescale * clock / _headIntervalTicks;
+        }
+    }
+
+    private static double Median(List<double> values)
+    {
+        values.Sort();
+        int n = values.Count;
+        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[(n / 2) - 1] + values[n / 2]);
+    }
+
+    /// <summary>
+    /// The no-signal timeout against the capture: shorter than <see cref="MinNoSignalPeriods"/> periods of the recorded
+    /// edges (snapshots: of a count step and of a read interval), every ordinary gap would read as no signal.
+    /// A timeout the user gave is refused; the default is lengthened with a warning.
+    /// </summary>
+    private void CheckNoSignalTimeout(bool given)
+    {
+        double clock = Settings.ClockHz;
+        double periodS = _headIntervalTicks / clock;
+        string what = "recorded edges";
+        if (Metadata.Kind == CaptureKind.Snapshots)
+        {
+            what = "snapshot reads";
+            if (_headCountsPerRead > 0 && _headCountsPerRead < 1)
+            {
+                // Fewer than one count per read: the count stands still for 1 / countsPerRead reads.
+                periodS /= _headCountsPerRead;
+                what = "pulse-counter counts";
+            }
+        }
+
+        if (!(periodS > 0))
+        {
+            return;
+        }
+
+        double least = MinNoSignalPeriods * periodS;
+        if (Settings.NoSignalSeconds >= least)
+        {
+            return;
+        }
+
+        string period = FormattableString.Invariant($"{_reader.SourceName}: the {what} are about {SecondsText(periodS)} apart");
+        if (given)
+        {
+            throw new ArgumentException(FormattableString.Invariant(
+                $"--no-signal-seconds {Settings.NoSignalSeconds:G6} is shorter than {MinNoSignalPeriods:0} periods of this capture ({period}): every ordinary gap would read as no signal; give at least {RoundUp(least):G3} s"));
+        }
+
+        if (least > CounterSettings.MaxNoSignalSeconds)
+        {
+            throw new ArgumentException(FormattableString.Invariant(
+                $"the signal of this capture is too slow for the no-signal timeout ({period}; {MinNoSignalPeriods:0} periods exceed the longest timeout, {CounterSettings.MaxNoSignalSeconds:G6} s)"));
+        }
+
+        double raised = RoundUp(least);
+        _warnings.Add(FormattableString.Invariant(
+            $"{period}, so the no-signal timeout is raised from its default {Settings.NoSignalSeconds:G6} s to {raised:G3} s ({MinNoSignalPeriods:0} periods); give --no-signal-seconds to choose it"));
+        Settings.NoSignalSeconds = raised;
+    }
+
+    /// <summary>A number rounded to 6 significant digits, written without an exponent (80000000, 5530.97, 0.00125).</summary>
+    private static string Significant(double value)
+    {
+        if (value == 0 || !double.IsFinite(value))
+        {
+            return value.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
+        }
+
+        int decimals = 5 - (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        double rounded = decimals >= 0 ? Math.Round(value, Math.Min(decimals, 15)) : Math.Round(value / Math.Pow(10, -decimals)) * Math.Pow(10, -decimals);
+        return rounded.ToString("0.###############", System.Globalization.CultureInfo.InvariantCulture);
+    }
+
+    /// <summary>Rounds up to 2 significant digits (a readable timeout that still covers the value).</summary>
+    private static double RoundUp(double value)
+    {
+        double scale = Math.Pow(10, Math.Floor(Math.Log10(value)) - 1);
+        return Math.Ceiling(value / scale * (1 - 1e-12)) * scale;
+    }
+
+    private static string SecondsText(double seconds) => seconds switch
+    {
+        >= 1 => FormattableString.Invariant($"{seconds:G3} s"),
+        >= 1e-3 => FormattableString.Invariant($"{seconds * 1e3:G3} ms"),
+        _ => FormattableString.Invariant($"{seconds * 1e6:G3} us"),
+    };
+
+    /// <summary>
+    /// The measurement against the expected frequency. A timer (or pulse counter) that wraps within one period (or
+    /// one read) gives a steady, wrong frequency that the data alone cannot reveal; only an expectation can.
+    /// Refuses (<see cref="CaptureFormatException"/>, line 0) when the measurement disagrees with the expectation by
+    /// more than <see cref="DisagreementFactor"/> and the timer or counter is narrow enough to have aliased a signal
+    /// at the expected frequency; warns when they disagree otherwise.
+    /// </summary>
+    private void CheckAliasing(double? searchHz)
+    {
+        double measured = LookaheadFrequencyHz;
+        if (searchHz is not double expected || !(expected > 0) || !(measured > 0))
+        {
+            return;
+        }
+
+        var md = Metadata;
+        double clock = Settings.ClockHz;
+        int prescale = Settings.Prescale;
+        string src = _reader.SourceName;
+        string F(double v) => Significant(v);
+        double wrap = md.TimerBits >= 64 ? double.PositiveInfinity : Math.Pow(2, md.TimerBits);
+        double wrapHz = prescale * clock / wrap; // any recorded-edge period longer than one wrap reads above this
+        bool beat = md.Signal == SignalKind.Beat;
+        string remedy = "record with a wider timer (timer_bits), a slower clock or a larger prescale, or correct search_hz if it is wrong";
+
+        if (md.Kind == CaptureKind.Edges)
+        {
+            if (beat)
+            {
+                // The beat of two oscillators tuned near each other lies below either of them.
+                if (measured > expected && measured > wrapHz)
+                {
+                    throw new CaptureFormatException(src, 0, FormattableString.Invariant(
+                        $"the beat note measures about {F(measured)} Hz, above the search oscillator's {F(expected)} Hz (search_hz), which a beat of two oscillators tuned near each other cannot be: it is likely aliased. The timer_bits = {md.TimerBits} timer wraps every {F(wrap)} ticks ({SecondsText(wrap / clock)} at clock_hz = {F(clock)}), so a beat whose recorded edges are further apart than that (below {F(wrapHz)} Hz with prescale {prescale}) reads as a steady, wrong, higher frequency; {remedy}"));
+                }
+
+                if (measured > expected)
+                {
+                    _warnings.Add(FormattableString.Invariant(
+                        $"{src}: the beat note measures about {F(measured)} Hz, above search_hz = {F(expected)} Hz: check clock_hz, prescale and search_hz"));
+                }
+
+                return;
+            }
+
+            double ratio = measured / expected;
+            double expectedPeriod = prescale * clock / expected;
+            if (ratio > DisagreementFactor && measured > wrapHz && expectedPeriod * DisagreementFactor > wrap)
+            {
+                throw new CaptureFormatException(src, 0, FormattableString.Invariant(
+                    $"the capture measures about {F(measured)} Hz, {ratio:0.0} times search_hz = {F(expected)} Hz: the signal is likely aliased. At search_hz the recorded edges lie {F(expectedPeriod)} ticks apart (clock_hz = {F(clock)}, prescale {prescale}), {(expectedPeriod >= wrap ? "more than" : "close to")} the wrap of the timer_bits = {md.TimerBits} timer, {F(wrap)} ticks, so the timer cannot tell one period from the next and shows a steady, wrong frequency; {remedy}"));
+            }
+
+            if (ratio > DisagreementFactor || ratio < 1 / DisagreementFactor)
+            {
+                _warnings.Add(FormattableString.Invariant(
+                    $"{src}: the capture measures about {F(measured)} Hz, but search_hz = {F(expected)} Hz ({ratio:0.###} times): check clock_hz, prescale and search_hz"));
+            }
+
+            return;
+        }
+
+        if (beat)
+        {
+            return;
+        }
+
+        // Snapshots: a pulse counter that wraps between two reads loses whole wraps, so the frequency reads low.
+        double snapshotRatio = measured / expected;
+        double countWrap = md.CountBits >= 64 ? double.PositiveInfinity : Math.Pow(2, md.CountBits);
+        double expectedCounts = expected / prescale * _headIntervalTicks / clock;
+        if (snapshotRatio < 1 / DisagreementFactor && expectedCounts * DisagreementFactor > countWrap)
+        {
+            throw new CaptureFormatException(src, 0, FormattableString.Invariant(
+                $"the capture measures about {F(measured)} Hz, {1 / snapshotRatio:0.0} times below search_hz = {F(expected)} Hz: the pulse counter likely wrapped between reads. At search_hz it counts about {F(expectedCounts)} per read (reads {SecondsText(_headIntervalTicks / clock)} apart), {(expectedCounts >= countWrap ? "more than" : "close to")} the wrap of the count_bits = {md.CountBits} counter, {F(countWrap)} counts, so whole wraps go unseen and the frequency reads low; read the counter more often, use a wider counter, or correct search_hz if it is wrong"));
+        }
+
+        if (snapshotRatio > DisagreementFactor || snapshotRatio < 1 / DisagreementFactor)
+        {
+            _warnings.Add(FormattableString.Invariant(
+                $"{src}: the capture measures about {F(measured)} Hz, but search_hz = {F(expected)} Hz ({snapshotRatio:0.###} times): check clock_hz, prescale and search_hz"));
+        }
+    }
+
+    /// <summary>The rows read ahead, then the rest of the capture; a read-ahead error is raised where it occurred.</summary>
+    private IEnumerable<CaptureRow> Rows()
+    {
+        foreach (CaptureRow row in _head)
+        {
+            yield return row;
+        }
+
+        _head.Clear();
+        _headError?.Throw();
+        if (_rowsEnded)
+        {
+            yield break;
+        }
+
+        while (_rows.MoveNext())
+        {
+            yield return _rows.Current;
         }
     }
 
@@ -92,6 +397,9 @@ public sealed class CaptureGateSource
 
     /// <summary>Rows whose tick (or count) step the unwrapper rejected; they were skipped.</summary>
     public long FlaggedSteps { get; private set; }
+
+    /// <summary>Of <see cref="FlaggedSteps"/>, the rows rejected because their tick (or count) stepped back a little.</summary>
+    public long BackwardSteps { get; private set; }
 
     /// <summary>Marks of rows after the last reported gate (the capture ended inside an open gate).</summary>
     public IReadOnlyList<string> UnassignedMarks => _unassignedMarks;
@@ -131,25 +439,27 @@ public sealed class CaptureGateSource
     private IEnumerable<CaptureGate> EdgeGates()
     {
         var md = Metadata;
-        var unwrapper = new TimerUnwrapper(md.TimerBits);
+        var unwrapper = new TimerUnwrapper(md.TimerBits) { ExpectedIntervalTicks = _headIntervalTicks };
         var counter = new EdgeCounter(Settings);
         var scratch = new GateResult();
+        long lastFedLine = 0;
         long timeoutTicks = Math.Max(1, (long)Math.Ceiling(Settings.NoSignalSeconds * Settings.ClockHz));
         var pending = new Pending();
         bool haveLast = false;
         long lastTick = 0;
         bool wrapChecked = md.TimerBits >= 64;
-        foreach (var row in _reader.ReadRows())
+        foreach (var row in Rows())
         {
             RowsRead++;
             if (!unwrapper.TryUnwrap(row.Tick, out long tick))
             {
-                Flag(row, "tick", md.TimerBits, "timer_bits");
+                Flag(row, "tick", md.TimerBits, "timer_bits", unwrapper, lastFedLine, "recorded-edge periods");
                 pending.Add(row);
                 continue;
             }
 
             RowsFed++;
+            lastFedLine = row.LineNumber;
             if (haveLast && tick - lastTick > timeoutTicks)
             {
                 // The device polls while it waits: one no-signal result per NoSignalSeconds of silence.
@@ -167,6 +477,10 @@ public sealed class CaptureGateSource
             haveLast = true;
             lastTick = tick;
             bool closed = counter.AddEdge(tick, scratch);
+            if (counter.HasRunningPeriod)
+            {
+                unwrapper.ExpectedIntervalTicks = counter.RunningPeriodTicks;
+            }
             if (!wrapChecked && counter.HasRunningPeriod && counter.GatesTotal > 0)
             {
                 wrapChecked = true;
@@ -189,32 +503,44 @@ public sealed class CaptureGateSource
     private IEnumerable<CaptureGate> SnapshotGates()
     {
         var md = Metadata;
-        var ticks = new TimerUnwrapper(md.TimerBits);
-        var counts = new TimerUnwrapper(md.CountBits, true);
+        var ticks = new TimerUnwrapper(md.TimerBits) { ExpectedIntervalTicks = _headIntervalTicks };
+        var counts = new TimerUnwrapper(md.CountBits, true) { ExpectedIntervalTicks = _headCountsPerRead };
         var counter = new SnapshotCounter(Settings);
         var scratch = new GateResult();
+        long lastFedLine = 0;
         var pending = new Pending();
         bool wrapChecked = md.TimerBits >= 64 && md.CountBits >= 64;
-        foreach (var row in _reader.ReadRows())
+        foreach (var row in Rows())
         {
             RowsRead++;
             if (!ticks.TryUnwrap(row.Tick, out long tick))
             {
-                Flag(row, "tick", md.TimerBits, "timer_bits");
+                Flag(row, "tick", md.TimerBits, "timer_bits", ticks, lastFedLine, "read intervals");
                 pending.Add(row);
                 continue;
             }
 
             if (!counts.TryUnwrap(row.Count, out long count))
             {
-                Flag(row, "count", md.CountBits, "count_bits");
+                Flag(row, "count", md.CountBits, "count_bits", counts, lastFedLine, "counts per read");
                 pending.Add(row);
                 continue;
             }
 
             RowsFed++;
+            lastFedLine = row.LineNumber;
             pending.Add(row);
-            if (counter.AddSnapshot(tick, count, scratch))
+            bool closed = counter.AddSnapshot(tick, count, scratch);
+            if (counter.RunningIntervalTicks > 0)
+            {
+                ticks.ExpectedIntervalTicks = counter.RunningIntervalTicks;
+                if (counter.RunningCountPeriodTicks > 0)
+                {
+                    counts.ExpectedIntervalTicks = counter.RunningIntervalTicks / counter.RunningCountPeriodTicks;
+                }
+            }
+
+            if (closed)
             {
                 GateResult gate = scratch;
                 if (!wrapChecked && gate.HasFrequency && gate.Edges > 1 && gate.EndTick > gate.StartTick)
@@ -244,13 +570,32 @@ public sealed class CaptureGateSource
         AddFlagSummary();
     }
 
-    private void Flag(in CaptureRow row, string column, int bits, string key)
+    private void Flag(in CaptureRow row, string column, int bits, string key, TimerUnwrapper unwrapper, long lastFedLine, string intervals)
     {
         FlaggedSteps++;
-        if (FlaggedSteps <= MaxListedSteps)
+        if (unwrapper.LastBackwardTicks > 0)
         {
-            _warnings.Add($"{_reader.SourceName}:{row.LineNumber}: the {column} step to {(column == "tick" ? row.Tick : row.Count)} cannot be right for {key} = {bits} (the unwrapper rejected it); the row is skipped");
+            BackwardSteps++;
         }
+
+        if (FlaggedSteps > MaxListedSteps)
+        {
+            return;
+        }
+
+        ulong value = column == "tick" ? row.Tick : row.Count;
+        if (unwrapper.LastBackwardTicks > 0)
+        {
+            double expected = unwrapper.ExpectedIntervalTicks;
+            string about = expected > 0
+                ? string.Format(System.Globalization.CultureInfo.InvariantCulture, " (about {0:0.#} {1})", unwrapper.LastBackwardTicks / expected, intervals)
+                : string.Empty;
+            string unit = column == "tick" ? "ticks" : "counts";
+            _warnings.Add($"{_reader.SourceName}:{row.LineNumber}: the {column} {value} steps back by {unwrapper.LastBackwardTicks} {unit}{about} from the {column} of line {lastFedLine}: rows out of order, or a {(column == "tick" ? "timer" : "counter")} that was reset? Taken as a wrap it would be a gap of almost 2^{bits} {unit}; the row is skipped");
+            return;
+        }
+
+        _warnings.Add($"{_reader.SourceName}:{row.LineNumber}: the {column} step to {value} cannot be right for {key} = {bits} (the unwrapper rejected it); the row is skipped");
     }
 
     private void AddFlagSummary()

@@ -132,7 +132,7 @@ public sealed class ReplaySession
 
         if (source.UnassignedMarks.Count > 0)
         {
-            string marks = string.Join(", ", source.UnassignedMarks.Take(MaxListedSettling).Select(m => $"'{m}'"));
+            string marks = string.Join(", ", source.UnassignedMarks.Take(MaxListedSettling).Select(m => FreqReadout.Host.Captures.TextExcerpt.Quote(m)));
             if (source.UnassignedMarks.Count > MaxListedSettling)
             {
                 marks += $" and {source.UnassignedMarks.Count - MaxListedSettling} more";

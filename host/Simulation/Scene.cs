@@ -72,6 +72,8 @@ public sealed class Scene
     /// <summary>Parses and validates scene JSON; <paramref name="sourceName"/> names it in messages.</summary>
     public static Scene Parse(string json, string sourceName)
     {
+        // The shape first, in the file's own terms (path, expected, found); then binding cannot fail on types.
+        SceneJsonCheck.Check(json, sourceName);
         Scene? scene;
         try
         {
@@ -80,13 +82,19 @@ public sealed class Scene
         catch (JsonException ex)
         {
             string where = ex.LineNumber.HasValue ? $":{ex.LineNumber.Value + 1}" : string.Empty;
-            string path = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? string.Empty : $" at {ex.Path}";
+            string path = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? string.Empty : $" at {ex.Path.TrimStart('$', '.')}";
             throw new SceneException($"{sourceName}{where}: not a valid scene file (JSON, see host/Scenes/README.md){path}: {FirstSentence(ex.Message)}", ex);
         }
 
         if (scene is null)
         {
             throw new SceneException($"{sourceName}: the file holds no scene object");
+        }
+
+        if (scene.Oscillator is { FrequencyHz: null, TuningCapacitanceNf: null })
+        {
+            // An oscillator object with neither key takes the documented default, as a left-out oscillator does.
+            scene.Oscillator.FrequencyHz = 100_000;
         }
 
         scene.Validate(sourceName);
@@ -107,6 +115,7 @@ public sealed class Scene
             throw new SceneException($"{sourceName}: coil, oscillator, temperature, sweep, hardware, faults and targets may be left out but not null");
         }
 
+        if (!IsOneLine(Name)) Fail("name", "one line of text (no line breaks or control characters)", Name);
         if (Coil.Turns < 1 || Coil.Turns > 100000) Fail("coil.turns", "an integer 1..100000", Coil.Turns);
         if (!(Coil.MeanDiameterM > 0.005 && Coil.MeanDiameterM <= 5)) Fail("coil.mean_diameter_m", "in (0.005, 5] m", Coil.MeanDiameterM);
         if (!(Coil.WireDiameterM > 0 && Coil.WireDiameterM < 0.01)) Fail("coil.wire_diameter_m", "in (0, 0.01) m", Coil.WireDiameterM);
@@ -118,6 +127,9 @@ public sealed class Scene
         if (o.FrequencyHz.HasValue && !(o.FrequencyHz > 100 && o.FrequencyHz <= 20e6)) Fail("oscillator.frequency_hz", "in (100, 2e7] Hz", o.FrequencyHz);
         if (o.TuningCapacitanceNf.HasValue && !(o.TuningCapacitanceNf > 0.001 && o.TuningCapacitanceNf <= 1e6)) Fail("oscillator.tuning_capacitance_nf", "in (0.001, 1e6] nF", o.TuningCapacitanceNf);
         if (o.TempcoPpmPerK.HasValue && !(Math.Abs(o.TempcoPpmPerK.Value) <= 10000)) Fail("oscillator.tempco_ppm_per_k", "in [-10000, 10000] ppm/K", o.TempcoPpmPerK);
+        if (o.CapacitorPpmPerK.HasValue && !(Math.Abs(o.CapacitorPpmPerK.Value) <= 10000)) Fail("oscillator.capacitor_ppm_per_k", "in [-10000, 10000] ppm/K", o.CapacitorPpmPerK);
+        if (!(Math.Abs(o.CoilPpmPerK) <= 10000)) Fail("oscillator.coil_ppm_per_k", "in [-10000, 10000] ppm/K", o.CoilPpmPerK);
+        if (!(o.NominalTemperatureC > -100 && o.NominalTemperatureC < 200)) Fail("oscillator.nominal_temperature_c", "in (-100, 200) C", o.NominalTemperatureC);
         if (!o.TempcoPpmPerK.HasValue && o.Capacitor == CapacitorDielectric.Custom && !o.CapacitorPpmPerK.HasValue) Fail("oscillator.capacitor_ppm_per_k", "given when oscillator.capacitor is custom", null);
         CheckNoise("oscillator", o.WhiteFmAdev1s, o.FlickerAdev, Fail);
         CheckTemperature("temperature", Temperature, Fail);
@@ -126,6 +138,7 @@ public sealed class Scene
         {
             if (!(Reference.FrequencyHz > 100 && Reference.FrequencyHz <= 20e6)) Fail("reference.frequency_hz", "in (100, 2e7] Hz", Reference.FrequencyHz);
             if (!(Math.Abs(Reference.TempcoPpmPerK) <= 10000)) Fail("reference.tempco_ppm_per_k", "in [-10000, 10000] ppm/K", Reference.TempcoPpmPerK);
+            if (!(Reference.NominalTemperatureC > -100 && Reference.NominalTemperatureC < 200)) Fail("reference.nominal_temperature_c", "in (-100, 200) C", Reference.NominalTemperatureC);
             CheckNoise("reference", Reference.WhiteFmAdev1s, Reference.FlickerAdev, Fail);
             if (Reference.Temperature is null) Fail("reference.temperature", "an object (or left out)", null);
             CheckTemperature("reference.temperature", Reference.Temperature!, Fail);
@@ -136,16 +149,17 @@ public sealed class Scene
             var t = Targets[i];
             string p = $"targets[{i}]";
             if (t is null) Fail(p, "an object", null);
+            if (!IsOneLine(t!.Name)) Fail($"{p}.name", "one line of text (no line breaks or control characters)", t.Name);
             if (!TryResolveMaterial(t!, out _, out string? why)) Fail($"{p}.material", why!, t!.Material);
             if (!(t!.RadiusM > 0 && t.RadiusM <= 1)) Fail($"{p}.radius_m", "in (0, 1] m", t.RadiusM);
             if (!(t.DepthM > t.RadiusM && t.DepthM <= 10)) Fail($"{p}.depth_m", "above radius_m and at most 10 m (the centre lies below the surface)", t.DepthM);
-            if (!double.IsFinite(t.PositionM)) Fail($"{p}.position_m", "a finite number of metres", t.PositionM);
-            if (!double.IsFinite(t.OffsetM)) Fail($"{p}.offset_m", "a finite number of metres", t.OffsetM);
+            if (!(Math.Abs(t.PositionM) <= MaxDistanceM)) Fail($"{p}.position_m", "in [-10000, 10000] m", t.PositionM);
+            if (!(Math.Abs(t.OffsetM) <= MaxDistanceM)) Fail($"{p}.offset_m", "in [-10000, 10000] m", t.OffsetM);
             if (t.Shape == TargetShape.Pipe && !(t.LengthM >= 2 * t.RadiusM && t.LengthM <= 100)) Fail($"{p}.length_m", "given for a pipe, in [2 radius_m, 100] m", t.LengthM);
         }
 
         var s = Sweep;
-        if (!double.IsFinite(s.StartM) || !double.IsFinite(s.EndM) || s.StartM == s.EndM) Fail("sweep.start_m / sweep.end_m", "finite and different", $"{s.StartM} / {s.EndM}");
+        if (!(Math.Abs(s.StartM) <= MaxDistanceM) || !(Math.Abs(s.EndM) <= MaxDistanceM) || s.StartM == s.EndM) Fail("sweep.start_m / sweep.end_m", "in [-10000, 10000] m and different", $"{Format(s.StartM)} / {Format(s.EndM)}");
         if (!(s.SpeedMPerS > 0 && s.SpeedMPerS <= 20)) Fail("sweep.speed_m_per_s", "in (0, 20] m/s", s.SpeedMPerS);
         if (!(s.HeightM >= 0 && s.HeightM <= 5)) Fail("sweep.height_m", "in [0, 5] m", s.HeightM);
         if (s.Passes < 1 || s.Passes > 10000) Fail("sweep.passes", "an integer 1..10000", s.Passes);
@@ -164,7 +178,7 @@ public sealed class Scene
         if (h.JitterS.HasValue && !(h.JitterS >= 0 && h.JitterS <= 0.01)) Fail("hardware.jitter_s", "in [0, 0.01] s", h.JitterS);
         if (!(h.SnapshotIntervalS >= 1e-5 && h.SnapshotIntervalS <= 1)) Fail("hardware.snapshot_interval_s", "in [1e-5, 1] s", h.SnapshotIntervalS);
         if (!(h.ReadJitterS >= 0 && h.ReadJitterS <= h.SnapshotIntervalS / 4)) Fail("hardware.read_jitter_s", "in [0, snapshot_interval_s / 4] s", h.ReadJitterS);
-        if (h.TempEveryRows < 0) Fail("hardware.temp_every_rows", "an integer >= 0 (0 = no temp_c column)", h.TempEveryRows);
+        if (h.TempEveryRows < 0 || h.TempEveryRows > 1_000_000_000) Fail("hardware.temp_every_rows", "an integer 0..1000000000 (0 = no temp_c column)", h.TempEveryRows);
         if (!(h.TempResolutionC >= 0 && h.TempResolutionC <= 10)) Fail("hardware.temp_resolution_c", "in [0, 10] C", h.TempResolutionC);
         if (!(h.ControlStepS >= 1e-5 && h.ControlStepS <= 0.1)) Fail("hardware.control_step_s", "in [1e-5, 0.1] s", h.ControlStepS);
 
@@ -221,13 +235,13 @@ public sealed class Scene
     {
         if (!(t.StartC > -100 && t.StartC < 200)) fail($"{owner}.start_c", "in (-100, 200) C", t.StartC);
         if (!(t.AmbientC > -100 && t.AmbientC < 200)) fail($"{owner}.ambient_c", "in (-100, 200) C", t.AmbientC);
-        if (t.Kind == TemperatureProfileKind.Settling && !(t.TimeConstantS > 0)) fail($"{owner}.time_constant_s", "> 0 s", t.TimeConstantS);
+        if (t.Kind == TemperatureProfileKind.Settling && !(t.TimeConstantS > 0 && t.TimeConstantS <= 1e6)) fail($"{owner}.time_constant_s", "in (0, 1e6] s", t.TimeConstantS);
         if (t.Points is null) fail($"{owner}.points", "a list (or left out)", null);
         double last = double.NegativeInfinity;
         for (int i = 0; i < t.Points!.Count; i++)
         {
             var p = t.Points[i];
-            if (p is null || !(p.TimeS >= 0) || !(p.TimeS > last)) fail($"{owner}.points[{i}].time_s", "increasing and >= 0 s", p?.TimeS);
+            if (p is null || !(p.TimeS >= 0 && p.TimeS <= 86400 * 7) || !(p.TimeS > last)) fail($"{owner}.points[{i}].time_s", "increasing, in [0, 604800] s", p?.TimeS);
             if (!(p!.TempC > -100 && p.TempC < 200)) fail($"{owner}.points[{i}].temp_c", "in (-100, 200) C", p.TempC);
             last = p.TimeS;
         }
@@ -238,11 +252,17 @@ public sealed class Scene
         }
     }
 
+    /// <summary>Farthest position along or across the scan line, m.</summary>
+    private const double MaxDistanceM = 10000;
+
+    private static bool IsOneLine(string? text) => text is not null && !text.Any(char.IsControl);
+
     private static string Format(object? v) => v switch
     {
         null => "nothing",
         double d => d.ToString("R", System.Globalization.CultureInfo.InvariantCulture),
-        _ => Convert.ToString(v, System.Globalization.CultureInfo.InvariantCulture) ?? "?",
+        string text => TextExcerpt.Quote(text),
+        _ => TextExcerpt.Plain(Convert.ToString(v, System.Globalization.CultureInfo.InvariantCulture) ?? "?"),
     };
 
     private static string FirstSentence(string message)
@@ -264,6 +284,7 @@ public sealed class Scene
             UnmappedMemberHandling = JsonUnmappedMemberHandling.Disallow,
             DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
             NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+            TypeInfoResolver = new System.Text.Json.Serialization.Metadata.DefaultJsonTypeInfoResolver(),
         };
         options.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower));
         return options;

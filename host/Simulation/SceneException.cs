@@ -12,4 +12,10 @@ public sealed class SceneException : Exception
         : base(message, inner)
     {
     }
+
+    /// <summary>True when the command line is at fault (an option's value), not a scene file: a usage error, not a data error.</summary>
+    public bool CommandLine { get; init; }
+
+    /// <summary>A scene problem caused by an option's value (<see cref="CommandLine"/> set).</summary>
+    public static SceneException Usage(string message) => new(message) { CommandLine = true };
 }

@@ -61,6 +61,58 @@ public sealed class SceneModel
         Targets = targets;
         Plan = new SweepPlan(scene.Sweep);
         JitterS = scene.Hardware.JitterS ?? DefaultJitterS(scene.Hardware.TimestampMethod);
+        CheckCountable(sourceName);
+    }
+
+    /// <summary>Points at which <see cref="CheckCountable"/> samples the counted frequency over the capture.</summary>
+    private const int CountableSamples = 2000;
+
+    /// <summary>
+    /// Refuses a scene whose capture would be read at an aliased frequency: a recorded-edge period (or a snapshot
+    /// read interval) longer than the timer's wrap, or more counts between two snapshot reads than the pulse
+    /// counter holds. Such a capture looks normal and reads a steady, wrong frequency; the margin of 10 % covers
+    /// the noise and jitter around the intended frequency, sampled at <see cref="CountableSamples"/> points.
+    /// </summary>
+    private void CheckCountable(string sourceName)
+    {
+        var h = Scene.Hardware;
+        double lowest = double.PositiveInfinity;
+        double highest = 0;
+        double duration = DurationS;
+        for (int i = 0; i <= CountableSamples; i++)
+        {
+            double f = CountedIntendedHz(duration * i / CountableSamples);
+            lowest = Math.Min(lowest, f);
+            highest = Math.Max(highest, f);
+        }
+
+        const double margin = 1.1;
+        string what = Signal == SignalKind.Beat ? "beat note" : "search oscillator";
+        string F(double v) => v.ToString(v >= 1e15 ? "G6" : "0.######", System.Globalization.CultureInfo.InvariantCulture);
+        double timerWrap = Math.Pow(2, h.TimerBits);
+        if (h.Kind == FreqReadout.Host.Captures.CaptureKind.Edges)
+        {
+            double period = h.ClockHz * h.Prescale / lowest;
+            if (h.TimerBits < 64 && period * margin >= timerWrap)
+            {
+                throw new SceneException($"{sourceName}: hardware.timer_bits = {h.TimerBits} cannot time this signal: the {what} at {F(lowest)} Hz gives recorded edges {F(period)} ticks apart (hardware.clock_hz {F(h.ClockHz)}, prescale {h.Prescale}), {(period >= timerWrap ? "more than" : "within 10 % of")} the timer's wrap of {F(timerWrap)} ticks, so the capture would read a steady, wrong (aliased) frequency; use a wider timer, a slower clock or a smaller prescale");
+            }
+
+            return;
+        }
+
+        double readTicks = h.SnapshotIntervalS * h.ClockHz;
+        if (h.TimerBits < 64 && readTicks * margin >= timerWrap)
+        {
+            throw new SceneException($"{sourceName}: hardware.timer_bits = {h.TimerBits} cannot time the snapshot reads: hardware.snapshot_interval_s {F(h.SnapshotIntervalS)} s is {F(readTicks)} ticks of hardware.clock_hz {F(h.ClockHz)}, {(readTicks >= timerWrap ? "more than" : "within 10 % of")} the timer's wrap of {F(timerWrap)} ticks, so the read times would alias; use a wider timer, a slower clock or shorter read intervals");
+        }
+
+        double countsPerRead = highest * h.SnapshotIntervalS;
+        double countWrap = Math.Pow(2, h.CountBits);
+        if (h.CountBits < 64 && countsPerRead * margin >= countWrap)
+        {
+            throw new SceneException($"{sourceName}: hardware.count_bits = {h.CountBits} cannot count this signal: the {what} at {F(highest)} Hz gives {F(countsPerRead)} counts per read (hardware.snapshot_interval_s {F(h.SnapshotIntervalS)} s), {(countsPerRead >= countWrap ? "more than" : "within 10 % of")} the counter's wrap of {F(countWrap)}, so whole wraps would go unseen and the capture would read low; read more often or use a wider counter");
+        }
     }
 
     /// <summary>The scene.</summary>

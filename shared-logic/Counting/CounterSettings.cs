@@ -6,6 +6,21 @@ namespace FreqReadout.Counting
     /// </summary>
     public sealed class CounterSettings
     {
+        /// <summary>Shortest time gate, seconds (1 us: shorter gates hold no more than one interval of any countable signal).</summary>
+        public const double MinGateSeconds = 1e-6;
+
+        /// <summary>Longest time gate, seconds (one day).</summary>
+        public const double MaxGateSeconds = 86400;
+
+        /// <summary>Largest configurable timestamp jitter, rms ticks (a jitter beyond this swamps every estimate; it also keeps the error model finite).</summary>
+        public const double MaxJitterTicks = 1e9;
+
+        /// <summary>Shortest no-signal timeout, seconds (1 ms: shorter would poll faster than a device loop runs).</summary>
+        public const double MinNoSignalSeconds = 1e-3;
+
+        /// <summary>Longest no-signal timeout, seconds (one hour).</summary>
+        public const double MaxNoSignalSeconds = 3600;
+
         /// <summary>Timer clock, Hz (&gt; 0; may be fractional for a calibrated crystal). Required.</summary>
         public double ClockHz { get; set; }
 
@@ -18,7 +33,7 @@ namespace FreqReadout.Counting
         /// <summary>Gate by time or by edge count. Default time.</summary>
         public GateMode Mode { get; set; } = GateMode.Time;
 
-        /// <summary>Time gate length, seconds (&gt; 0). Default 0.1 s.</summary>
+        /// <summary>Time gate length, seconds, in [<see cref="MinGateSeconds"/>, <see cref="MaxGateSeconds"/>]. Default 0.1 s.</summary>
         public double GateSeconds { get; set; } = 0.1;
 
         /// <summary>Edge gate length in recorded intervals (&gt;= 1). Default 100.</summary>
@@ -27,7 +42,7 @@ namespace FreqReadout.Counting
         /// <summary>Estimator reported in <see cref="GateResult.FrequencyHz"/> by <see cref="EdgeCounter"/> (reciprocal or regression; the snapshot counter always uses snapshot regression). Default regression.</summary>
         public EstimatorKind Estimator { get; set; } = EstimatorKind.Regression;
 
-        /// <summary>Configured white timestamp jitter, rms ticks (&gt;= 0), added to the quantisation q^2/12 in the error model (for snapshots: the read jitter of the recorded tick). Default 0.</summary>
+        /// <summary>Configured white timestamp jitter, rms ticks, in [0, <see cref="MaxJitterTicks"/>], added to the quantisation q^2/12 in the error model (for snapshots: the read jitter of the recorded tick). Default 0.</summary>
         public double JitterTicks { get; set; }
 
         /// <summary>An interval shorter than this fraction of the running period is a double-triggered edge and is rejected (0..1, exclusive). Default 0.5. Edges only.</summary>
@@ -36,7 +51,7 @@ namespace FreqReadout.Counting
         /// <summary>A gap longer than this many running periods is a dropout that closes the gate (&gt; 1). Default 8.</summary>
         public double DropoutPeriods { get; set; } = 8;
 
-        /// <summary>No edge within this many seconds gives the no-signal state (&gt; 0). Default 0.5 s.</summary>
+        /// <summary>No edge within this many seconds gives the no-signal state, in [<see cref="MinNoSignalSeconds"/>, <see cref="MaxNoSignalSeconds"/>]. Default 0.5 s.</summary>
         public double NoSignalSeconds { get; set; } = 0.5;
 
         /// <summary>
@@ -59,9 +74,9 @@ namespace FreqReadout.Counting
                 return false;
             }
 
-            if (!(GateSeconds > 0) || double.IsInfinity(GateSeconds))
+            if (!(GateSeconds >= MinGateSeconds && GateSeconds <= MaxGateSeconds))
             {
-                error = "gate seconds must be a finite number > 0";
+                error = "gate seconds must be in [1e-6, 86400] s";
                 return false;
             }
 
@@ -71,9 +86,9 @@ namespace FreqReadout.Counting
                 return false;
             }
 
-            if (!(JitterTicks >= 0) || double.IsInfinity(JitterTicks))
+            if (!(JitterTicks >= 0 && JitterTicks <= MaxJitterTicks))
             {
-                error = "jitter ticks must be a finite number >= 0";
+                error = "jitter ticks must be in [0, 1e9] ticks";
                 return false;
             }
 
@@ -89,9 +104,9 @@ namespace FreqReadout.Counting
                 return false;
             }
 
-            if (!(NoSignalSeconds > 0) || double.IsInfinity(NoSignalSeconds))
+            if (!(NoSignalSeconds >= MinNoSignalSeconds && NoSignalSeconds <= MaxNoSignalSeconds))
             {
-                error = "no-signal seconds must be a finite number > 0";
+                error = "no-signal seconds must be in [0.001, 3600] s";
                 return false;
             }
 

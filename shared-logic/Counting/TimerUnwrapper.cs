@@ -18,14 +18,26 @@ namespace FreqReadout.Counting
     /// </para>
     /// <para>
     /// A wrap that happens within fewer than <see cref="MinIntervalsPerWrap"/> expected intervals
-    /// lets a dropout hide inside one wrap (it would be read as a short gap): see
+    /// lets a dropout hide inside one wrap (it would be read as a short gap), and a signal whose
+    /// period is longer than one wrap is read at a wrong (aliased) frequency: see
     /// <see cref="WrapsTooFast"/> and <see cref="TryGetWrapWarning"/>.
+    /// </para>
+    /// <para>
+    /// Backward steps: with <see cref="ExpectedIntervalTicks"/> set (the caller's running period), a
+    /// narrow-timer value that lies a little below the previous one — at most
+    /// <see cref="MaxBackwardIntervals"/> expected intervals back, and nearer backwards than forwards —
+    /// is a step back in time (rows out of order, a timer reset), not a near-full wrap: it is rejected
+    /// and <see cref="LastBackwardTicks"/> says how far back it was. Longer forward gaps are unchanged.
+    /// Without an expected interval (0, the default) every step is taken as forward, as before.
     /// </para>
     /// </summary>
     public sealed class TimerUnwrapper
     {
         /// <summary>The timer should wrap no sooner than after this many expected intervals, else a warning is due.</summary>
         public const int MinIntervalsPerWrap = 8;
+
+        /// <summary>A value at most this many expected intervals below the previous one is a backward step (see <see cref="ExpectedIntervalTicks"/>).</summary>
+        public const int MaxBackwardIntervals = 8;
 
         private readonly ulong _mask;
         private readonly bool _allowRepeats;
@@ -36,6 +48,9 @@ namespace FreqReadout.Counting
         private long _wraps;
         private long _rejected;
         private bool _wrapWarned;
+        private double _expectedInterval;
+        private long _lastBackward;
+        private long _backwardSteps;
 
         /// <summary>
         /// An unwrapper for timestamps (repeated values rejected).
@@ -116,6 +131,32 @@ namespace FreqReadout.Counting
             get { return _wraps; }
         }
 
+        /// <summary>
+        /// Expected ticks between consecutive values (for timestamps the running period, for counts the
+        /// counts per read), used to tell a small backward step from a near-full wrap; 0 or less (the
+        /// default) means unknown and turns the backward-step check off. A plain field write, O(1).
+        /// </summary>
+        public double ExpectedIntervalTicks
+        {
+            get { return _expectedInterval; }
+            set { _expectedInterval = value; }
+        }
+
+        /// <summary>
+        /// How many ticks back the most recently rejected value lay when it was rejected as a backward
+        /// step (below the previous value); 0 when the most recent rejection had another reason, or none.
+        /// </summary>
+        public long LastBackwardTicks
+        {
+            get { return _lastBackward; }
+        }
+
+        /// <summary>Values rejected as backward steps so far (included in <see cref="Rejected"/>).</summary>
+        public long BackwardSteps
+        {
+            get { return _backwardSteps; }
+        }
+
         /// <summary>Values rejected by <see cref="TryUnwrap"/> so far.</summary>
         public long Rejected
         {
@@ -131,11 +172,14 @@ namespace FreqReadout.Counting
         /// <returns>
         /// False, leaving the state unchanged, when the value cannot be right: raw &gt;= 2^bits; a
         /// repeated timestamp; a 64-bit value below the previous one (or, for timestamps, equal to
-        /// it); or a step that would overflow the 64-bit tick.
+        /// it); a narrow-timer backward step (see <see cref="ExpectedIntervalTicks"/>): back = 2^bits -
+        /// ((raw - previous) mod 2^bits) with back &lt;= MaxBackwardIntervals x ExpectedIntervalTicks and
+        /// back &lt; the forward step; or a step that would overflow the 64-bit tick.
         /// </returns>
         public bool TryUnwrap(ulong raw, out long tick)
         {
             tick = _lastTick;
+            _lastBackward = 0;
             if (raw > _mask)
             {
                 _rejected++;
@@ -155,6 +199,8 @@ namespace FreqReadout.Counting
             if (Bits == 64 && raw < _lastRaw)
             {
                 _rejected++;
+                _backwardSteps++;
+                _lastBackward = (long)(_lastRaw - raw > (ulong)long.MaxValue ? (ulong)long.MaxValue : _lastRaw - raw);
                 return false;
             }
 
@@ -163,6 +209,19 @@ namespace FreqReadout.Counting
             {
                 _rejected++;
                 return false;
+            }
+
+            if (Bits < 64 && delta != 0 && _expectedInterval > 0)
+            {
+                // The same raw value read backwards: back = 2^bits - delta ticks before the previous one.
+                ulong back = _mask - delta + 1UL;
+                if (back < delta && (double)back <= MaxBackwardIntervals * _expectedInterval)
+                {
+                    _rejected++;
+                    _backwardSteps++;
+                    _lastBackward = (long)back;
+                    return false;
+                }
             }
 
             if (delta > (ulong)(long.MaxValue - _lastTick))
@@ -219,7 +278,9 @@ namespace FreqReadout.Counting
             warning = "timer_bits = " + Bits.ToString() + ": the timer wraps every " + ((long)WrapTicks).ToString()
                 + " ticks, only " + (perWrap10 / 10).ToString() + "." + (perWrap10 % 10).ToString()
                 + " expected intervals of about " + interval.ToString() + " ticks (fewer than "
-                + MinIntervalsPerWrap.ToString() + "): a dropout longer than one wrap would go unseen";
+                + MinIntervalsPerWrap.ToString() + "): a dropout longer than one wrap would go unseen, and the frequency may be aliased"
+                + " (a signal whose true period is longer than one wrap reads as a steady, wrong, higher frequency;"
+                + " give search_hz to have it checked, or use a wider timer, a slower clock or a larger prescale)";
             return true;
         }
 
@@ -233,6 +294,9 @@ namespace FreqReadout.Counting
             _wraps = 0;
             _rejected = 0;
             _wrapWarned = false;
+            _expectedInterval = 0;
+            _lastBackward = 0;
+            _backwardSteps = 0;
         }
     }
 }

@@ -134,7 +134,7 @@ public sealed class CaptureGateSourceTests
     {
         using var reader = CaptureFile.Open(Contract("minimal.edges.csv"));
         var e = Assert.Throws<ArgumentException>(() => new CaptureGateSource(reader, new CounterSettings { GateSeconds = -1 }));
-        Assert.Contains("gate seconds must be a finite number > 0", e.Message);
+        Assert.Contains("gate seconds must be in [1e-6, 86400] s", e.Message);
     }
 
     [Fact]

@@ -108,18 +108,18 @@ public sealed class TextCaptureFormatTests
     [InlineData(Head + "tick\n1\n# lost = 0\n2\n", 6, "expected only trailer lines '# key = value' after the first trailer line (line 5)")]
     [InlineData(Head + "tick\n1\n# lost = 0\n# closing remark\n", 6, "expected a trailer line '# key = value'")]
     [InlineData(Head + "tick\n1\n# lost = 0\n# lost = 1\n", 6, "duplicate trailer key 'lost' (first given at line 5)")]
-    [InlineData("# freqreadout capture 1\n# clock_hz = 1,5\ntick\n", 2, "expected clock_hz = the timer clock in Hz, a number > 0")]
+    [InlineData("# freqreadout capture 1\n# clock_hz = 1,5\ntick\n", 2, "expected clock_hz = the timer clock in Hz, a number in [1, 1e12]")]
     [InlineData("# freqreadout capture 1\n# clock_hz = -5\ntick\n", 2, "found '-5'")]
     [InlineData("# freqreadout capture 1\n# clock_hz = NaN\ntick\n", 2, "found 'NaN'")]
     [InlineData(Head + "# Prescale = 2\ntick\n", 3, "metadata keys are lowercase: expected 'prescale', found 'Prescale'")]
-    [InlineData(Head + "# prescale = 0\ntick\n", 3, "expected prescale = an integer >= 1")]
+    [InlineData(Head + "# prescale = 0\ntick\n", 3, "expected prescale = an integer from 1 to 16777216")]
     [InlineData(Head + "# timer_bits = 12\ntick\n", 3, "expected timer_bits = 16, 24, 32 or 64, found '12'")]
     [InlineData(Head + "# kind = pulses\ntick\n", 3, "expected kind = edges or kind = snapshots, found 'pulses'")]
     [InlineData(Head + "# signal = beat\n# beat_side = left\ntick\n", 4, "expected beat_side = above or beat_side = below")]
     [InlineData(Head + "# started_utc = 30/11/2026\ntick\n", 3, "expected started_utc = YYYY-MM-DDTHH:MM:SSZ")]
     [InlineData(Head + "tick,temp_c\n1,21,5\n", 4, "expected 2 comma-separated fields (tick,temp_c), found 3")]
     [InlineData(Head + "tick,temp_c\n1\n", 4, "expected 2 comma-separated fields (tick,temp_c), found 1")]
-        [InlineData(Head + "tick,temp_c\n1,warm\n", 4, "expected temp_c as a number in degrees Celsius with '.' as decimal separator (or blank for no new sample), found 'warm'")]
+        [InlineData(Head + "tick,temp_c\n1,warm\n", 4, "expected temp_c as a number in degrees Celsius in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found 'warm'")]
     [InlineData(Head + "tick\n-1\n", 4, "expected the tick as an unsigned integer (digits only), found '-1'")]
     [InlineData(Head + "tick\n\n,\n", 5, "expected 1 comma-separated field (tick), found 2")]
     [InlineData(Head + "tick\n18446744073709551616\n", 4, "tick 18446744073709551616 exceeds the timer width: timer_bits = 64")]
@@ -231,7 +231,7 @@ public sealed class TextCaptureFormatTests
     {
         var e = Assert.Throws<ArgumentException>(() => new TextCaptureWriter(new StringWriter(), new CaptureMetadata()));
         Assert.Contains("clock_hz", e.Message);
-        Assert.Contains("> 0", e.Message);
+        Assert.Contains("[1, 1e12] Hz", e.Message);
     }
 
     private static byte[] RewriteText(byte[] original)
@@ -249,5 +249,57 @@ public sealed class TextCaptureFormatTests
         }
 
         return output.ToArray();
+    }
+
+    [Theory]
+    [InlineData("1e308", "temp_c 1E+308 is above 1000 deg C, not a coil temperature")]
+    [InlineData("-300", "temp_c -300 is below absolute zero (-273.15 deg C); expected degrees Celsius in [-273.15, 1000]")]
+    [InlineData("1e999", "expected temp_c as a number in degrees Celsius in [-273.15, 1000]")]
+    public void A_temperature_outside_its_physical_range_is_named_as_such(string value, string expected)
+    {
+        var e = ErrorOf(Head + "tick,temp_c\n1," + value + "\n");
+        Assert.Equal(4, e.LineNumber);
+        Assert.Contains(expected, e.Problem);
+    }
+
+    [Fact]
+    public void A_fifty_million_digit_tick_is_quoted_as_a_short_excerpt()
+    {
+        string digits = new string('9', 50_000_000);
+        var e = ErrorOf(Head + "tick\n" + digits + "\n");
+        Assert.Equal(4, e.LineNumber);
+        Assert.True(e.Message.Length < 300, $"the message is {e.Message.Length} characters long");
+        Assert.Contains("tick 9999999999999999999999999999999999999999... (50000000 characters) exceeds the timer width", e.Problem);
+    }
+
+    [Theory]
+    [InlineData("# freqreadout capture 1\n# note\u0000 = x\ntick\n", "metadata key")]
+    [InlineData("# freqreadout capture 1\n# clock_hz = 1\u001b[2J000\ntick\n", "found '1\\u001B[2J000'")]
+    public void Bad_values_are_quoted_escaped_so_they_cannot_break_or_restyle_the_error_line(string text, string expected)
+    {
+        var e = ErrorOf(text);
+        Assert.Contains(expected, e.Problem);
+        Assert.DoesNotContain('\u001b', e.Message);
+        Assert.DoesNotContain('\u0000', e.Message);
+    }
+
+    [Theory]
+    [InlineData(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52 })] // a PNG header
+    [InlineData(new byte[] { 0xFF, 0xD8, 0xFF, 0xE0, 0x00, 0x10, 0x4A, 0x46, 0x49, 0x46 })]                          // a JPEG header
+    [InlineData(new byte[] { 0x50, 0x4B, 0x03, 0x04, 0x14, 0x00, 0x00, 0x00 })]                                      // a zip archive
+    public void A_binary_or_image_file_is_not_a_capture_rather_than_bad_utf8(byte[] bytes)
+    {
+        var e = Assert.Throws<CaptureFormatException>(() => CaptureFile.Open(new MemoryStream(bytes), "picture.png"));
+        Assert.Equal(1, e.LineNumber);
+        Assert.Equal("not a capture (no '# freqreadout capture 1' line): the file starts with binary data, not text", e.Problem);
+    }
+
+    [Fact]
+    public void A_long_first_line_without_a_line_break_is_not_read_whole()
+    {
+        // A 10 MB text file without any line break: rejected after the first few kilobytes, with a short excerpt.
+        var e = Assert.Throws<CaptureFormatException>(() => CaptureFile.Open(new MemoryStream(System.Text.Encoding.ASCII.GetBytes(new string('x', 10_000_000))), "big.txt"));
+        Assert.StartsWith("not a capture: expected the first line '# freqreadout capture 1', found 'xxxx", e.Problem);
+        Assert.True(e.Message.Length < 300);
     }
 }

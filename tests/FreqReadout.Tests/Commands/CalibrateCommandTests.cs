@@ -1,3 +1,4 @@
+using FreqReadout.Host.Commands;
 using System.Globalization;
 using System.Text.Json;
 using FreqReadout.Tests.Tracking;
@@ -88,16 +89,21 @@ public sealed class CalibrateCommandTests : IDisposable
         Assert.Contains("standard error", stdout);
     }
 
-    [Fact]
-    public void A_tempco_option_is_said_to_be_ignored_and_changes_nothing()
+    [Theory]
+    [InlineData("--tempco-ppm-per-k", "-12")]
+    [InlineData("--polarity", "inverted")]
+    [InlineData("--unclear-band-sigma", "3")]
+    public void Replay_options_that_calibrate_would_ignore_are_not_offered(string option, string value)
     {
+        // The fit always uses the uncompensated frequencies of target-free readings: a tempco, the polarity and the
+        // unclear band (which only class events) would change nothing, so calibrate does not take them.
         string path = WriteCapture();
-        var (exit, plain, _) = ConsoleCapture.Run("calibrate", path, "--json");
-        Assert.Equal(0, exit);
-        var (exit2, withTempco, stderr) = ConsoleCapture.Run("calibrate", path, "--json", "--tempco-ppm-per-k", "-12");
-        Assert.Equal(0, exit2);
-        Assert.Equal(plain, withTempco); // the fit always uses the uncompensated frequencies
-        Assert.Contains("warning: --tempco-ppm-per-k -12 is ignored by calibrate", stderr);
+        var (exit, stdout, stderr) = ConsoleCapture.RunMain("calibrate", path, "--json", option, value);
+        Assert.Equal(ExitCodes.Usage, exit);
+        Assert.Equal(string.Empty, stdout);
+        Assert.Contains(option.TrimStart('-'), stderr);
+        Assert.DoesNotContain(option, OptionNames(typeof(CalibrateCommand.Settings)));   // so --help does not list it
+        Assert.Contains(option, OptionNames(typeof(ReplayCommand.Settings)));
     }
 
     [Fact]
@@ -132,4 +138,10 @@ public sealed class CalibrateCommandTests : IDisposable
         Assert.Equal(string.Empty, stdout);
         Assert.Contains("no temperature point with target-free readings", stderr);
     }
+
+    private static List<string> OptionNames(Type settings) => settings.GetProperties()
+        .Select(p => p.GetCustomAttributes(typeof(Spectre.Console.Cli.CommandOptionAttribute), true).FirstOrDefault())
+        .OfType<Spectre.Console.Cli.CommandOptionAttribute>()
+        .SelectMany(o => o.LongNames.Select(n => "--" + n))
+        .ToList();
 }

@@ -66,8 +66,8 @@ public sealed class ConvertCommandTests : IDisposable
 
     [Theory]
     [InlineData("--to", "csv", "--to must be text or binary, got 'csv'")]
-    [InlineData("--from-s", "-1", "--from-s must be a number >= 0")]
-    [InlineData("--to-s", "0", "--to-s must be a number greater than --from-s (0 s), got '0'")]
+    [InlineData("--from-s", "-1", "--from-s must be a number of seconds from the first row in [0, 1e9], got '-1'")]
+    [InlineData("--to-s", "0", "--to-s must be a number of seconds from the first row greater than --from-s (0 s) and at most 1e9, got '0'")]
     public void Bad_options_are_named(string option, string value, string expected)
     {
         var (exit, _, stderr) = ConsoleCapture.Run("convert", Contract("minimal.edges.csv"), Path.Combine(_dir, "x.frb"), option, value);
@@ -83,5 +83,33 @@ public sealed class ConvertCommandTests : IDisposable
         Assert.Equal(CommandOutput.BadInput, exit);
         Assert.Contains(":6: expected the tick as an unsigned integer", stderr);
         Assert.False(File.Exists(output));
+    }
+
+    [Fact]
+    public void Trimming_moves_started_utc_with_the_range_and_carries_the_temperature_in_force()
+    {
+        // 10 s of 100 Hz rows on a 1 MHz timer from 10:00:00; a temperature sample every second, 20.0 + t / 10 C.
+        var sb = new System.Text.StringBuilder("# freqreadout capture 1\n# clock_hz = 1000000\n# started_utc = 2026-03-01T10:00:00Z\ntick,temp_c\n");
+        for (int i = 0; i < 1000; i++)
+        {
+            sb.Append(System.Globalization.CultureInfo.InvariantCulture, $"{i * 10000},{(i % 100 == 0 ? (20.0 + (i / 1000.0)).ToString("0.0##", System.Globalization.CultureInfo.InvariantCulture) : string.Empty)}\n");
+        }
+
+        string input = Path.Combine(_dir, "timed.csv");
+        File.WriteAllText(input, sb.ToString());
+        string output = Path.Combine(_dir, "timed-trim.csv");
+        var (exit, _, stderr) = ConsoleCapture.Run("convert", input, output, "--to", "text", "--from-s", "3.45", "--to-s", "6");
+        Assert.True(exit == 0, stderr);
+        using var reader = CaptureFile.Open(output);
+        // Time 0 of the trimmed capture is its first row, 3.45 s into the original: started_utc moves with it
+        // (to the nearest second, the key's resolution), so events' UTC times stay right to within that second.
+        Assert.Equal(new DateTimeOffset(2026, 3, 1, 10, 0, 3, TimeSpan.Zero), reader.Metadata.StartedUtc);
+        Assert.Contains(reader.Metadata.HeaderLines, l => l.IsComment && l.Comment!.Contains("started_utc moved 3 s later (was 2026-03-01T10:00:00Z)"));
+        var rows = reader.ReadRows().ToList();
+        Assert.Equal(3_450_000UL, rows[0].Tick);
+        // The sample taken at 3 s (20.3 C) is the temperature in force at the cut: the first kept row carries it.
+        Assert.Equal(20.3, rows[0].TemperatureC);
+        Assert.Null(rows[1].TemperatureC);
+        Assert.Equal(20.4, rows.First(r => r.Tick == 4_000_000UL).TemperatureC);
     }
 }

@@ -225,11 +225,13 @@ public sealed class CountCommandTests
     }
 
     [Theory]
-    [InlineData("--gate-seconds", "0", "--gate-seconds must be a number > 0")]
+    [InlineData("--gate-seconds", "0", "--gate-seconds must be a number of seconds in [1e-6, 86400], got '0'")]
     [InlineData("--gate-edges", "0", "--gate-edges must be an integer from 1 to 1048576")]
     [InlineData("--estimator", "median", "--estimator must be reciprocal or regression, got 'median'")]
-    [InlineData("--jitter-ticks", "-1", "--jitter-ticks must be a number >= 0")]
-    [InlineData("--no-signal-seconds", "-1", "--no-signal-seconds must be a number > 0")]
+    [InlineData("--jitter-ticks", "-1", "--jitter-ticks must be a number of rms ticks in [0, 1e9], got '-1'")]
+    [InlineData("--jitter-ticks", "1e308", "--jitter-ticks must be a number of rms ticks in [0, 1e9], got '1e308'")]
+    [InlineData("--no-signal-seconds", "-1", "--no-signal-seconds must be a number of seconds in [0.001, 3600], got '-1'")]
+    [InlineData("--no-signal-seconds", "1e-9", "--no-signal-seconds must be a number of seconds in [0.001, 3600], got '1e-9'")]
     public void A_bad_option_is_named_with_its_range(string option, string value, string expected)
     {
         var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), option, value);
@@ -253,7 +255,7 @@ public sealed class CountCommandTests
     {
         var (exit, _, stderr) = ConsoleCapture.RunMain("count", Contract("minimal.edges.csv"), "--gate-seconds", "0,5");
         Assert.Equal(CommandOutput.BadOption, exit);
-        Assert.Equal("error: --gate-seconds must be a number > 0 (seconds), got '0,5'\n", stderr);
+        Assert.Equal("error: --gate-seconds must be a number of seconds in [1e-6, 86400], got '0,5'\n", stderr);
     }
 
     [Fact]
@@ -290,5 +292,51 @@ public sealed class CountCommandTests
         {
             Directory.Delete(dir, true);
         }
+    }
+
+    [Theory]
+    [InlineData("below", -10.0)]
+    [InlineData("above", 10.0)]
+    public void In_beat_mode_the_search_shift_is_shown_beside_the_beat_shift(string side, double searchShift)
+    {
+        // A beat of 400 Hz for 1 s, then 410 Hz for 1 s, on a 1 MHz timer: the beat rose by 10 Hz. With the search
+        // oscillator below the reference (beat = f_ref - f_search) the search oscillator fell by 10 Hz.
+        var sb = new System.Text.StringBuilder($"# freqreadout capture 1\n# clock_hz = 1000000\n# signal = beat\n# beat_side = {side}\ntick\n");
+        double t = 0;
+        for (int i = 0; i <= 800; i++)
+        {
+            sb.Append(((long)Math.Round(t)).ToString(System.Globalization.CultureInfo.InvariantCulture)).Append('\n');
+            t += i < 400 ? 1e6 / 400 : 1e6 / 410;
+        }
+
+        string path = Path.Combine(Path.GetTempPath(), $"freqreadout-beat-{Guid.NewGuid():N}.csv");
+        File.WriteAllText(path, sb.ToString());
+        try
+        {
+            var (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--gate-seconds", "0.5", "--json");
+            Assert.True(exit == 0, stderr);
+            var last = System.Text.Json.JsonDocument.Parse(stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1]).RootElement;
+            Assert.Equal(10.0, last.GetProperty("shift_hz").GetDouble(), 0.01);          // the counted signal, as the contract says
+            Assert.Equal(searchShift, last.GetProperty("search_shift_hz").GetDouble(), 0.01);
+
+            (exit, stdout, stderr) = ConsoleCapture.Run("count", path, "--gate-seconds", "0.5");
+            Assert.True(exit == 0, stderr);
+            Assert.Contains("beat shift", stdout);   // the header may wrap its unit onto a second line
+            Assert.Contains("search shift", stdout);
+            string row = stdout.Split('\n').Last(l => l.Contains(" ok", StringComparison.Ordinal));
+            Assert.Contains(side == "below" ? "+10.000   -10.000" : "+10.000   +10.000", System.Text.RegularExpressions.Regex.Replace(row, " +", "   "));
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
+    [Fact]
+    public void The_estimator_option_on_a_snapshot_capture_is_said_to_have_no_effect()
+    {
+        var (exit, _, stderr) = ConsoleCapture.Run("count", Contract("snapshots.edges.csv"), "--estimator", "reciprocal", "--json");
+        Assert.Equal(0, exit);
+        Assert.Single(stderr.Split('\n'), l => l == "warning: --estimator reciprocal does not apply to a snapshot capture: its gates always use snapshot-regression");
     }
 }

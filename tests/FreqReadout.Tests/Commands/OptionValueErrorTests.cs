@@ -106,7 +106,7 @@ public sealed class OptionValueErrorTests
     public void A_csv_in_a_missing_folder_names_the_file_and_why(string option, string expected)
     {
         string path = Path.Combine(Path.GetTempPath(), "freqreadout-no-such-folder-" + Guid.NewGuid().ToString("N"), "out.csv");
-        var (exit, _, stderr) = ConsoleCapture.RunMain("replay", Contract("minimal.edges.csv"), option, path, "--json");
+        var (exit, _, stderr) = ConsoleCapture.RunMain("replay", Contract("snapshots.edges.csv"), option, path, "--json");
         Assert.Equal(1, exit);
         AssertOneErrorLine(stderr, path + ": " + expected);
     }

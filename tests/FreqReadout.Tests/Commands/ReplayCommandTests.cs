@@ -255,7 +255,7 @@ public sealed class ReplayCommandTests : IDisposable
     [InlineData("--search-hz", "fast", "--search-hz must be a number (Hz) in [0, 1e12]")]
     [InlineData("--noise-window-gates", "1.5", "--noise-window-gates must be an integer in [16, 4096], got '1.5'")]
     [InlineData("--tracker-delay-gates", "99999999999", "--tracker-delay-gates must be an integer in [0, 1000], got '99999999999'")]
-    [InlineData("--gate-seconds", "0", "--gate-seconds must be a number > 0")]
+    [InlineData("--gate-seconds", "0", "--gate-seconds must be a number of seconds in [1e-6, 86400]")]
     [InlineData("--estimator", "guess", "--estimator must be reciprocal or regression")]
     public void Each_bad_option_gives_its_own_error_naming_the_setting_and_range(string option, string value, string message)
     {

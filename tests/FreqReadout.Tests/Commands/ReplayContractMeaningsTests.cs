@@ -108,12 +108,12 @@ public sealed class ReplayContractMeaningsTests : IDisposable
     [Fact]
     public void A_capture_shorter_than_one_gate_says_so()
     {
-        // minimal.edges.csv: 101 edges of 1 kHz, 0.1 s, no closed 0.1 s gate (count says the same).
+        // minimal.edges.csv: 101 edges, no closed 0.1 s gate (count says the same): nothing replayed is an error, not a summary of nothing.
         var (exit, stdout, stderr) = ConsoleCapture.Run("replay", Captures.CaptureTestFiles.Contract("minimal.edges.csv"), "--json");
-        Assert.True(exit == 0, stderr);
-        using var doc = JsonDocument.Parse(stdout);
-        Assert.Equal(0, doc.RootElement.GetProperty("gates").GetInt64());
-        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.StartsWith("no gate closed: the capture is shorter than one gate"));
+        Assert.Equal(1, exit);
+        Assert.Equal(string.Empty, stdout);
+        Assert.EndsWith("minimal.edges.csv: no gate closed: the capture is shorter than one gate (try a shorter --gate-seconds or --gate-edges)\n", stderr);
+        Assert.Single(stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries), l => l.Contains("no gate closed", StringComparison.Ordinal));
     }
 
     [Fact]

@@ -166,4 +166,89 @@ public class TimerUnwrapperTests
         Assert.False(new TimerUnwrapper(64).WrapsTooFast(1e15));
         Assert.Equal(18446744073709551616.0, new TimerUnwrapper(64).WrapTicks);
     }
+
+    /// <summary>
+    /// Two swapped rows on a 32-bit timer: the later value comes first, so the earlier one lies one period
+    /// below it. Taken as a forward step it would be a wrap of 2^32 - 1000 ticks (53.7 s at 80 MHz); with
+    /// the running period known it is a backward step, rejected with its distance, and the state is kept.
+    /// </summary>
+    [Theory]
+    [InlineData(24)]
+    [InlineData(32)]
+    public void A_small_step_back_is_rejected_as_backward_once_the_interval_is_known(int bits)
+    {
+        ulong wrap = 1UL << bits;
+        var u = new TimerUnwrapper(bits) { ExpectedIntervalTicks = 1000 };
+        Assert.True(u.TryUnwrap(wrap - 500, out _));
+        Assert.True(u.TryUnwrap(1500, out long t1));          // crosses the wrap forwards: 2000 ticks
+        Assert.Equal(2000, t1);
+        Assert.False(u.TryUnwrap(500, out long kept));        // 1000 ticks back
+        Assert.Equal(2000, kept);
+        Assert.Equal(1000, u.LastBackwardTicks);
+        Assert.Equal(1, u.BackwardSteps);
+        Assert.Equal(1, u.Rejected);
+        Assert.True(u.TryUnwrap(2500, out long t2));          // the next good row follows the last good one
+        Assert.Equal(3000, t2);
+        Assert.Equal(0, u.LastBackwardTicks);
+        Assert.Equal(1, u.Wraps);
+    }
+
+    [Fact]
+    public void A_long_forward_gap_stays_a_forward_step_and_the_check_is_off_without_an_interval()
+    {
+        // 8 expected intervals back is still a backward step; 9 (or a gap that is nearer forwards) is a forward gap.
+        ulong wrap = 1UL << 32;
+        var u = new TimerUnwrapper(32) { ExpectedIntervalTicks = 1000 };
+        Assert.True(u.TryUnwrap(100_000, out _));
+        Assert.False(u.TryUnwrap(100_000 - 8000, out _));
+        Assert.Equal(8000, u.LastBackwardTicks);
+        Assert.True(u.TryUnwrap(100_000 - 9000, out long gap));   // a gap of 2^32 - 9000 ticks forwards
+        Assert.Equal((long)wrap - 9000, gap);
+        Assert.True(u.TryUnwrap(100_000 + 3_000_000_000UL - 9000, out long half)); // 3e9 forwards, nearer than backwards
+        Assert.Equal((long)wrap - 9000 + 3_000_000_000L, half);
+
+        var off = new TimerUnwrapper(32);
+        Assert.True(off.TryUnwrap(100_000, out _));
+        Assert.True(off.TryUnwrap(99_000, out long wrapped));     // no interval known: a forward wrap, as before
+        Assert.Equal((long)wrap - 1000, wrapped);
+    }
+
+    [Fact]
+    public void In_a_fast_wrapping_timer_the_nearer_reading_wins()
+    {
+        // 16-bit timer, interval 14464 ticks (4.5 per wrap): every ordinary step is nearer forwards than
+        // backwards, so none is rejected even though 8 intervals exceed the wrap.
+        var u = new TimerUnwrapper(16) { ExpectedIntervalTicks = 14464 };
+        ulong raw = 0;
+        Assert.True(u.TryUnwrap(raw, out _));
+        for (int i = 1; i <= 100; i++)
+        {
+            raw = (raw + 14464) & 0xFFFF;
+            Assert.True(u.TryUnwrap(raw, out long t));
+            Assert.Equal(14464L * i, t);
+        }
+
+        Assert.Equal(0, u.BackwardSteps);
+    }
+
+    [Fact]
+    public void A_count_that_falls_back_a_little_is_a_backward_step()
+    {
+        var counts = new TimerUnwrapper(16, true) { ExpectedIntervalTicks = 100 };
+        Assert.True(counts.TryUnwrap(1000, out _));
+        Assert.True(counts.TryUnwrap(1000, out _));            // unchanged count: fine
+        Assert.False(counts.TryUnwrap(990, out _));            // 10 counts back
+        Assert.Equal(10, counts.LastBackwardTicks);
+        Assert.True(counts.TryUnwrap(1100, out long c));
+        Assert.Equal(100, c);
+    }
+
+    [Fact]
+    public void The_fast_wrap_warning_says_the_frequency_may_be_aliased()
+    {
+        var u = new TimerUnwrapper(16);
+        Assert.True(u.TryGetWrapWarning(14464, out string? w));
+        Assert.Contains("the frequency may be aliased", w);
+        Assert.Contains("search_hz", w);
+    }
 }

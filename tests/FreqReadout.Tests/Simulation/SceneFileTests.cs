@@ -111,4 +111,64 @@ public class SceneFileTests
         Assert.True(MaterialPresets.TryGet("steel", 250, out Material s));
         Assert.Equal(250, s.RelativePermeability);
     }
+
+    [Theory]
+    [InlineData("{\n  \"coil\": {\n    \"turns\": \"many\"\n  }\n}", "s.json:3: coil.turns: expected a whole number, found the text 'many'")]
+    [InlineData("{ \"coil\": { \"turns\": 4.5 } }", "s.json:1: coil.turns: expected a whole number, found the number 4.5")]
+    [InlineData("{ \"coil\": { \"turns\": 99999999999 } }", "s.json:1: coil.turns: expected a whole number of a size the setting can hold, found the number 99999999999")]
+    [InlineData("{\n \"targets\": { \"name\": \"pipe\" }\n}", "s.json:2: targets: expected a list [ ... ], found an object { ... }")]
+    [InlineData("{ \"targets\": [ {}, { \"shape\": \"cube\" } ] }", "s.json:1: targets[1].shape: expected one of \"sphere\", \"pipe\", found the text 'cube'")]
+    [InlineData("{ \"hardware\": null }", "s.json:1: hardware: expected an object { ... } (or leave the key out for its default), found null")]
+    [InlineData("{ \"sweep\": { \"alternate\": \"yes\" } }", "s.json:1: sweep.alternate: expected true or false, found the text 'yes'")]
+    [InlineData("{ \"seed\": \"1\" }", "s.json:1: seed: expected a whole number, found the text '1'")]
+    [InlineData("[ 1, 2 ]", "s.json:1: the scene: expected an object { ... }, found a list of 2 items")]
+    [InlineData("{\n\n  \"coil\": { \"turn\": 5 } }", "s.json:3: coil.turn: unknown key 'turn'; expected one of turns, mean_diameter_m, winding_length_m, winding_depth_m, wire_diameter_m, inductance_model in coil")]
+    [InlineData("{ \"coil\": { \"turns\": 5 ", "s.json:1: not a valid scene file (JSON, see host/Scenes/README.md): the file ends inside an object or a list: a closing } or ] is missing")]
+    public void Json_errors_name_the_file_line_path_expectation_and_finding_without_dotnet_names(string json, string expected)
+    {
+        var ex = Assert.Throws<SceneException>(() => Scene.Parse(json, "s.json"));
+        Assert.Equal(expected, ex.Message);
+        foreach (string internals in new[] { "System.", "`1", ".NET", "could not be mapped", "Expected depth", "JsonTypeInfo" })
+        {
+            Assert.DoesNotContain(internals, ex.Message);
+        }
+    }
+
+    [Fact]
+    public void A_line_break_in_the_name_is_reported_as_name()
+    {
+        var ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"name\": \"floor\\nscan\" }", "n.json"));
+        Assert.Equal("n.json: name must be one line of text (no line breaks or control characters) (got 'floor\\nscan')", ex.Message);
+        ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"targets\": [ { \"name\": \"a\\tb\" } ] }", "n.json"));
+        Assert.Contains("targets[0].name must be one line of text", ex.Message);
+    }
+
+    [Fact]
+    public void An_oscillator_with_neither_frequency_nor_capacitance_takes_the_default_as_the_readme_says()
+    {
+        var scene = Scene.Parse("{ \"oscillator\": { \"tempco_ppm_per_k\": -5 } }", "o.json");
+        Assert.Equal(100_000, scene.Oscillator.FrequencyHz);
+    }
+
+    [Theory]
+    [InlineData("{ \"hardware\": { \"timer_bits\": 16, \"clock_hz\": 80000000 }, \"oscillator\": { \"frequency_hz\": 1000 } }", "hardware.timer_bits = 16 cannot time this signal: the search oscillator at 1000 Hz gives recorded edges 80000 ticks apart")]
+    [InlineData("{ \"hardware\": { \"kind\": \"snapshots\", \"count_bits\": 16, \"snapshot_interval_s\": 0.01 }, \"oscillator\": { \"frequency_hz\": 10000000 } }", "hardware.count_bits = 16 cannot count this signal")]
+    [InlineData("{ \"hardware\": { \"kind\": \"snapshots\", \"timer_bits\": 16, \"clock_hz\": 80000000 } }", "hardware.timer_bits = 16 cannot time the snapshot reads")]
+    public void A_scene_whose_capture_would_be_aliased_is_refused(string json, string expected)
+    {
+        var scene = Scene.Parse(json, "a.json");
+        var ex = Assert.Throws<SceneException>(() => new SceneModel(scene, "a.json"));
+        Assert.StartsWith("a.json: " + expected, ex.Message);
+    }
+
+    [Theory]
+    [InlineData("{ \"targets\": [ { \"position_m\": 1e308 } ] }", "targets[0].position_m must be in [-10000, 10000] m (got 1E+308)")]
+    [InlineData("{ \"oscillator\": { \"coil_ppm_per_k\": 1e308 } }", "oscillator.coil_ppm_per_k must be in [-10000, 10000] ppm/K")]
+    [InlineData("{ \"temperature\": { \"kind\": \"settling\", \"time_constant_s\": 1e308 } }", "temperature.time_constant_s must be in (0, 1e6] s")]
+    [InlineData("{ \"sweep\": { \"end_m\": 1e308 } }", "sweep.start_m / sweep.end_m must be in [-10000, 10000] m and different")]
+    public void Every_scene_number_has_a_physical_range(string json, string expected)
+    {
+        var ex = Assert.Throws<SceneException>(() => Scene.Parse(json, "r.json"));
+        Assert.Contains(expected, ex.Message);
+    }
 }

@@ -143,13 +143,13 @@ public class SimulationCommandTests
     public void Simulate_Errors_NameTheFileOrOption()
     {
         var r = RunCli("simulate", "--scene", "/nonexistent/scene.json", "--out", "x.csv", "--quiet");
-        Assert.Equal(2, r.Code);
+        Assert.Equal(1, r.Code); // a file that cannot be read is a data problem (docs/exit-codes.md); an option's value a usage problem
         Assert.Contains("/nonexistent/scene.json: cannot read the scene file", r.Err);
         r = RunCli("simulate", "--demo", "--duration-s", "-4", "--out", "x.csv", "--quiet");
         Assert.Equal(2, r.Code);
         Assert.Contains("--duration-s must be in (0, 604800] s (got -4)", r.Err);
         r = RunCli("simulate", "--demo", "--kind", "waves", "--out", "x.csv");
         Assert.Equal(2, r.Code);
-        Assert.Contains("--kind must be edges or snapshots (got waves)", r.Err);
+        Assert.Contains("--kind must be edges or snapshots (got 'waves')", r.Err);
     }
 }
