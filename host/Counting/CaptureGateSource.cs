@@ -30,6 +30,7 @@ public sealed class CaptureGateSource
     private readonly ICaptureReader _reader;
     private readonly List<string> _warnings = new();
     private readonly List<string> _unassignedMarks = new();
+    private readonly ConsecutiveGateScatter _scatter = new();
     private bool _started;
 
     /// <summary>Prepares a replay.</summary>
@@ -112,6 +113,9 @@ public sealed class CaptureGateSource
             GlitchFraction = options.GlitchFraction,
             DropoutPeriods = options.DropoutPeriods,
             NoSignalSeconds = options.NoSignalSeconds,
+            InferMissedEdges = options.InferMissedEdges,
+            InferMinBeatHz = options.InferMinBeatHz,
+            MainsHz = options.MainsHz,
         };
     }
 
@@ -135,7 +139,7 @@ public sealed class CaptureGateSource
         var counter = new EdgeCounter(Settings);
         var scratch = new GateResult();
         long timeoutTicks = Math.Max(1, (long)Math.Ceiling(Settings.NoSignalSeconds * Settings.ClockHz));
-        var pending = new Pending();
+        var pending = new Pending(_scatter);
         bool haveLast = false;
         long lastTick = 0;
         bool wrapChecked = md.TimerBits >= 64;
@@ -193,7 +197,7 @@ public sealed class CaptureGateSource
         var counts = new TimerUnwrapper(md.CountBits, true);
         var counter = new SnapshotCounter(Settings);
         var scratch = new GateResult();
-        var pending = new Pending();
+        var pending = new Pending(_scatter);
         bool wrapChecked = md.TimerBits >= 64 && md.CountBits >= 64;
         foreach (var row in _reader.ReadRows())
         {
@@ -264,9 +268,15 @@ public sealed class CaptureGateSource
     /// <summary>Temperatures and marks of the rows since the last reported gate.</summary>
     private sealed class Pending
     {
+        private readonly ConsecutiveGateScatter _scatter;
         private double _sum;
         private int _n;
         private double? _latest;
+
+        public Pending(ConsecutiveGateScatter scatter)
+        {
+            _scatter = scatter;
+        }
 
         public List<string> Marks { get; private set; } = new();
 
@@ -291,7 +301,8 @@ public sealed class CaptureGateSource
             var gate = new GateResult();
             gate.CopyFrom(filled);
             double? mean = _n > 0 ? _sum / _n : null;
-            var result = new CaptureGate(gate, mean, _latest, Marks.Count > 0 ? Marks : null, line);
+            double? scatter = _scatter.Add(gate);
+            var result = new CaptureGate(gate, mean, _latest, Marks.Count > 0 ? Marks : null, line, scatter);
             _sum = 0;
             _n = 0;
             if (Marks.Count > 0)
