@@ -27,7 +27,7 @@ public class CounterOptionSettings : CommandSettings
     public string? Estimator { get; set; }
 
     [CommandOption("--jitter-ticks <TICKS>")]
-    [Description("Timestamp jitter, rms ticks (>= 0), added to the quantisation in the error model. Default 0.")]
+    [Description("Timestamp jitter, rms ticks (>= 0), for the error model: it adds to the timer's quantisation and, below about 1 tick, decides how far that quantisation is a fixed pattern (error_hz then covers the pattern's worst phase at the gate's frequency ratio, a conservative 1-sigma figure). Default 0.")]
     public string? JitterTicks { get; set; }
 
     [CommandOption("--no-signal-seconds <SECONDS>")]

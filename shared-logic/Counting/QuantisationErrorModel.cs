@@ -224,6 +224,12 @@ namespace FreqReadout.Counting
                 stepFraction = 0;
             }
 
+            if (_firstDecay < 1e-12)
+            {
+                // Dither above 0.84 quanta (exp(-4 pi^2 J^2) below 1e-12): the deterministic part is negligible.
+                return _harmonicPowerTotal / sxx;
+            }
+
             // nu_m comes from the gate's own estimate of p; take the largest gain within reach of it:
             // 1.5 / N (see the class notes) plus m times 3 sigma of the white part.
             double bound = _peak * ScalarMath.Floor(0.25 * n * n) / sxx;
@@ -286,7 +292,7 @@ namespace FreqReadout.Counting
         {
             double lo = 0;
             double hi = 0.5;
-            for (int k = 0; k < 60; k++)
+            for (int k = 0; k < 40; k++)
             {
                 double mid = 0.5 * (lo + hi);
                 double s = ScalarMath.SinPi(mid);
