@@ -61,6 +61,8 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
                 return CommandOutput.Fail(readoutError!, CommandOutput.BadOption);
             }
 
+            ReadoutCommandSettings.ApplyBeatFloor(options, readout);
+
             // The fit needs the uncompensated frequencies; and a temperature step must not hide as a long
             // "target": unless told otherwise, a shift lasting longer than a coil pass is re-baselined soon.
             readout.TempcoPpmPerK = 0;

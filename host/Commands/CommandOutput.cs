@@ -34,9 +34,12 @@ public static class CommandOutput
     /// <summary>A Spectre console writing to the current <see cref="Console.Error"/> (progress and status displays).</summary>
     public static IAnsiConsole Stderr()
     {
+        // Progress and status displays are only started when ErrorIsTerminal says so: render them live then.
         return AnsiConsole.Create(new AnsiConsoleSettings
         {
             Out = new AnsiConsoleOutput(Console.Error),
+            Interactive = ErrorIsTerminal() ? InteractionSupport.Yes : InteractionSupport.Detect,
+            Ansi = ErrorIsTerminal() ? AnsiSupport.Yes : AnsiSupport.Detect,
         });
     }
 

@@ -12,7 +12,8 @@ namespace FreqReadout.Host.Commands;
 
 /// <summary>
 /// <c>freqreadout count &lt;capture&gt;</c>: the capture's metadata, then a gate-by-gate table (time,
-/// frequency, shift from the first gate, edges, estimator error, state), or with <c>--json</c> one
+/// frequency, shift from the first gate, edges, predicted error, measured scatter of consecutive gates,
+/// state with the edges inferred as missed), or with <c>--json</c> one
 /// JSON object per gate (keys fixed in PRODUCT.md, "Machine-readable output"). Text or binary
 /// captures, picked by content. Warnings and errors go to stderr.
 /// </summary>
@@ -20,6 +21,9 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 {
     /// <summary>Table rows rendered per table block (the table streams in blocks on long captures).</summary>
     public const int RowsPerTable = 1000;
+
+    /// <summary>Line length of the table when stdout is a file or pipe (7 columns and a state with marks do not fit in 80).</summary>
+    public const int RedirectedWidth = 120;
 
     public sealed class Settings : CounterOptionSettings
     {
@@ -29,7 +33,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         public string Capture { get; set; } = string.Empty;
 
         [CommandOption("--json")]
-        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz (counted signal), search_shift_hz (search oscillator, beat side applied), edges, error_hz, estimator, state.")]
+        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz (counted signal), search_shift_hz (search oscillator, beat side applied), edges, error_hz, estimator, state, start_s, glitches, inferred_edges, scatter_hz (measured scatter of consecutive gates, null until two).")]
         public bool Json { get; set; }
     }
 
@@ -153,6 +157,8 @@ public sealed class CountCommand : Command<CountCommand.Settings>
                 json.WriteString("state", StateName(gate.State));
                 json.WriteNumber("start_s", gate.StartSeconds);
                 json.WriteNumber("glitches", gate.Glitches);
+                json.WriteNumber("inferred_edges", gate.InferredEdges);
+                WriteNullable(json, "scatter_hz", item.ScatterHz);
                 if (hasTemp)
                 {
                     WriteNullable(json, "temp_c", item.TemperatureC);
@@ -195,11 +201,15 @@ public sealed class CountCommand : Command<CountCommand.Settings>
     private static long WriteTable(CaptureGateSource source, CaptureFileFormat format, CancellationToken cancellationToken)
     {
         var console = CommandOutput.Stdout();
+        if (Console.IsOutputRedirected && console.Profile.Width < RedirectedWidth)
+        {
+            // A file or pipe has no line length to fit: keep each gate's row on one line.
+            console.Profile.Width = RedirectedWidth;
+        }
+
         CaptureMetadataView.Write(console, source.Reader, format);
         var s = source.Settings;
-        string gateText = s.Mode == GateMode.Edges
-            ? $"{s.GateEdges} recorded intervals"
-            : $"{Num(s.GateSeconds)} s";
+        string gateText = GateText(s);
         console.WriteLine($"gate {gateText}, estimator {EstimatorName(s.Estimator)}, jitter {Num(s.JitterTicks)} ticks rms; frequencies of the {(s.Signal == SignalKind.Beat ? "beat note" : "search oscillator")} before the prescaler");
         bool beat = s.Signal == SignalKind.Beat;
         if (beat)
@@ -240,7 +250,10 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
                 cells.Add(new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)));
                 cells.Add(new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"));
-                cells.Add(new Text(StateName(gate.State) + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
+                cells.Add(new Text(item.ScatterHz is double scatter ? Num(scatter, "0.000E+0") : "-"));
+                cells.Add(new Text(StateName(gate.State)
+                    + (gate.InferredEdges > 0 ? $", {gate.InferredEdges} inferred" : string.Empty)
+                    + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
                 table.AddRow(cells);
                 gates++;
                 if (gate.HasFrequency)
@@ -270,6 +283,26 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         return gates;
     }
 
+    /// <summary>
+    /// The gate as set: "N periods", "T s", or with --mains-hz the nulling length, e.g.
+    /// "0.089548 s (4.4774 periods of 50 Hz mains, asked 0.1 s)".
+    /// </summary>
+    public static string GateText(CounterSettings s)
+    {
+        if (s.Mode == GateMode.Edges)
+        {
+            return $"{s.GateEdges} periods";
+        }
+
+        if (!(s.MainsHz > 0))
+        {
+            return $"{Num(s.GateSeconds)} s";
+        }
+
+        double seconds = MainsGate.GateSecondsFor(s.GateSeconds, s.MainsHz, s.Estimator);
+        return $"{Num(seconds, "0.######")} s ({Num(seconds * s.MainsHz, "0.####")} periods of {Num(s.MainsHz)} Hz mains, asked {Num(s.GateSeconds)} s)";
+    }
+
     private static Table NewTable(bool beat)
     {
         var table = new Table().Border(TableBorder.Simple);
@@ -283,6 +316,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
         table.AddColumn(new TableColumn("edges").RightAligned());
         table.AddColumn(new TableColumn("error Hz").RightAligned());
+        table.AddColumn(new TableColumn("scatter Hz").RightAligned());
         table.AddColumn(new TableColumn("state"));
         return table;
     }

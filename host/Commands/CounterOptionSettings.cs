@@ -7,7 +7,8 @@ namespace FreqReadout.Host.Commands;
 
 /// <summary>
 /// The counting options every command that replays a capture offers (<c>count</c>, <c>replay</c>):
-/// gate length, estimator, timestamp jitter and no-signal timeout. Derive a command's settings from
+/// gate length, estimator, timestamp jitter, no-signal timeout, mains-nulling gates and missed-edge
+/// inference. Derive a command's settings from
 /// this class and call <see cref="BuildOptions"/>; clock, prescale and signal come from the capture
 /// (see <c>CaptureGateSource</c>).
 /// </summary>
@@ -26,12 +27,20 @@ public class CounterOptionSettings : CommandSettings
     public string? Estimator { get; set; }
 
     [CommandOption("--jitter-ticks <TICKS>")]
-    [Description("Timestamp jitter, rms ticks, [[0, 1e9]], added to the quantisation in the error model. Default 0.")]
+    [Description("Timestamp jitter, rms ticks, [[0, 1e9]], for the error model: it adds to the timer's quantisation and, below about 1 tick, decides how far that quantisation is a fixed pattern (error_hz then covers the pattern's worst phase at the gate's frequency ratio, a conservative 1-sigma figure). Default 0.")]
     public string? JitterTicks { get; set; }
 
     [CommandOption("--no-signal-seconds <SECONDS>")]
     [Description("No edge within this many seconds reports no_signal, [[0.001, 3600]] and at least 3 periods of the capture's recorded edges. Default 0.5 (lengthened, with a warning, for a slower signal).")]
     public string? NoSignalSeconds { get; set; }
+
+    [CommandOption("--mains-hz <HZ>")]
+    [Description("Mains frequency to null, 50 or 60 (any of 10..1000): a readout near live wiring sees its frequency modulation. Time gates are set to the nearest length that cancels a sinusoidal modulation at this frequency: whole mains periods for reciprocal, 1.4303, 2.4590, 3.4709, ... periods (the roots of tan z = z over pi) for regression and snapshot gates, whose least-squares weighting is a parabola. Not with --gate-edges. Default off.")]
+    public string? MainsHz { get; set; }
+
+    [CommandOption("--no-infer-edges")]
+    [Description("Do not infer missed edges. By default an interval within a quarter period of 2..8 running periods counts as the periods it spans (the gate reports the edges it inferred); in beat mode only while the beat is at least 4 x the beat floor.")]
+    public bool NoInferEdges { get; set; }
 
     /// <summary>Builds the counter options from the command-line settings; null with an error naming the option and its range.</summary>
     public CounterSettings? BuildOptions(out string? error)
@@ -104,6 +113,24 @@ public class CounterOptionSettings : CommandSettings
             options.NoSignalSeconds = noSignal;
         }
 
+        if (MainsHz != null)
+        {
+            if (!OptionValues.TryNumber(MainsHz, out double mains) || !(mains >= MainsGate.MinMainsHz && mains <= MainsGate.MaxMainsHz))
+            {
+                error = $"--mains-hz must be a number from {MainsGate.MinMainsHz:0} to {MainsGate.MaxMainsHz:0} Hz (50 or 60 for the public supply), got '{MainsHz}'";
+                return null;
+            }
+
+            if (options.Mode == GateMode.Edges)
+            {
+                error = "--mains-hz sets the length of time gates; it does not go with --gate-edges";
+                return null;
+            }
+
+            options.MainsHz = mains;
+        }
+
+        options.InferMissedEdges = !NoInferEdges;
         return options;
     }
 

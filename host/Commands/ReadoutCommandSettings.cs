@@ -233,6 +233,15 @@ public class ReadoutCommandSettings : CounterOptionSettings
         return ignored.Count == 0 ? report : report with { Warnings = report.Warnings.Concat(ignored).ToList() };
     }
 
+    /// <summary>
+    /// Missed-edge inference stops near the beat floor: sets <see cref="CounterSettings.InferMinBeatHz"/>
+    /// to <see cref="CounterSettings.InferBeatFloorFactor"/> x the readout's beat floor.
+    /// </summary>
+    public static void ApplyBeatFloor(CounterSettings options, ReadoutSettings readout)
+    {
+        options.InferMinBeatHz = CounterSettings.InferBeatFloorFactor * readout.BeatFloorHz;
+    }
+
     /// <summary>Invariant number text.</summary>
     protected static string Num(double value, string format = "0.######") => value.ToString(format, CultureInfo.InvariantCulture);
 }

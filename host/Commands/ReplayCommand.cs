@@ -30,7 +30,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     public sealed class Settings : ReadoutCommandSettings
     {
         [CommandOption("--readings <FILE>")]
-        [Description("Also write the gate-by-gate readings as CSV.")]
+        [Description("Also write the gate-by-gate readings as CSV (ending with error_hz, the gate's predicted error; scatter_hz, the measured scatter of consecutive gates; inferred_edges).")]
         [FilePath]
         public string? ReadingsFile { get; set; }
 
@@ -99,6 +99,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 return CommandOutput.Fail(readoutError!, CommandOutput.BadOption);
             }
 
+            ReadoutCommandSettings.ApplyBeatFloor(options, readout);
             int sourceExit = CommandOutput.TryCreateGateSource(reader, options, settings, readout.SearchHz > 0 ? readout.SearchHz : null, out CaptureGateSource? created);
             if (created == null)
             {
@@ -300,7 +301,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         }
     }
 
-    private const string ReadingsHeader = "time_s,state,frequency_hz,baseline_hz,shift_hz,shift_ppm,shift_sigma,noise_hz,drift_hz_per_s,temp_correction_hz,temp_c,target,hold,below_beat_floor,class,marks";
+    private const string ReadingsHeader = "time_s,state,frequency_hz,baseline_hz,shift_hz,shift_ppm,shift_sigma,noise_hz,drift_hz_per_s,temp_correction_hz,temp_c,target,hold,below_beat_floor,class,marks,error_hz,scatter_hz,inferred_edges";
     private const string EventsHeader = "start_s,end_s,peak_s,peak_shift_hz,peak_shift_ppm,peak_sigma,noise_hz,class,end,start_utc";
 
     private static StreamWriter OpenCsv(string path, string header)
@@ -338,7 +339,10 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             r.HoldActive ? "1" : "0",
             r.BelowBeatFloor ? "1" : "0",
             r.TargetPresent ? ReplayEvent.ClassText(r.Class) : string.Empty,
-            string.Join(" ", g.Marks));
+            string.Join(" ", g.Marks),
+            g.Gate.HasFrequency ? N(g.Gate.ErrorHz) : string.Empty,
+            g.ScatterHz is double scatter ? N(scatter) : string.Empty,
+            g.Gate.InferredEdges.ToString(CultureInfo.InvariantCulture));
     }
 
     private static string EventRow(ReplayEvent e)
@@ -368,7 +372,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         grid.AddRow("signal", report.Signal == SignalKind.Beat ? $"beat ({(readout.BeatSide == FreqReadout.Counting.BeatSide.Above ? "search above reference" : "search below reference")})" : "search oscillator");
         grid.AddRow("edges", report.Edges.ToString(CultureInfo.InvariantCulture));
         grid.AddRow("duration", N(report.DurationSeconds, "0.000") + " s");
-        grid.AddRow("gates", $"{report.Gates} ({(s.Mode == GateMode.Edges ? s.GateEdges + " intervals" : N(s.GateSeconds) + " s")}, {CountCommand.EstimatorName(s.Estimator)})");
+        grid.AddRow("gates", $"{report.Gates} ({Markup.Escape(CountCommand.GateText(s))}, {CountCommand.EstimatorName(s.Estimator)})");
         grid.AddRow("baseline", N(report.BaselineHz, "0.000") + " Hz (first captured, counted signal)");
         grid.AddRow("noise", $"{N(report.NoiseHz, "0.0000")} Hz, {N(report.NoisePpm, "0.000")} ppm (robust sigma of target-free residuals)");
         grid.AddRow("drift", N(report.DriftHzPerMinute, "0.0000") + " Hz/min (least-squares slope of the tracked baseline)");

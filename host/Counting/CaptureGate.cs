@@ -11,8 +11,9 @@ public readonly struct CaptureGate
 {
     private static readonly string[] NoMarks = Array.Empty<string>();
 
-    public CaptureGate(GateResult gate, double? temperatureC, double? latestTemperatureC, IReadOnlyList<string>? marks, long lastLineNumber)
+    public CaptureGate(GateResult gate, double? temperatureC, double? latestTemperatureC, IReadOnlyList<string>? marks, long lastLineNumber, double? scatterHz = null)
     {
+        ScatterHz = scatterHz;
         Gate = gate;
         TemperatureC = temperatureC;
         LatestTemperatureC = latestTemperatureC;
@@ -31,6 +32,13 @@ public readonly struct CaptureGate
 
     /// <summary>The marks of the rows in this gate, in row order (<c>rebaseline</c>, <c>hold</c>, <c>release</c> or free text); empty when none.</summary>
     public IReadOnlyList<string> Marks { get; }
+
+    /// <summary>
+    /// Measured scatter of consecutive gates up to this one, Hz (see <see cref="ConsecutiveGateScatter"/>):
+    /// what the frequency really did from gate to gate, beside the predicted <see cref="GateResult.ErrorHz"/>.
+    /// Null until two consecutive gates with a frequency. Informational only: it never feeds the detection sigma.
+    /// </summary>
+    public double? ScatterHz { get; }
 
     /// <summary>Line (text) or row ordinal (binary) of the last row fed before this gate was reported, for messages.</summary>
     public long LastLineNumber { get; }

@@ -49,6 +49,7 @@ public sealed class CaptureGateSource
     private bool _rowsEnded;
     private double _headIntervalTicks;
     private double _headCountsPerRead;
+    private readonly ConsecutiveGateScatter _scatter = new();
     private bool _started;
 
     /// <summary>Prepares a replay.</summary>
@@ -420,6 +421,9 @@ public sealed class CaptureGateSource
             GlitchFraction = options.GlitchFraction,
             DropoutPeriods = options.DropoutPeriods,
             NoSignalSeconds = options.NoSignalSeconds,
+            InferMissedEdges = options.InferMissedEdges,
+            InferMinBeatHz = options.InferMinBeatHz,
+            MainsHz = options.MainsHz,
         };
     }
 
@@ -444,7 +448,7 @@ public sealed class CaptureGateSource
         var scratch = new GateResult();
         long lastFedLine = 0;
         long timeoutTicks = Math.Max(1, (long)Math.Ceiling(Settings.NoSignalSeconds * Settings.ClockHz));
-        var pending = new Pending();
+        var pending = new Pending(_scatter);
         bool haveLast = false;
         long lastTick = 0;
         bool wrapChecked = md.TimerBits >= 64;
@@ -508,7 +512,7 @@ public sealed class CaptureGateSource
         var counter = new SnapshotCounter(Settings);
         var scratch = new GateResult();
         long lastFedLine = 0;
-        var pending = new Pending();
+        var pending = new Pending(_scatter);
         bool wrapChecked = md.TimerBits >= 64 && md.CountBits >= 64;
         foreach (var row in Rows())
         {
@@ -609,9 +613,15 @@ public sealed class CaptureGateSource
     /// <summary>Temperatures and marks of the rows since the last reported gate.</summary>
     private sealed class Pending
     {
+        private readonly ConsecutiveGateScatter _scatter;
         private double _sum;
         private int _n;
         private double? _latest;
+
+        public Pending(ConsecutiveGateScatter scatter)
+        {
+            _scatter = scatter;
+        }
 
         public List<string> Marks { get; private set; } = new();
 
@@ -636,7 +646,8 @@ public sealed class CaptureGateSource
             var gate = new GateResult();
             gate.CopyFrom(filled);
             double? mean = _n > 0 ? _sum / _n : null;
-            var result = new CaptureGate(gate, mean, _latest, Marks.Count > 0 ? Marks : null, line);
+            double? scatter = _scatter.Add(gate);
+            var result = new CaptureGate(gate, mean, _latest, Marks.Count > 0 ? Marks : null, line, scatter);
             _sum = 0;
             _n = 0;
             if (Marks.Count > 0)

@@ -42,6 +42,7 @@ public static class DemoRun
         {
             ReadoutSettings readout = defaults.BuildReadoutSettings(reader.Metadata, out string? readoutError)
                 ?? throw new InvalidOperationException("default readout settings invalid: " + readoutError);
+            ReadoutCommandSettings.ApplyBeatFloor(options, readout);
             var source = new CaptureGateSource(reader, options);
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
             report = session.Run(source, cancellationToken);

@@ -55,6 +55,34 @@ namespace FreqReadout.Counting
         public double NoSignalSeconds { get; set; } = 0.5;
 
         /// <summary>
+        /// Missed-edge inference (edges only): an interval within a quarter period of m running periods
+        /// (m = 2..8) counts as the m periods it spans instead of one long interval (see
+        /// <see cref="EdgeCounter"/>). Default on.
+        /// </summary>
+        public bool InferMissedEdges { get; set; } = true;
+
+        /// <summary>
+        /// Beat mode only: no missed-edge inference while the running beat frequency (before the
+        /// prescaler) is below this, Hz (&gt;= 0). Near the beat floor the two oscillators pull toward
+        /// lock and the beat period really can change by a large factor within a few periods, so an
+        /// interval of about two periods may be a real one. Default 200 Hz: four times the readout's
+        /// default beat floor of 50 Hz (a rule of thumb, common practice, no source); hosts that take
+        /// a beat floor set it to <see cref="InferBeatFloorFactor"/> x that floor.
+        /// </summary>
+        public double InferMinBeatHz { get; set; } = InferBeatFloorFactor * 50.0;
+
+        /// <summary>The factor between the beat floor and <see cref="InferMinBeatHz"/> that hosts use (4).</summary>
+        public const double InferBeatFloorFactor = 4.0;
+
+        /// <summary>
+        /// Mains frequency whose frequency modulation a time gate should cancel, Hz: 0 = off (default),
+        /// else 10..1000 (50 or 60 for the public supply). The time gate is then set to the length that
+        /// nulls a sinusoidal modulation at this frequency for the estimator in use, nearest to
+        /// GateSeconds (see <see cref="MainsGate"/>). Ignored for edge gates.
+        /// </summary>
+        public double MainsHz { get; set; }
+
+        /// <summary>
         /// Checks every setting against its allowed range.
         /// </summary>
         /// <param name="error">The first bad setting, named with its allowed range; null when all are valid.</param>
@@ -107,6 +135,18 @@ namespace FreqReadout.Counting
             if (!(NoSignalSeconds >= MinNoSignalSeconds && NoSignalSeconds <= MaxNoSignalSeconds))
             {
                 error = "no-signal seconds must be in [0.001, 3600] s";
+                return false;
+            }
+
+            if (!(InferMinBeatHz >= 0) || double.IsInfinity(InferMinBeatHz))
+            {
+                error = "infer min beat hz must be a finite number >= 0";
+                return false;
+            }
+
+            if (!(MainsHz == 0 || (MainsHz >= MainsGate.MinMainsHz && MainsHz <= MainsGate.MaxMainsHz)))
+            {
+                error = "mains hz must be 0 (off) or from 10 to 1000 (50 or 60 for the public supply)";
                 return false;
             }
 

@@ -7,45 +7,66 @@ namespace FreqReadout.Counting
     /// and closes on an edge, so there is no +-1 count error).
     /// <para>
     /// Gates share their boundary edge: the closing edge of one gate opens the next. A time gate
-    /// closes on the first accepted edge at or after GateSeconds from its opening edge; an edge gate
-    /// after GateEdges recorded intervals. Time 0 is the first accepted edge. A gate also closes
-    /// after <see cref="MaxGateIntervals"/> intervals whatever the mode, which keeps the integer
-    /// sums in range.
+    /// closes on the first accepted edge at or after GateSeconds from its opening edge (with MainsHz set,
+    /// after the mains-nulling length of <see cref="MainsGate"/> instead); an edge gate after GateEdges
+    /// periods. Time 0 is the first accepted edge. A gate also closes after
+    /// <see cref="MaxGateIntervals"/> periods whatever the mode, which keeps the integer sums in range.
     /// </para>
     /// <para>
-    /// Both estimators use the same N edges t_0..t_{N-1} of a gate, indexed 0..N-1 in order of
-    /// acceptance. Residuals against an integer nominal period P0 (the rounded running period when
-    /// the gate's second edge arrives): r_i = t_i - t_0 - i P0, summed as 64-bit integers
-    /// S_r = sum r_i and S_ir = sum i r_i; they stay small (about i |P - P0| plus jitter), so
-    /// nothing overflows or loses precision after 2^32 ticks or hours of capture. When a residual
-    /// exceeds 2^21 ticks, P0 is moved by d = r_i / i and the sums are corrected exactly
-    /// (S_r -= d sum i, S_ir -= d sum i^2). Only at gate close, in double:
-    /// reciprocal period = P0 + r_{N-1} / (N - 1);
-    /// regression period = P0 + 6 (2 S_ir - (N - 1) S_r) / (N (N^2 - 1)) (least-squares slope of t on i);
+    /// Both estimators use the same n edges of a gate, each with its true period index i from the
+    /// gate's opening edge (i_0 = 0; consecutive edges differ by 1, or by m where m - 1 edges were
+    /// inferred as missed, see below). Residuals against an integer nominal period P0 (the rounded
+    /// running period when the gate's second edge arrives): r = t_i - t_0 - i P0, summed as 64-bit
+    /// integers with the indices: S_r = sum r, S_ir = sum i r, S_i = sum i, S_ii = sum i^2; they stay
+    /// small (about i |P - P0| plus jitter), so nothing overflows or loses precision after 2^32 ticks
+    /// or hours of capture. When a residual exceeds 2^21 ticks, P0 is moved by d = r / i and the sums
+    /// are corrected exactly (S_r -= d S_i, S_ir -= d S_ii, over the indices so far). Only at gate
+    /// close, in double, with I the last index:
+    /// reciprocal period = P0 + r_I / I;
+    /// regression period = P0 + (S_ir - S_i S_r / n) / Sxx, Sxx = S_ii - S_i^2 / n = sum (i - mean i)^2
+    /// (least-squares slope of t on i; with no inferred edge, i = 0..n-1 and this is computed as
+    /// 6 (2 S_ir - (n - 1) S_r) / (n (n^2 - 1)), the same slope);
     /// frequency = Prescale x ClockHz / period.
     /// </para>
     /// <para>
-    /// Error model (white timing noise per edge, sigma_x^2 = 1/12 + JitterTicks^2 ticks^2: one-tick
-    /// quantisation plus the configured jitter): reciprocal Var(P) = 2 sigma_x^2 / (N - 1)^2;
-    /// regression Var(P) = 12 sigma_x^2 / (N (N^2 - 1)) (Rubiola 2005; Danielson, Vernotte and Rubiola
-    /// 2016, eq. 21); sigma_f = f sigma_P / P.
+    /// Error model (<see cref="QuantisationErrorModel"/> with the configured JitterTicks as Gaussian
+    /// dither): regression Var(P) = sigma_w^2 / Sxx + the deterministic quantisation part at the gate's
+    /// ratio frac(P) (for white noise of variance sigma_x^2 per edge the least-squares slope with any
+    /// abscissae has Var = sigma_x^2 / sum (i - mean i)^2, which for i = 0..N-1 is
+    /// 12 sigma_x^2 / (N (N^2 - 1)); Rubiola 2005; Danielson, Vernotte and Rubiola 2016, eq. 21);
+    /// reciprocal Var(P) = Var_span / I^2 with the worst-case span variance 2 sigma_w^2 + 2 sum_(m odd) A_m^2
+    /// (1/4 tick^2 without jitter, 2 J^2 + 1/6 with much jitter); sigma_f = f sigma_P / P. With jitter of
+    /// 1 tick rms or more this is the white model, sigma_x^2 = 1/12 + J^2; with less it is a conservative
+    /// 1-sigma figure (see the model's notes).
     /// </para>
     /// <para>
     /// Running period (ticks per recorded edge): the first interval of a run bootstraps it (also after
     /// a no-signal state, after a gap of at least NoSignalSeconds, and after two dropouts in a row);
-    /// then every accepted interval d moves it by (d - P) / 16. Glitch: an interval below
-    /// GlitchFraction x P (or not positive) is a double-triggered edge, rejected and counted; the next
-    /// interval is measured from the last accepted edge. Dropout: an interval above DropoutPeriods x P
-    /// (or at least NoSignalSeconds) closes the gate at the last good edge (a result with state Dropout
-    /// when the gate has at least 2 edges, else none) and the edge after the gap opens the next gate.
-    /// The bootstrap interval itself cannot be checked: a gap seen while the period rests on that one
-    /// interval alone gives no result (it is counted as a dropout) and the period is learnt again, so
-    /// a double trigger on the very first interval never produces a number.
+    /// then every accepted interval d spanning m periods moves it by (d / m - P) / 16. Glitch: an
+    /// interval below GlitchFraction x P (or not positive) is a double-triggered edge, rejected and
+    /// counted; the next interval is measured from the last accepted edge. Missed edges (with
+    /// InferMissedEdges, once the period rests on more than its bootstrap interval, and in beat mode
+    /// only while the running beat is at least InferMinBeatHz): an interval d with
+    /// |d - m P| &lt; P / 4 for a whole m from 2 to <see cref="MaxInferredPeriods"/> (and m at most
+    /// DropoutPeriods) counts as m periods, with m - 1 edges inferred, provided the timing noise allows
+    /// the call: 4 sqrt(2 sigma_x^2 + m^2 sigma_P^2) &lt; P / 4, with sigma_x^2 = 1/12 + J^2 and
+    /// sigma_P^2 = 2 sigma_x^2 / 31 the running period's own variance (an exponential average of weight
+    /// 1/16 over intervals of variance 2 sigma_x^2). A quarter period is far outside what a search
+    /// oscillator moves in one period (targets and drift move it by parts in 10^3 at most), and far
+    /// from the glitch fraction, so a double trigger is never taken for a missed edge. Outside that
+    /// band the interval is taken as one (long) period, as before. Dropout: an interval above
+    /// DropoutPeriods x P (or at least NoSignalSeconds) that was not inferred closes the gate at the
+    /// last good edge (a result with state Dropout when the gate has at least 2 edges, else none) and
+    /// the edge after the gap opens the next gate. The bootstrap interval itself cannot be checked: a
+    /// gap seen while the period rests on that one interval alone gives no result (it is counted as a
+    /// dropout) and the period is learnt again, so a double trigger on the very first interval never
+    /// produces a number.
     /// </para>
     /// <para>
     /// Empty input: a gate needs at least 2 edges (one interval); until then, and for a gate cut
     /// short by a gap before its second edge, no result is made (AddEdge returns false), never a
-    /// division by zero. Nothing allocates per edge or per gate.
+    /// division by zero. Nothing allocates per edge or per gate; per gate the regression's error model
+    /// sums at most sqrt(N) + 5 harmonics (3 with 0.3 tick of jitter).
     /// </para>
     /// </summary>
     public sealed class EdgeCounter
@@ -56,7 +77,11 @@ namespace FreqReadout.Counting
         /// <summary>Longest gate, ticks (2^40, about 3.8 h at 80 MHz); a longer GateSeconds x ClockHz is refused.</summary>
         public const long MaxGateTicks = 1L << 40;
 
+        /// <summary>Largest number of periods one interval may be inferred to span (8: up to 7 missed edges in a row).</summary>
+        public const int MaxInferredPeriods = 8;
+
         private const long ResidualLimit = 1L << 21;
+        private const double InferTolerancePeriods = 0.25;
         private const double RunningPeriodWeight = 1.0 / 16.0;
 
         private readonly double _clockHz;
@@ -70,6 +95,10 @@ namespace FreqReadout.Counting
         private readonly double _glitchFraction;
         private readonly double _dropoutPeriods;
         private readonly long _noSignalTicks;
+        private readonly bool _infer;
+        private readonly double _inferMinBeatHz;
+        private readonly int _inferMaxPeriods;
+        private readonly QuantisationErrorModel _model;
 
         // Run state.
         private bool _hasFirst;
@@ -84,11 +113,15 @@ namespace FreqReadout.Counting
         private bool _gateOpen;
         private long _gateStart;
         private int _gateN;
+        private long _gateIndex;
         private long _p0;
         private long _sr;
         private long _sir;
+        private long _si;
+        private long _sii;
         private long _lastR;
         private int _gateGlitches;
+        private int _gateInferred;
         private bool _gateAfterGap;
 
         // No-signal timing.
@@ -99,6 +132,7 @@ namespace FreqReadout.Counting
         private long _dropoutsTotal;
         private long _edgesTotal;
         private long _gatesTotal;
+        private long _inferredTotal;
 
         /// <summary>
         /// A counter for the given settings (read once here; later changes to the object are not seen).
@@ -124,7 +158,7 @@ namespace FreqReadout.Counting
                 throw new System.ArgumentException("estimator must be reciprocal or regression for edge captures");
             }
 
-            double gateTicks = settings.GateSeconds * settings.ClockHz;
+            double gateTicks = MainsGate.GateSecondsFor(settings.GateSeconds, settings.MainsHz, settings.Estimator) * settings.ClockHz;
             if (settings.Mode == GateMode.Time && !(gateTicks <= MaxGateTicks))
             {
                 throw new System.ArgumentException("gate seconds x clock_hz must be at most 2^40 ticks");
@@ -157,6 +191,16 @@ namespace FreqReadout.Counting
             {
                 _noSignalTicks = 1;
             }
+
+            _infer = settings.InferMissedEdges;
+            _inferMinBeatHz = settings.InferMinBeatHz;
+            _inferMaxPeriods = MaxInferredPeriods;
+            if (settings.DropoutPeriods < _inferMaxPeriods)
+            {
+                _inferMaxPeriods = (int)settings.DropoutPeriods;
+            }
+
+            _model = new QuantisationErrorModel(settings.JitterTicks);
         }
 
         /// <summary>The settings the counter was made with.</summary>
@@ -172,6 +216,12 @@ namespace FreqReadout.Counting
         public long DropoutsTotal
         {
             get { return _dropoutsTotal; }
+        }
+
+        /// <summary>Edges inferred as missed (see the class notes) since construction or <see cref="Reset"/>.</summary>
+        public long InferredTotal
+        {
+            get { return _inferredTotal; }
         }
 
         /// <summary>Accepted edges since construction or <see cref="Reset"/>.</summary>
@@ -213,7 +263,7 @@ namespace FreqReadout.Counting
             get { return _hasFirst ? _firstTick : 0; }
         }
 
-        /// <summary>Gate length in ticks for a time gate: the smallest whole tick count &gt;= GateSeconds x ClockHz.</summary>
+        /// <summary>Gate length in ticks for a time gate: the smallest whole tick count &gt;= GateSeconds x ClockHz (the mains-nulling length with MainsHz set).</summary>
         public long GateTicks
         {
             get { return _gateTicks; }
@@ -255,7 +305,8 @@ namespace FreqReadout.Counting
             }
 
             bool longGap = d >= _noSignalTicks;
-            if (longGap || (_hasPeriod && d > _dropoutPeriods * _period))
+            int periods = longGap ? 1 : InferredPeriods(d);
+            if (periods == 1 && (longGap || (_hasPeriod && d > _dropoutPeriods * _period)))
             {
                 _dropoutsTotal++;
                 bool closed = false;
@@ -289,7 +340,7 @@ namespace FreqReadout.Counting
 
             if (_hasPeriod)
             {
-                _period += (d - _period) * RunningPeriodWeight;
+                _period += ((periods == 1 ? d : (double)d / periods) - _period) * RunningPeriodWeight;
                 if (_periodSamples < 2)
                 {
                     _periodSamples++;
@@ -302,12 +353,18 @@ namespace FreqReadout.Counting
                 _periodSamples = 1;
             }
 
-            Append(tick);
+            if (periods > 1)
+            {
+                _gateInferred += periods - 1;
+                _inferredTotal += periods - 1;
+            }
+
+            Append(tick, periods);
             Accept(tick);
 
-            int intervals = _gateN - 1;
-            bool close = intervals >= MaxGateIntervals
-                || (_mode == GateMode.Time ? (tick - _gateStart) >= _gateTicks : intervals >= _gateIntervals);
+            long spanned = _gateIndex;
+            bool close = spanned >= MaxGateIntervals
+                || (_mode == GateMode.Time ? (tick - _gateStart) >= _gateTicks : spanned >= _gateIntervals);
             if (!close)
             {
                 return false;
@@ -363,6 +420,7 @@ namespace FreqReadout.Counting
                 Seconds(nowTick),
                 0,
                 0,
+                0,
                 0);
             return true;
         }
@@ -380,11 +438,15 @@ namespace FreqReadout.Counting
             _gateOpen = false;
             _gateStart = 0;
             _gateN = 0;
+            _gateIndex = 0;
             _p0 = 0;
             _sr = 0;
             _sir = 0;
+            _si = 0;
+            _sii = 0;
             _lastR = 0;
             _gateGlitches = 0;
+            _gateInferred = 0;
             _gateAfterGap = false;
             _hasRef = false;
             _refTick = 0;
@@ -392,6 +454,7 @@ namespace FreqReadout.Counting
             _dropoutsTotal = 0;
             _edgesTotal = 0;
             _gatesTotal = 0;
+            _inferredTotal = 0;
         }
 
         private void Accept(long tick)
@@ -408,18 +471,65 @@ namespace FreqReadout.Counting
             _gateOpen = true;
             _gateStart = tick;
             _gateN = 1;
+            _gateIndex = 0;
             _p0 = 0;
             _sr = 0;
             _sir = 0;
+            _si = 0;
+            _sii = 0;
             _lastR = 0;
             _gateGlitches = 0;
+            _gateInferred = 0;
             _gateAfterGap = false;
         }
 
-        private void Append(long tick)
+        /// <summary>
+        /// The number of periods an interval of d ticks spans: m when |d - m P| &lt; P / 4 for a whole m
+        /// in 2..MaxInferredPeriods (at most DropoutPeriods) and the timing noise allows the call (see the
+        /// class notes); else 1. Always 1 with inference off, before the period rests on two intervals,
+        /// and in beat mode below InferMinBeatHz.
+        /// </summary>
+        private int InferredPeriods(long d)
         {
-            long i = _gateN;
-            if (i == 1)
+            if (!_infer || !_hasPeriod || _periodSamples < 2 || _inferMaxPeriods < 2)
+            {
+                return 1;
+            }
+
+            double ratio = d / _period;
+            if (ratio < 2.0 - InferTolerancePeriods || ratio >= _inferMaxPeriods + InferTolerancePeriods)
+            {
+                return 1;
+            }
+
+            if (_signal == SignalKind.Beat && (_prescale * _clockHz / _period) < _inferMinBeatHz)
+            {
+                return 1;
+            }
+
+            long m = ScalarMath.RoundToLong(ratio);
+            double off = ratio - m;
+            if (m < 2 || m > _inferMaxPeriods || !(off < InferTolerancePeriods && off > -InferTolerancePeriods))
+            {
+                return 1;
+            }
+
+            // 4 sigma of d - m P must fit in the tolerance: Var = 2 sigma_x^2 + m^2 (2 sigma_x^2 / 31).
+            double sx2 = _sigmaX2;
+            double spread2 = 16.0 * ((2.0 * sx2) + (m * m * 2.0 * sx2 / 31.0));
+            double tol = InferTolerancePeriods * _period;
+            if (spread2 >= tol * tol)
+            {
+                return 1;
+            }
+
+            return (int)m;
+        }
+
+        private void Append(long tick, int periods)
+        {
+            long i = _gateIndex + periods;
+            if (_gateN == 1)
             {
                 _p0 = ScalarMath.RoundToLong(_period);
                 if (_p0 < 1)
@@ -431,22 +541,23 @@ namespace FreqReadout.Counting
             long r = (tick - _gateStart) - (i * _p0);
             if (r > ResidualLimit || r < -ResidualLimit)
             {
-                // Re-nominalise: move P0 by d and correct the sums over indices 0..i-1 exactly.
+                // Re-nominalise: move P0 by d and correct the sums over the indices so far exactly.
                 long d = r / i;
                 if (d != 0)
                 {
-                    long sumI = (i * (i - 1)) / 2;
-                    long sumII = ((i - 1) * i * ((2 * i) - 1)) / 6;
                     _p0 += d;
-                    _sr -= d * sumI;
-                    _sir -= d * sumII;
+                    _sr -= d * _si;
+                    _sir -= d * _sii;
                     r -= d * i;
                 }
             }
 
             _sr += r;
             _sir += i * r;
+            _si += i;
+            _sii += i * i;
             _lastR = r;
+            _gateIndex = i;
             _gateN++;
         }
 
@@ -458,19 +569,38 @@ namespace FreqReadout.Counting
         private void CloseGate(GateState state, int dropouts, GateResult result)
         {
             int n = _gateN;
-            long m = n - 1;
+            long span = _gateIndex;
             double dn = n;
             double scale = _prescale * _clockHz;
 
-            double recPeriod = _p0 + ((double)_lastR / m);
-            long num2 = (2 * _sir) - (m * _sr);
-            double den = dn * ((dn * dn) - 1.0);
-            double regPeriod = _p0 + ((6.0 * num2) / den);
+            double recPeriod = _p0 + ((double)_lastR / span);
+            double sxx;
+            double regOffset;
+            if (_gateInferred == 0)
+            {
+                // Indices 0..n-1: the closed form for contiguous indices (exactly the slope below).
+                long m = n - 1;
+                long num2 = (2 * _sir) - (m * _sr);
+                double den = dn * ((dn * dn) - 1.0);
+                regOffset = (6.0 * num2) / den;
+                sxx = den / 12.0;
+            }
+            else
+            {
+                double meanI = _si / dn;
+                sxx = _sii - (meanI * _si);
+                regOffset = (_sir - (meanI * _sr)) / sxx;
+            }
+
+            double regPeriod = _p0 + regOffset;
+            double fraction = regOffset - ScalarMath.Floor(regOffset);
+            double regVar = (_model.WhiteVariance / sxx) + _model.RegressionDeterministicVariance(fraction, span + 1, sxx);
+            double recVar = _model.ReciprocalSpanVariance / ((double)span * span);
 
             double recHz = recPeriod > 0 ? scale / recPeriod : 0;
             double regHz = regPeriod > 0 ? scale / regPeriod : 0;
-            double recErr = recPeriod > 0 ? recHz * ScalarMath.Sqrt(2.0 * _sigmaX2 / ((double)m * m)) / recPeriod : 0;
-            double regErr = regPeriod > 0 ? regHz * ScalarMath.Sqrt(12.0 * _sigmaX2 / den) / regPeriod : 0;
+            double recErr = recPeriod > 0 ? recHz * ScalarMath.Sqrt(recVar) / recPeriod : 0;
+            double regErr = regPeriod > 0 ? regHz * ScalarMath.Sqrt(regVar) / regPeriod : 0;
 
             bool regression = _estimator == EstimatorKind.Regression;
             _gatesTotal++;
@@ -491,7 +621,8 @@ namespace FreqReadout.Counting
                 Seconds(_lastTick),
                 _gateGlitches,
                 dropouts,
-                m * _prescale);
+                span * _prescale,
+                _gateInferred);
         }
     }
 }

@@ -29,7 +29,13 @@ namespace FreqReadout.Counting
         /// <summary>The chosen estimator's frequency of the counted input signal, Hz (before the prescaler).</summary>
         public double FrequencyHz { get; private set; }
 
-        /// <summary>The chosen estimator's predicted 1-sigma error, Hz (white-noise model: q^2/12 plus configured jitter).</summary>
+        /// <summary>
+        /// The chosen estimator's predicted 1-sigma error, Hz: the rms the gate is expected to scatter by
+        /// at this frequency ratio. Where the timer's quantisation is not dithered by jitter (below about
+        /// 0.3 tick rms) its errors are deterministic, not white, and the figure is a conservative one:
+        /// it covers the worst phase of the quantisation pattern, not only its average (see the counters'
+        /// notes and <see cref="QuantisationErrorModel"/>).
+        /// </summary>
         public double ErrorHz { get; private set; }
 
         /// <summary>The reciprocal (first/last edge) estimate from the same edges, Hz (0 for snapshot gates).</summary>
@@ -69,11 +75,18 @@ namespace FreqReadout.Counting
         public int Dropouts { get; private set; }
 
         /// <summary>
-        /// Input-signal edges the gate spans (before the prescaler): for an edge gate
-        /// (Edges - 1) x Prescale, for a snapshot gate the count difference between its first and last
-        /// read; 0 without a frequency.
+        /// Input-signal edges the gate spans (before the prescaler): for an edge gate the periods it
+        /// spans x Prescale ((Edges - 1 + InferredEdges) x Prescale), for a snapshot gate the count
+        /// difference between its first and last read; 0 without a frequency.
         /// </summary>
         public long InputEdges { get; private set; }
+
+        /// <summary>
+        /// Recorded edges the gate inferred as missed: an interval near m running periods (m = 2..8)
+        /// counted as m periods adds m - 1 (see <see cref="EdgeCounter"/>). 0 for snapshot gates and
+        /// without a frequency. The estimate already uses the true period count; this says it happened.
+        /// </summary>
+        public int InferredEdges { get; private set; }
 
         /// <summary>Fills every field; each argument is stored in the property of the same name.</summary>
         public void Set(
@@ -93,7 +106,8 @@ namespace FreqReadout.Counting
             double endSeconds,
             int glitches,
             int dropouts,
-            long inputEdges)
+            long inputEdges,
+            int inferredEdges)
         {
             State = state;
             Estimator = estimator;
@@ -112,6 +126,7 @@ namespace FreqReadout.Counting
             Glitches = glitches;
             Dropouts = dropouts;
             InputEdges = inputEdges;
+            InferredEdges = inferredEdges;
         }
 
         /// <summary>Copies every field of <paramref name="other"/> into this object.</summary>
@@ -134,7 +149,8 @@ namespace FreqReadout.Counting
                 other.EndSeconds,
                 other.Glitches,
                 other.Dropouts,
-                other.InputEdges);
+                other.InputEdges,
+                other.InferredEdges);
         }
     }
 }

@@ -31,12 +31,21 @@ namespace FreqReadout.Counting
     /// slope s = Cov / Var counts per tick, frequency = Prescale x ClockHz x s.
     /// </para>
     /// <para>
-    /// Error model (white, independent per snapshot): count quantisation 1/12 counts^2, read-time
-    /// resolution 1/12 ticks^2 (one tick) and read jitter JitterTicks^2, the time terms turned into
-    /// counts by the slope: sigma_y^2 = 1/12 + s^2 (1/12 + JitterTicks^2); Var(s) = sigma_y^2 / Sxx with
-    /// Sxx = sum (x_k - mean x)^2 = n Var(x) ticks^2; ErrorHz = Prescale x ClockHz x sqrt(Var(s)).
-    /// For reads evenly spread over a gate T this is about sqrt(12) sigma_y / (T sqrt(M)) Hz for M
-    /// snapshots, whatever the frequency.
+    /// Error model: read-time resolution 1/12 ticks^2 (one tick) and read jitter JitterTicks^2 are white,
+    /// turned into counts by the slope: s^2 (1/12 + JitterTicks^2) / Sxx, Sxx = sum (x_k - mean x)^2 =
+    /// n Var(x) ticks^2. The whole-count quantisation is not white when the reads are strictly periodic:
+    /// the count c_k = floor(phase + k R) of R counts per read repeats a sawtooth pattern fixed by frac(R),
+    /// so its error follows <see cref="QuantisationErrorModel"/> (in counts, per read index), dithered
+    /// only by how irregular the latch times really are: the rms scatter of the read ticks about their
+    /// straight line in k, sigma_t^2 = RSS / (n - 2), less what the read jitter and tick resolution
+    /// explain, with a margin for the estimate's own scatter:
+    /// sigma_L^2 = max(0, sigma_t^2 - (1/12 + J^2) (1 + 3 sqrt(2 / (n - 2)))), dither J_c = s sigma_L counts.
+    /// Count part: (sigma_w^2(J_c) - J_c^2) / Sxx (the latch irregularity is no error of the count) + (deterministic part at frac(R) over n read indices) / Q^2, with Q
+    /// the mean read interval in ticks. Var(s) = time part + count part;
+    /// ErrorHz = Prescale x ClockHz x sqrt(Var(s)). Irregular reads (J_c of a count or more) give the
+    /// white model of old: about sqrt(12) sigma_y / (T sqrt(M)) Hz for M snapshots over a gate T,
+    /// sigma_y^2 = 1/12 + s^2 (1/12 + J^2), whatever the frequency; strictly periodic reads at a ratio
+    /// where the sawtooth lines up get the larger, real figure (a conservative 1-sigma, see the model).
     /// </para>
     /// <para>
     /// Guards: a snapshot whose tick does not increase or whose count falls is rejected and counted in
@@ -76,6 +85,8 @@ namespace FreqReadout.Counting
         private readonly double _timeVar;
         private readonly double _dropoutPeriods;
         private readonly long _noSignalTicks;
+        private readonly double _jitter2;
+        private readonly QuantisationErrorModel _countModel;
 
         private bool _hasFirst;
         private long _firstTick;
@@ -130,7 +141,7 @@ namespace FreqReadout.Counting
                 throw new System.ArgumentException(error);
             }
 
-            double gateTicks = settings.GateSeconds * settings.ClockHz;
+            double gateTicks = MainsGate.GateSecondsFor(settings.GateSeconds, settings.MainsHz, EstimatorKind.SnapshotRegression) * settings.ClockHz;
             if (settings.Mode == GateMode.Time && !(gateTicks <= MaxGateTicks))
             {
                 throw new System.ArgumentException("gate seconds x clock_hz must be at most 2^40 ticks");
@@ -155,6 +166,8 @@ namespace FreqReadout.Counting
 
             _gateIntervals = settings.GateEdges < MaxGateIntervals ? settings.GateEdges : MaxGateIntervals;
             _timeVar = (1.0 / 12.0) + (settings.JitterTicks * settings.JitterTicks);
+            _jitter2 = settings.JitterTicks * settings.JitterTicks;
+            _countModel = new QuantisationErrorModel(0);
             _dropoutPeriods = settings.DropoutPeriods;
             _noSignalTicks = ScalarMath.CeilingToLongTolerant(noSignalTicks);
             if (_noSignalTicks < 1)
@@ -472,6 +485,7 @@ namespace FreqReadout.Counting
                 Seconds(end),
                 0,
                 0,
+                0,
                 0);
         }
 
@@ -504,8 +518,28 @@ namespace FreqReadout.Counting
             double scale = _prescale * _clockHz;
             double hz = scale * slope;
             double sxx = var / n;
-            double sigmaY2 = (1.0 / 12.0) + (slope * slope * _timeVar);
-            double errHz = scale * ScalarMath.Sqrt(sigmaY2 / sxx);
+
+            // How irregular the latch times are: scatter of the read ticks about their line in k.
+            double ditherCounts = 0;
+            if (_n >= 3)
+            {
+                double rss = (auu - ((aku * aku) / akk)) / n;
+                double scatter2 = rss / (n - 2.0);
+                double explained = ((1.0 / 12.0) + _jitter2) * (1.0 + (3.0 * ScalarMath.Sqrt(2.0 / (n - 2.0))));
+                double latch2 = scatter2 - explained;
+                if (latch2 > 0)
+                {
+                    ditherCounts = ScalarMath.Abs(slope) * ScalarMath.Sqrt(latch2);
+                }
+            }
+
+            _countModel.Configure(ditherCounts);
+            double readTicks = (double)(_lastTick - _t0) / (n - 1.0);
+            double countsPerRead = slope * readTicks;
+            double fraction = countsPerRead - ScalarMath.Floor(countsPerRead);
+            double deterministic = _countModel.RegressionDeterministicVariance(fraction, _n, n * ((n * n) - 1.0) / 12.0);
+            double varSlope = ((_countModel.QuantisationWhiteVariance + (slope * slope * _timeVar)) / sxx) + (deterministic / (readTicks * readTicks));
+            double errHz = scale * ScalarMath.Sqrt(varSlope);
             _gatesTotal++;
             result.Set(
                 state,
@@ -524,7 +558,8 @@ namespace FreqReadout.Counting
                 Seconds(_lastTick),
                 _gateGlitches,
                 dropouts,
-                (_lastCount - _c0) * _prescale);
+                (_lastCount - _c0) * _prescale,
+                0);
             return true;
         }
     }

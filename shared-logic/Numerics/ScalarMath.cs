@@ -147,6 +147,68 @@ namespace FreqReadout.Numerics
         /// <summary>ln 2.</summary>
         public const double Ln2 = 0.69314718055994530942;
 
+        /// <summary>Largest whole number &lt;= x, as a double (x within the long range, not checked).</summary>
+        public static double Floor(double x)
+        {
+            long t = (long)x; // truncates toward zero
+            if (t > x)
+            {
+                t--;
+            }
+
+            return t;
+        }
+
+        /// <summary>pi.</summary>
+        public const double Pi = 3.14159265358979323846;
+
+        /// <summary>
+        /// sin(pi x): x reduced to [-1, 1] by whole multiples of 2, folded into [-1/2, 1/2] by
+        /// sin(pi x) = sin(pi (1 - x)), then the Taylor series of sin y, y = pi x in [-pi/2, pi/2], to
+        /// y^19 (truncation below 1e-15). Exact 0 at whole x. For |x| below 2^52; NaN for NaN or infinity.
+        /// </summary>
+        public static double SinPi(double x)
+        {
+            if (!IsFinite(x))
+            {
+                return double.NaN;
+            }
+
+            double half = x * 0.5;
+            if (half > 4.0e15 || half < -4.0e15)
+            {
+                return 0.0;
+            }
+
+            x -= 2.0 * RoundToLong(half);
+            if (x > 0.5)
+            {
+                x = 1.0 - x;
+            }
+            else if (x < -0.5)
+            {
+                x = -1.0 - x;
+            }
+
+            double y = Pi * x;
+            double y2 = y * y;
+            double term = y;
+            double sum = y;
+            for (int n = 1; n <= 9; n++)
+            {
+                term *= -y2 / ((2.0 * n) * ((2.0 * n) + 1.0));
+                sum += term;
+            }
+
+            return sum;
+        }
+
+        /// <summary>cos(pi x) = sin(pi (x + 1/2)) (see <see cref="SinPi"/>).</summary>
+        public static double CosPi(double x)
+        {
+            return SinPi(x + 0.5);
+        }
+
         /// <summary>The larger of a and b.</summary>
         public static double Max(double a, double b)
         {

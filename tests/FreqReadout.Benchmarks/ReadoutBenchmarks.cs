@@ -28,7 +28,7 @@ public class ReadoutBenchmarks
             double t1 = t0 + 0.1;
             double f = 100_000 + (0.001 * t1) + (k % 200 > 195 ? 2.0 : 0) + (0.1 * (rng.NextDouble() - 0.5) * 3.46);
             _gates[k] = new GateResult();
-            _gates[k].Set(GateState.Ok, EstimatorKind.Regression, SignalKind.Search, true, f, 0, f, f, 10_000, 1, 0, 0, t0, t1, 0, 0, 9_999);
+            _gates[k].Set(GateState.Ok, EstimatorKind.Regression, SignalKind.Search, true, f, 0, f, f, 10_000, 1, 0, 0, t0, t1, 0, 0, 9_999, 0);
         }
     }
 

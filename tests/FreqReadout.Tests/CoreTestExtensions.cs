@@ -80,7 +80,7 @@ internal static class CoreTestExtensions
     {
         var g = new GateResult();
         g.Set(state, estimator, signal, hasFrequency, frequencyHz, errorHz, reciprocalHz, regressionHz, edges, prescale,
-            startTick, endTick, startSeconds, endSeconds, glitches, dropouts, hasFrequency ? (long)(edges - 1) * prescale : 0);
+            startTick, endTick, startSeconds, endSeconds, glitches, dropouts, hasFrequency ? (long)(edges - 1) * prescale : 0, 0);
         return g;
     }
 }

@@ -84,6 +84,15 @@ internal static class DeviceLoopBounds
         new("ScalarMath.Sqrt", 7, "m >= 1/16, multiplied by 4 per pass while m < 1: 2", 2, 2),
         new("ScalarMath.Sqrt", 8, "Newton steps k < 8", 8, 8),
         new("ScalarMath.Exp", 0, "series terms n = 1..16", 16, 16),
+        new("ScalarMath.SinPi", 0, "series terms n = 1..9", 9, 9),
+
+        // Counting error model (QuantisationErrorModel): fixed sums and a bisection, plus the harmonic sum up to
+        // sqrt(N) + 5 harmonics; N <= EdgeCounter.MaxGateIntervals = 2^20, so at most 1029 (the default 0.1 s gate
+        // at 100 kHz / prescale 1 has N = 10^4: 105).
+        new("QuantisationErrorModel.Configure", 0, "harmonics m = 1..64", 64, 64),
+        new("QuantisationErrorModel.HarmonicSum", 0, "harmonics m = 1..64", 64, 64),
+        new("QuantisationErrorModel.PeakGainFrequency", 0, "bisection steps k < 40", 40, 40),
+        new("QuantisationErrorModel.RegressionDeterministicVariance", 0, "harmonics m <= sqrt(N) + 5, N <= 2^20", 105, 1029),
         new("ScalarMath.Exp", 1, "binary digits of |k| <= 1075 < 2^11: 11", 11, 11),
     ];
 }
