@@ -35,6 +35,10 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         [CommandOption("--events <FILE>")]
         [Description("Also write the events as CSV.")]
         public string? EventsFile { get; set; }
+
+        [CommandOption("--hold-span <FROM:TO>")]
+        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap.")]
+        public string[]? HoldSpans { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -43,6 +47,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         if (options == null)
         {
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
+        }
+
+        if (!HoldSpan.TryParseAll(settings.HoldSpans ?? Array.Empty<string>(), out IReadOnlyList<HoldSpan> holdSpans, out string? holdError))
+        {
+            return CommandOutput.Fail("--hold-span: " + holdError, CommandOutput.BadOption);
         }
 
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
@@ -77,7 +86,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             try
             {
                 readingsCsv = settings.ReadingsFile != null ? OpenCsv(settings.ReadingsFile, ReadingsHeader) : null;
-                session = new ReplaySession(readout, reader.Metadata.StartedUtc);
+                session = new ReplaySession(readout, reader.Metadata.StartedUtc) { HoldSpans = holdSpans };
                 if (readingsCsv != null)
                 {
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
@@ -137,7 +146,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             }
             else
             {
-                WriteSummary(report, readout, source);
+                WriteSummary(report, readout, source, holdSpans);
             }
 
             return damaged == null ? 0 : CommandOutput.Fail(damaged.Message, CommandOutput.BadInput);
@@ -309,7 +318,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             e.StartUtc is DateTimeOffset u ? u.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture) : string.Empty);
     }
 
-    private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source)
+    private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source, IReadOnlyList<HoldSpan> holdSpans)
     {
         var console = CommandOutput.Stdout();
         string N(double? v, string f = "0.######") => v is double x ? x.ToString(f, CultureInfo.InvariantCulture) : "-";
@@ -324,6 +333,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         grid.AddRow("noise", $"{N(report.NoiseHz, "0.0000")} Hz, {N(report.NoisePpm, "0.000")} ppm (robust sigma of target-free residuals)");
         grid.AddRow("drift", N(report.DriftHzPerMinute, "0.0000") + " Hz/min (least-squares slope of the tracked baseline)");
         grid.AddRow("threshold", $"{N(readout.ThresholdSigma)} sigma, release {N(readout.ThresholdSigma - readout.HysteresisSigma)} sigma, unclear below {N(readout.ThresholdSigma + readout.UnclearBandSigma)} sigma, polarity {(readout.Polarity == FreqReadout.Detection.Polarity.Inverted ? "inverted" : "normal")}");
+        if (holdSpans.Count > 0)
+        {
+            grid.AddRow("hold", string.Join(", ", holdSpans.Select(h => $"{N(h.FromSeconds)}-{N(h.ToSeconds)} s")) + " (--hold-span)");
+        }
+
         console.Write(grid);
         console.WriteLine();
 
