@@ -117,7 +117,12 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         return 0;
     }
 
-    private static readonly JsonSerializerOptions CompactOptions = new(FreqReadout.Host.Simulation.Scene.JsonOptions) { WriteIndented = false };
+    /// <summary>Compact JSON with every key present: a figure that does not apply is null, never left out (docs/json-output.md).</summary>
+    private static readonly JsonSerializerOptions CompactOptions = new(FreqReadout.Host.Simulation.Scene.JsonOptions)
+    {
+        WriteIndented = false,
+        DefaultIgnoreCondition = System.Text.Json.Serialization.JsonIgnoreCondition.Never,
+    };
 
     /// <summary>Builds the report from the settings; throws <see cref="SceneException"/> naming the option and its range.</summary>
     internal static CoilReport Build(Settings s)
