@@ -134,6 +134,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             var scene = FreqReadout.Host.Simulation.Scene.Load(s.Scene);
             coil = scene.Coil;
             osc = scene.Oscillator;
+            osc.FrequencyHz = osc.FrequencyOrDefaultHz(); // an oscillator object that gives neither runs at the default frequency
         }
 
         CheckMm("--diameter-mm", s.DiameterMm, 5, 5000, "(5, 5000] mm", zeroAllowed: false);

@@ -7,11 +7,20 @@ namespace FreqReadout.Host.Simulation;
 /// </summary>
 public sealed class SceneOscillator
 {
-    /// <summary>Nominal operating frequency at <see cref="NominalTemperatureC"/>, no target, Hz; null when the capacitance is given.</summary>
+    /// <summary>The operating frequency when neither it nor the tuning capacitance is given, Hz.</summary>
+    public const double DefaultFrequencyHz = 100_000;
+
+    /// <summary>Nominal operating frequency at <see cref="NominalTemperatureC"/>, no target, Hz; null when the capacitance is given (or neither, meaning <see cref="DefaultFrequencyHz"/>).</summary>
     public double? FrequencyHz { get; set; }
 
     /// <summary>Tuning capacitance, nF; null when the frequency is given.</summary>
     public double? TuningCapacitanceNf { get; set; }
+
+    /// <summary>
+    /// The operating frequency to use, Hz: <see cref="FrequencyHz"/> when given, <see cref="DefaultFrequencyHz"/> when neither
+    /// it nor <see cref="TuningCapacitanceNf"/> is given, null when the capacitance sets the frequency.
+    /// </summary>
+    public double? FrequencyOrDefaultHz() => FrequencyHz ?? (TuningCapacitanceNf.HasValue ? null : DefaultFrequencyHz);
 
     /// <summary>Frequency tempco, ppm/K; null = derived from the parts.</summary>
     public double? TempcoPpmPerK { get; set; }

@@ -72,7 +72,7 @@ public class SceneFileTests
         Assert.Contains("targets[0].material must be one of silver, copper, aluminium, brass, cupronickel, stainless, carbon_steel or custom", ex.Message);
 
         ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"oscillator\": { \"frequency_hz\": 1e5, \"tuning_capacitance_nf\": 3 } }", "o.json"));
-        Assert.Contains("exactly one of the two", ex.Message);
+        Assert.Contains("at most one of the two", ex.Message);
 
         ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"hardware\": { \"timer_bits\": 20 } }", "h.json"));
         Assert.Contains("hardware.timer_bits must be 16, 24, 32 or 64 (got 20)", ex.Message);
