@@ -16,7 +16,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--scene <FILE>")]
-        [Description("Take coil and oscillator from a scene file (options below override).")]
+        [Description("Take coil and oscillator from a scene file (docs/scene-format.md; options below override).")]
         public string? Scene { get; set; }
 
         [CommandOption("--turns <N>")]

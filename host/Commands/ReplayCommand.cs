@@ -16,11 +16,11 @@ namespace FreqReadout.Host.Commands;
 /// <c>freqreadout replay &lt;capture&gt; [--json] [--readings FILE] [--events FILE]</c>: streams a capture
 /// through the counting core and the same readout pipeline the device runs, and prints a summary
 /// (edges, duration, gates, baseline, noise in Hz and ppm, drift, re-baselines, events). With --json,
-/// exactly one JSON object on stdout (shape of issue 3, meanings of PRODUCT.md); diagnostics on stderr.
+/// exactly one JSON object on stdout (keys and meanings in docs/json-output.md); diagnostics on stderr.
 /// </summary>
 public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 {
-    /// <summary>The caution of PRODUCT.md, shown with every summary.</summary>
+    /// <summary>The caution of README.md ("Cautions"), shown with every summary.</summary>
     public const string Caution =
         "Caution: a readout that shows nothing is not proof that a wall or floor holds no live wiring or pipe. " +
         "Isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records " +

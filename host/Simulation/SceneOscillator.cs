@@ -34,7 +34,7 @@ public sealed class SceneOscillator
     /// <summary>Coil inductance tempco, ppm/K (copper expansion 16.5 by default).</summary>
     public double CoilPpmPerK { get; set; } = Tempco.CopperExpansionPpmPerK;
 
-    /// <summary>Temperature at which the oscillator runs at its nominal frequency, C. Default 20.</summary>
+    /// <summary>Temperature at which the oscillator runs at its nominal frequency, deg C. Default 20.</summary>
     public double NominalTemperatureC { get; set; } = 20.0;
 
     /// <summary>White frequency noise as its Allan deviation at 1 s (sigma_y(tau) = this / sqrt(tau)). Default 2e-8.</summary>

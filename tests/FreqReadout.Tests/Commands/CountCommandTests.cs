@@ -141,7 +141,7 @@ public sealed class CountCommandTests
             return doc.RootElement.GetProperty("error_hz").GetDouble();
         }
 
-        // Error model sigma_x^2 = 1/12 + jitter^2 (PRODUCT.md: quantisation q^2/12 plus the configured jitter):
+        // Error model sigma_x^2 = 1/12 + jitter^2 (docs/json-output.md, error_hz: quantisation q^2/12 plus the configured jitter):
         // the ratio of errors for jitter 3 and 0 is sqrt((1/12 + 9) / (1/12)).
         Assert.Equal(Math.Sqrt((1.0 / 12 + 9) * 12), Error("3") / Error("0"), 9);
     }

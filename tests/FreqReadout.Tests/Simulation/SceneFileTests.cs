@@ -95,7 +95,7 @@ public class SceneFileTests
     [Fact]
     public void MaterialPresets_AreTheHandbookTable()
     {
-        // REFERENCES.md "Materials" (20 C), CRC Handbook values from memory: a separate table from the check values.
+        // docs/references.md "Materials and temperature" (20 deg C), CRC Handbook values from memory: a separate table from the check values.
         (string Name, double Sigma)[] expected =
         {
             ("silver", 6.30e7), ("copper", 5.96e7), ("aluminium", 3.77e7), ("brass", 1.41e7),
