@@ -37,7 +37,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string? EventsFile { get; set; }
 
         [CommandOption("--hold-span <FROM:TO>")]
-        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap.")]
+        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap. Default: none (only the capture's own hold/release marks).")]
         public string[]? HoldSpans { get; set; }
     }
 
