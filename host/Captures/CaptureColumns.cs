@@ -1,6 +1,6 @@
 namespace FreqReadout.Host.Captures;
 
-/// <summary>Column names of the capture formats (PRODUCT.md, "Capture text format").</summary>
+/// <summary>Column names of the capture formats (docs/capture-text-format.md).</summary>
 public static class CaptureColumns
 {
     /// <summary>First column: the raw timer value.</summary>
@@ -9,7 +9,7 @@ public static class CaptureColumns
     /// <summary>Second column of <c>kind = snapshots</c>: the raw cumulative pulse count.</summary>
     public const string Count = "count";
 
-    /// <summary>Optional: a new temperature sample in degrees Celsius (blank when none).</summary>
+    /// <summary>Optional: a new temperature sample in deg C (blank when none).</summary>
     public const string TemperatureC = "temp_c";
 
     /// <summary>Optional: a mark (free text without commas; <c>rebaseline</c>, <c>hold</c>, <c>release</c> are commands).</summary>

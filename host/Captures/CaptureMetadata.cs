@@ -3,7 +3,7 @@ using FreqReadout.Counting;
 namespace FreqReadout.Host.Captures;
 
 /// <summary>
-/// The metadata of a capture (text format contract in PRODUCT.md; the binary format carries the same).
+/// The metadata of a capture (text format contract in docs/capture-text-format.md; the binary format carries the same).
 /// Defaults are the contract's defaults.
 /// </summary>
 public sealed class CaptureMetadata

@@ -5,7 +5,7 @@ namespace FreqReadout.Host.Captures;
 
 /// <summary>
 /// Builds <see cref="CaptureMetadata"/> from <c>key = value</c> pairs by the rules of the capture text
-/// format (PRODUCT.md): known keys checked, unknown keys kept, duplicates rejected. Shared by the text
+/// format (docs/capture-text-format.md): known keys checked, unknown keys kept, duplicates rejected. Shared by the text
 /// and binary readers so both formats carry exactly the same metadata. Errors are thrown as
 /// <see cref="CaptureFormatException"/> naming the line (text) or block (binary).
 /// </summary>

@@ -4,7 +4,7 @@ using System.Text;
 namespace FreqReadout.Host.Captures;
 
 /// <summary>
-/// Streaming reader of the capture text format (PRODUCT.md, "Capture text format"). The header
+/// Streaming reader of the capture text format (docs/capture-text-format.md). The header
 /// (magic line, metadata, column header) is read and checked when the reader is built; data rows
 /// are parsed one line at a time as <see cref="ReadRows"/> is enumerated, so a capture larger than
 /// memory replays. Trailer lines are collected as they are met.
@@ -182,7 +182,7 @@ public sealed class TextCaptureReader : ICaptureReader
                         {
                             if (!CaptureMetadataParser.TryParseDouble(text, out double t))
                             {
-                                throw Error(_lineNumber, $"expected temp_c as a number in degrees Celsius in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found {TextExcerpt.Quote(text)}");
+                                throw Error(_lineNumber, $"expected temp_c as a number of deg C in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found {TextExcerpt.Quote(text)}");
                             }
 
                             if (CaptureColumns.TemperatureProblem(t) is string range)

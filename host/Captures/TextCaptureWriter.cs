@@ -4,7 +4,7 @@ using System.Text;
 namespace FreqReadout.Host.Captures;
 
 /// <summary>
-/// Streaming writer of the capture text format (PRODUCT.md): UTF-8 without BOM, LF line ends, the
+/// Streaming writer of the capture text format (docs/capture-text-format.md): UTF-8 without BOM, LF line ends, the
 /// magic line, the header lines (in the metadata's own order, see <see cref="CaptureMetadata.HeaderLines"/>),
 /// the column header, one line per row, and the trailer on <see cref="Complete"/>. Numbers are
 /// written in the shortest invariant form that reads back to the same value, so a capture read by

@@ -16,7 +16,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--scene <FILE>")]
-        [Description("Take coil and oscillator from a scene file (options below override).")]
+        [Description("Take coil and oscillator from a scene file (docs/scene-format.md; options below override).")]
         [FilePath]
         public string? Scene { get; set; }
 
@@ -118,7 +118,12 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         return 0;
     }
 
-    private static readonly JsonSerializerOptions CompactOptions = new(FreqReadout.Host.Simulation.Scene.JsonOptions) { WriteIndented = false };
+    /// <summary>Compact JSON with every key present: a figure that does not apply is null, never left out (docs/json-output.md).</summary>
+    private static readonly JsonSerializerOptions CompactOptions = new(FreqReadout.Host.Simulation.Scene.JsonOptions)
+    {
+        WriteIndented = false,
+        DefaultIgnoreCondition = System.Text.Json.Serialization.JsonIgnoreCondition.Never,
+    };
 
     /// <summary>Builds the report from the settings; throws <see cref="SceneException"/> naming the option and its range.</summary>
     internal static CoilReport Build(Settings s)
@@ -130,6 +135,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             var scene = FreqReadout.Host.Simulation.Scene.Load(s.Scene);
             coil = scene.Coil;
             osc = scene.Oscillator;
+            osc.FrequencyHz = osc.FrequencyOrDefaultHz(); // an oscillator object that gives neither runs at the default frequency
         }
 
         CheckMm("--diameter-mm", s.DiameterMm, 5, 5000, "(5, 5000] mm", zeroAllowed: false);

@@ -13,14 +13,15 @@ namespace FreqReadout.Host.Commands;
 /// <summary>
 /// <c>freqreadout count &lt;capture&gt;</c>: the capture's metadata, then a gate-by-gate table (time,
 /// frequency, shift from the first gate, edges, predicted error, measured scatter of consecutive gates,
-/// state with the edges inferred as missed), or with <c>--json</c> one
-/// JSON object per gate (keys fixed in PRODUCT.md, "Machine-readable output"). Text or binary
-/// captures, picked by content. Warnings and errors go to stderr.
+/// state with the edges inferred as missed) in a fixed layout (<see cref="CountTableLayout"/>), or with
+/// <c>--json</c> one JSON object per gate, or with <c>--csv</c> one CSV header row and one row per gate
+/// (keys and columns in docs/json-output.md and docs/csv-output.md). Text or binary captures, picked by
+/// content. Warnings and errors go to stderr.
 /// </summary>
 public sealed class CountCommand : Command<CountCommand.Settings>
 {
-    /// <summary>Table rows rendered per table block (the table streams in blocks on long captures).</summary>
-    public const int RowsPerTable = 1000;
+    /// <summary>The columns of <c>count --csv</c> that every capture gets (temp_c and marks follow when the capture has those columns).</summary>
+    public const string CsvHeader = "time_s,start_s,frequency_hz,shift_hz,search_shift_hz,edges,error_hz,estimator,state,glitches,inferred_edges,scatter_hz";
 
     /// <summary>Line length of the table when stdout is a file or pipe (7 columns and a state with marks do not fit in 80).</summary>
     public const int RedirectedWidth = 120;
@@ -33,8 +34,12 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         public string Capture { get; set; } = string.Empty;
 
         [CommandOption("--json")]
-        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz (counted signal), search_shift_hz (search oscillator, beat side applied), edges, error_hz, estimator, state, start_s, glitches, inferred_edges, scatter_hz (measured scatter of consecutive gates, null until two).")]
+        [Description("One JSON object per gate on stdout: time_s, frequency_hz, shift_hz (counted signal), search_shift_hz (search oscillator, beat side applied), edges, error_hz, estimator, state, start_s, glitches, inferred_edges, scatter_hz (measured scatter of consecutive gates, null until two). Keys: docs/json-output.md.")]
         public bool Json { get; set; }
+
+        [CommandOption("--csv")]
+        [Description("CSV on stdout: one header row, then one row per gate (the --json keys as columns, '.' decimals, blank = none). Columns: docs/csv-output.md.")]
+        public bool Csv { get; set; }
     }
 
     /// <summary>The <c>estimator</c> value of the JSON contract.</summary>
@@ -60,6 +65,11 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         if (options == null)
         {
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
+        }
+
+        if (settings.Json && settings.Csv)
+        {
+            return CommandOutput.Fail("give either --json or --csv, not both", CommandOutput.BadOption);
         }
 
         int openExit = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
@@ -88,7 +98,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             long gates = 0;
             try
             {
-                gates = settings.Json ? WriteJson(source, cancellationToken) : WriteTable(source, format, cancellationToken);
+                gates = settings.Json ? WriteJson(source, cancellationToken) : settings.Csv ? WriteCsv(source, cancellationToken) : WriteTable(source, format, cancellationToken);
             }
             catch (CaptureFormatException e)
             {
@@ -186,6 +196,65 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         return gates;
     }
 
+    private static long WriteCsv(CaptureGateSource source, CancellationToken cancellationToken)
+    {
+        var stdout = Console.Out;
+        bool hasTemp = source.Metadata.HasTemperatureColumn;
+        bool hasMark = source.Metadata.HasMarkColumn;
+        stdout.Write(CsvHeader);
+        stdout.Write(hasTemp ? ",temp_c" : string.Empty);
+        stdout.Write(hasMark ? ",marks\n" : "\n");
+        double? reference = null;
+        long gates = 0;
+        var line = new System.Text.StringBuilder(160);
+        foreach (var item in source.ReadGates())
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var gate = item.Gate;
+            if (gate.HasFrequency && reference == null)
+            {
+                reference = gate.FrequencyHz;
+            }
+
+            line.Clear();
+            line.Append(Num(gate.EndSeconds)).Append(',')
+                .Append(Num(gate.StartSeconds)).Append(',')
+                .Append(gate.HasFrequency ? CsvNumber(gate.FrequencyHz) : string.Empty).Append(',')
+                .Append(gate.HasFrequency ? CsvNumber(gate.FrequencyHz - reference!.Value) : string.Empty).Append(',')
+                .Append(gate.HasFrequency ? CsvNumber(SearchShiftHz(gate.FrequencyHz - reference!.Value, source.Metadata)) : string.Empty).Append(',')
+                .Append(gate.Edges.ToString(CultureInfo.InvariantCulture)).Append(',')
+                .Append(gate.HasFrequency ? CsvNumber(gate.ErrorHz) : string.Empty).Append(',')
+                .Append(EstimatorName(gate.Estimator)).Append(',')
+                .Append(StateName(gate.State)).Append(',')
+                .Append(gate.Glitches.ToString(CultureInfo.InvariantCulture)).Append(',')
+                .Append(gate.InferredEdges.ToString(CultureInfo.InvariantCulture)).Append(',')
+                .Append(item.ScatterHz is double scatter ? CsvNumber(scatter) : string.Empty);
+            if (hasTemp)
+            {
+                line.Append(',').Append(item.TemperatureC is double t ? CsvNumber(t) : string.Empty);
+            }
+
+            if (hasMark)
+            {
+                line.Append(',').Append(CsvText(string.Join(" ", item.Marks)));
+            }
+
+            line.Append('\n');
+            stdout.Write(line.ToString());
+            gates++;
+        }
+
+        stdout.Flush();
+        return gates;
+    }
+
+    /// <summary>A finite number as invariant round-trip text; blank for NaN or infinity (as JSON's null).</summary>
+    private static string CsvNumber(double value) => double.IsFinite(value) ? Num(value) : string.Empty;
+
+    /// <summary>A text field, quoted (RFC 4180) only when it holds a comma, a quote or a line break.</summary>
+    internal static string CsvText(string text) =>
+        text.IndexOfAny(new[] { ',', '"', '\n', '\r' }) < 0 ? text : "\"" + text.Replace("\"", "\"\"") + "\"";
+
     private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
     {
         if (value is double v && double.IsFinite(v))
@@ -224,56 +293,36 @@ public sealed class CountCommand : Command<CountCommand.Settings>
         double? reference = null;
         long gates = 0;
         long withFrequency = 0;
-        Table? table = null;
-        try
+        var layout = new CountTableLayout(source.Metadata, s, beat);
+        var stdout = Console.Out;
+        stdout.WriteLine(layout.Header());
+        stdout.WriteLine(layout.Rule());
+        foreach (var item in source.ReadGates())
         {
-            foreach (var item in source.ReadGates())
+            cancellationToken.ThrowIfCancellationRequested();
+            var gate = item.Gate;
+            if (gate.HasFrequency && reference == null)
             {
-                cancellationToken.ThrowIfCancellationRequested();
-                var gate = item.Gate;
-                if (gate.HasFrequency && reference == null)
-                {
-                    reference = gate.FrequencyHz;
-                }
+                reference = gate.FrequencyHz;
+            }
 
-                table ??= NewTable(beat);
-                var cells = new List<IRenderable>
-                {
-                    new Text(Num(gate.EndSeconds, "0.000000")),
-                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz, "0.000") : "-"),
-                    new Text(gate.HasFrequency ? Num(gate.FrequencyHz - reference!.Value, "+0.000;-0.000;0.000") : "-"),
-                };
-                if (beat)
-                {
-                    cells.Add(new Text(gate.HasFrequency ? Num(SearchShiftHz(gate.FrequencyHz - reference!.Value, source.Metadata), "+0.000;-0.000;0.000") : "-"));
-                }
-
-                cells.Add(new Text(gate.Edges.ToString(CultureInfo.InvariantCulture)));
-                cells.Add(new Text(gate.HasFrequency ? Num(gate.ErrorHz, "0.000E+0") : "-"));
-                cells.Add(new Text(item.ScatterHz is double scatter ? Num(scatter, "0.000E+0") : "-"));
-                cells.Add(new Text(StateName(gate.State)
+            // Streamed row by row: gates counted before a malformed row (or a corrupt binary block) are already shown.
+            double? shift = gate.HasFrequency ? gate.FrequencyHz - reference!.Value : null;
+            stdout.WriteLine(layout.Row(
+                gate.EndSeconds,
+                gate.HasFrequency ? gate.FrequencyHz : null,
+                shift,
+                shift is double sh ? SearchShiftHz(sh, source.Metadata) : null,
+                gate.Edges,
+                gate.HasFrequency ? gate.ErrorHz : null,
+                item.ScatterHz,
+                StateName(gate.State)
                     + (gate.InferredEdges > 0 ? $", {gate.InferredEdges} inferred" : string.Empty)
                     + (item.Marks.Count > 0 ? " (" + string.Join(", ", item.Marks) + ")" : string.Empty)));
-                table.AddRow(cells);
-                gates++;
-                if (gate.HasFrequency)
-                {
-                    withFrequency++;
-                }
-
-                if (table.Rows.Count >= RowsPerTable)
-                {
-                    console.Write(table);
-                    table = null;
-                }
-            }
-        }
-        finally
-        {
-            // Gates counted before a malformed row (or a corrupt binary block) are still shown.
-            if (table != null)
+            gates++;
+            if (gate.HasFrequency)
             {
-                console.Write(table);
+                withFrequency++;
             }
         }
 
@@ -301,24 +350,6 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
         double seconds = MainsGate.GateSecondsFor(s.GateSeconds, s.MainsHz, s.Estimator);
         return $"{Num(seconds, "0.######")} s ({Num(seconds * s.MainsHz, "0.####")} periods of {Num(s.MainsHz)} Hz mains, asked {Num(s.GateSeconds)} s)";
-    }
-
-    private static Table NewTable(bool beat)
-    {
-        var table = new Table().Border(TableBorder.Simple);
-        table.AddColumn(new TableColumn("time s").RightAligned());
-        table.AddColumn(new TableColumn(beat ? "beat Hz" : "frequency Hz").RightAligned());
-        table.AddColumn(new TableColumn(beat ? "beat shift Hz" : "shift Hz").RightAligned());
-        if (beat)
-        {
-            table.AddColumn(new TableColumn("search shift Hz").RightAligned());
-        }
-
-        table.AddColumn(new TableColumn("edges").RightAligned());
-        table.AddColumn(new TableColumn("error Hz").RightAligned());
-        table.AddColumn(new TableColumn("scatter Hz").RightAligned());
-        table.AddColumn(new TableColumn("state"));
-        return table;
     }
 
     private static string Num(double value, string format = "R") => value.ToString(format, CultureInfo.InvariantCulture);

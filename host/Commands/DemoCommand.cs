@@ -128,7 +128,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         summary.AddRow("baseline", rep.BaselineHz is double b ? $"{F(b, "0.000")} Hz (nominal {F(t.SearchNominalHz, "0")} Hz)" : "none");
         summary.AddRow("noise", rep.NoiseHz is double n ? $"{F(n, "0.0000")} Hz" + (rep.NoisePpm is double p ? $", {F(p, "0.000")} ppm" : string.Empty) : "none");
         summary.AddRow("drift", rep.DriftHzPerMinute is double d
-            ? Markup.Escape($"{F(d, "+0.000;-0.000")} Hz/min tracked (coil warming {F(t.TempStartC, "0.0")} -> {F(t.TempEndC, "0.0")} C, tempco {F(t.TempcoPpmPerK, "0.00")} ppm/K: {F(t.DriftSearchHz, "+0.00;-0.00")} Hz in all)")
+            ? Markup.Escape($"{F(d, "+0.000;-0.000")} Hz/min tracked (coil warming {F(t.TempStartC, "0.0")} -> {F(t.TempEndC, "0.0")} deg C, tempco {F(t.TempcoPpmPerK, "0.00")} ppm/K: {F(t.DriftSearchHz, "+0.00;-0.00")} Hz in all)")
             : "none");
         summary.AddRow("events", $"{rep.Events.Count} (re-baselines: {rep.Rebaselines.Count})");
         console.Write(summary);

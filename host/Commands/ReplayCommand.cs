@@ -17,11 +17,11 @@ namespace FreqReadout.Host.Commands;
 /// <c>freqreadout replay &lt;capture&gt; [--json] [--readings FILE] [--events FILE]</c>: streams a capture
 /// through the counting core and the same readout pipeline the device runs, and prints a summary
 /// (edges, duration, gates, baseline, noise in Hz and ppm, drift, re-baselines, events). With --json,
-/// exactly one JSON object on stdout (shape of issue 3, meanings of PRODUCT.md); diagnostics on stderr.
+/// exactly one JSON object on stdout (keys and meanings in docs/json-output.md); diagnostics on stderr.
 /// </summary>
 public sealed class ReplayCommand : Command<ReplayCommand.Settings>
 {
-    /// <summary>The caution of PRODUCT.md, shown with every summary.</summary>
+    /// <summary>The caution of README.md ("Cautions"), shown with every summary.</summary>
     public const string Caution =
         "Caution: a readout that shows nothing is not proof that a wall or floor holds no live wiring or pipe. " +
         "Isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records " +
@@ -38,6 +38,10 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         [Description("Also write the events as CSV.")]
         [FilePath]
         public string? EventsFile { get; set; }
+
+        [CommandOption("--hold-span <FROM:TO>")]
+        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap. Default: none (only the capture's own hold/release marks).")]
+        public string[]? HoldSpans { get; set; }
 
         [CommandOption("--unclear-band-sigma <SIGMA>")]
         [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 1.")]
@@ -84,6 +88,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
         }
 
+        if (!HoldSpan.TryParseAll(settings.HoldSpans ?? Array.Empty<string>(), out IReadOnlyList<HoldSpan> holdSpans, out string? holdError))
+        {
+            return CommandOutput.Fail("--hold-span: " + holdError, CommandOutput.BadOption);
+        }
+
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
         if (opened == null)
         {
@@ -115,7 +124,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             try
             {
                 readingsCsv = settings.ReadingsFile != null ? OpenCsv(settings.ReadingsFile, ReadingsHeader) : null;
-                session = new ReplaySession(readout, reader.Metadata.StartedUtc);
+                session = new ReplaySession(readout, reader.Metadata.StartedUtc) { HoldSpans = holdSpans };
                 if (readingsCsv != null)
                 {
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
@@ -186,7 +195,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             }
             else
             {
-                WriteSummary(report, readout, source);
+                WriteSummary(report, readout, source, holdSpans);
             }
 
             return damaged == null ? 0 : CommandOutput.Fail(damaged.Message, CommandOutput.BadInput);
@@ -362,7 +371,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             e.StartUtc is DateTimeOffset u ? u.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture) : string.Empty);
     }
 
-    private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source)
+    private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source, IReadOnlyList<HoldSpan> holdSpans)
     {
         var console = CommandOutput.Stdout();
         string N(double? v, string f = "0.######") => v is double x ? x.ToString(f, CultureInfo.InvariantCulture) : "-";
@@ -377,6 +386,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         grid.AddRow("noise", $"{N(report.NoiseHz, "0.0000")} Hz, {N(report.NoisePpm, "0.000")} ppm (robust sigma of target-free residuals)");
         grid.AddRow("drift", N(report.DriftHzPerMinute, "0.0000") + " Hz/min (least-squares slope of the tracked baseline)");
         grid.AddRow("threshold", $"{N(readout.ThresholdSigma)} sigma, release {N(readout.ThresholdSigma - readout.HysteresisSigma)} sigma, unclear below {N(readout.ThresholdSigma + readout.UnclearBandSigma)} sigma, polarity {(readout.Polarity == FreqReadout.Detection.Polarity.Inverted ? "inverted" : "normal")}");
+        if (holdSpans.Count > 0)
+        {
+            grid.AddRow("hold", string.Join(", ", holdSpans.Select(h => $"{N(h.FromSeconds)}-{N(h.ToSeconds)} s")) + " (--hold-span)");
+        }
+
         console.Write(grid);
         console.WriteLine();
 

@@ -15,7 +15,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--scene <FILE>")]
-        [Description("Scene file (JSON, see host/Scenes/).")]
+        [Description("Scene file (JSON; format in docs/scene-format.md, examples in host/Scenes/).")]
         [FilePath]
         public string? Scene { get; set; }
 

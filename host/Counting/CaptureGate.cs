@@ -24,10 +24,10 @@ public readonly struct CaptureGate
     /// <summary>The counter's result for this gate (frequency of the counted signal before the prescaler, state, error).</summary>
     public GateResult Gate { get; }
 
-    /// <summary>Mean of the <c>temp_c</c> samples that fell in this gate, degrees C; null when no new sample fell in it.</summary>
+    /// <summary>Mean of the <c>temp_c</c> samples that fell in this gate, deg C; null when no new sample fell in it.</summary>
     public double? TemperatureC { get; }
 
-    /// <summary>The most recent <c>temp_c</c> sample at or before this gate's end (carried forward), degrees C; null before the first sample.</summary>
+    /// <summary>The most recent <c>temp_c</c> sample at or before this gate's end (carried forward), deg C; null before the first sample.</summary>
     public double? LatestTemperatureC { get; }
 
     /// <summary>The marks of the rows in this gate, in row order (<c>rebaseline</c>, <c>hold</c>, <c>release</c> or free text); empty when none.</summary>

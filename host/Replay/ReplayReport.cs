@@ -3,8 +3,8 @@ using FreqReadout.Counting;
 namespace FreqReadout.Host.Replay;
 
 /// <summary>
-/// The summary of a replay (the <c>replay --json</c> contract of issue 3 with the meanings of
-/// PRODUCT.md): baseline_hz the first captured baseline of the counted signal; noise_hz the robust
+/// The summary of a replay (the <c>replay --json</c> contract with the meanings of
+/// docs/json-output.md): baseline_hz the first captured baseline of the counted signal; noise_hz the robust
 /// sigma (1.482602218505602 x MAD) of all target-free residuals of the run, counted signal;
 /// drift_hz_per_min the least-squares slope of the tracked baseline (counted signal) over the run.
 /// Null where the run gave no baseline.

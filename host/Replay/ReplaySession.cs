@@ -49,6 +49,7 @@ public sealed class ReplaySession
     private double _pointSum;
     private int _pointCount;
     private bool _finished;
+    private int _nextHoldSwitch;
 
     /// <summary>Starts a replay.</summary>
     /// <exception cref="ArgumentException">The settings are invalid (message names the setting and its range).</exception>
@@ -61,6 +62,12 @@ public sealed class ReplaySession
 
     /// <summary>Gates processed so far.</summary>
     public long Gates => _gates;
+
+    /// <summary>
+    /// Stretches to replay in hold mode as if the capture had <c>hold</c> / <c>release</c> marks (<c>replay --hold-span</c>):
+    /// sorted, not overlapping (<see cref="HoldSpan.TryParseAll"/>). Set before the first gate. Empty by default.
+    /// </summary>
+    public IReadOnlyList<HoldSpan> HoldSpans { get; set; } = Array.Empty<HoldSpan>();
 
     /// <summary>Called with every reading and the gate it came from (for the readings CSV).</summary>
     public Action<Reading, CaptureGate>? ReadingSink { get; set; }
@@ -107,6 +114,22 @@ public sealed class ReplaySession
                     _otherMarks++;
                     break;
             }
+        }
+
+        // --hold-span: the same switches as marks on the first rows at or after FROM and TO (this gate holds those rows
+        // when it is the first to end at or after the time), acting from the next gate.
+        double end = item.Gate.EndSeconds;
+        while (_nextHoldSwitch < 2 * HoldSpans.Count)
+        {
+            HoldSpan span = HoldSpans[_nextHoldSwitch / 2];
+            bool on = _nextHoldSwitch % 2 == 0;
+            if (end < (on ? span.FromSeconds : span.ToSeconds))
+            {
+                break;
+            }
+
+            _pipeline.SetHold(on);
+            _nextHoldSwitch++;
         }
     }
 
@@ -209,6 +232,11 @@ public sealed class ReplaySession
         if (_belowFloor > 0)
         {
             _warnings.Add($"{_belowFloor} readings had the beat note below beat_floor_hz = {F(_settings.BeatFloorHz)} Hz: their sign is unclear (the side can flip and the oscillators pull together near zero beat)");
+        }
+
+        for (int i = (_nextHoldSwitch + 1) / 2; i < HoldSpans.Count; i++)
+        {
+            _warnings.Add($"--hold-span {HoldSpans[i]} had no effect: it begins after the last gate that could act on it ({F(_lastTime)} s)");
         }
 
         if (_otherMarks > 0)

@@ -20,7 +20,7 @@ public static class CoilTargetCoupling
         return Reciprocity.InductanceChangeH(polarizabilityM3, FieldPerA(coil, radialM, axialM));
     }
 
-    /// <summary>On-axis closed form dL = mu0 Re(M) N^2 R^4 / (4 (R^2 + z^2)^3), H (REFERENCES.md).</summary>
+    /// <summary>On-axis closed form dL = mu0 Re(M) N^2 R^4 / (4 (R^2 + z^2)^3), H (docs/references.md).</summary>
     public static double OnAxisInductanceChangeH(SearchCoil coil, Complex polarizabilityM3, double axialM)
     {
         double h = LoopField.OnAxisPerM(coil.Turns, coil.MeanRadiusM, axialM);

@@ -8,7 +8,7 @@ public static class DemoScenes
     /// <summary>
     /// Invented scenario: a crew scans a floor screed along a 3 m line for a buried 15 mm copper pipe (across the line), a
     /// small steel fixing and a large steel anchor, while a coil brought in from a cold van warms up (exponential settling
-    /// from 12 C towards 24 C). At the 100 kHz operating frequency the small fixing (sphere-equivalent radius 4.5 mm,
+    /// from 12 deg C towards 24 deg C). At the 100 kHz operating frequency the small fixing (sphere-equivalent radius 4.5 mm,
     /// crossover about 290 kHz) reads ferrous, while the large anchor (radius 15 mm, crossover about 26 kHz) is above its
     /// crossover and reads non-ferrous: the sign rule's limit, stated in the truth file.
     /// Edges of the search oscillator divided by 32, stamped by input capture on an 80 MHz 32-bit timer, temp_c about every 0.1 s.

@@ -1,7 +1,7 @@
 namespace FreqReadout.Host.Simulation;
 
 /// <summary>
-/// Material presets, 20 C: conductivities from REFERENCES.md "Materials" (CRC Handbook of Chemistry and Physics values,
+/// Material presets, 20 deg C: conductivities from docs/references.md "Materials and temperature" (CRC Handbook of Chemistry and Physics values,
 /// from memory). Mild steel permeability is widely variable (tens to hundreds at low field), so it is a parameter with
 /// default <see cref="DefaultSteelRelativePermeability"/>. Stainless 304 is austenitic: mu_r 1.
 /// This table is separate from the check values of the polarizability tests, which use their own conductivities.

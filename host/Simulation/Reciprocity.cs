@@ -3,7 +3,7 @@ using System.Numerics;
 namespace FreqReadout.Host.Simulation;
 
 /// <summary>
-/// Coil impedance change from a small target by reciprocity (REFERENCES.md): dL = mu0 Re(M) |H/I|^2,
+/// Coil impedance change from a small target by reciprocity (docs/references.md): dL = mu0 Re(M) |H/I|^2,
 /// dR = -w mu0 Im(M) |H/I|^2, with H/I the coil's field per ampere at the target (the vector dot product, so it holds off
 /// axis for an isotropic sphere). Valid while the target is small against its distance (about 10 radii).
 /// </summary>

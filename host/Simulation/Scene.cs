@@ -29,7 +29,7 @@ public sealed class Scene
     /// <summary>The search coil.</summary>
     public SceneCoil Coil { get; set; } = new();
 
-    /// <summary>The search oscillator (default 100 kHz).</summary>
+    /// <summary>The search oscillator (default 100 kHz, also when the object gives neither frequency_hz nor tuning_capacitance_nf).</summary>
     public SceneOscillator Oscillator { get; set; } = new() { FrequencyHz = 100_000 };
 
     /// <summary>The coil temperature profile (drives the search oscillator's drift).</summary>
@@ -83,7 +83,7 @@ public sealed class Scene
         {
             string where = ex.LineNumber.HasValue ? $":{ex.LineNumber.Value + 1}" : string.Empty;
             string path = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? string.Empty : $" at {ex.Path.TrimStart('$', '.')}";
-            throw new SceneException($"{sourceName}{where}: not a valid scene file (JSON, see host/Scenes/README.md){path}: {FirstSentence(ex.Message)}", ex);
+            throw new SceneException($"{sourceName}{where}: not a valid scene file (JSON, see docs/scene-format.md){path}: {FirstSentence(ex.Message)}", ex);
         }
 
         if (scene is null)
@@ -123,7 +123,7 @@ public sealed class Scene
         if (!(Coil.WindingDepthM >= 0 && Coil.WindingDepthM < Coil.MeanDiameterM / 2)) Fail("coil.winding_depth_m", "0 (from the wire) or in (0, mean_diameter_m / 2) m", Coil.WindingDepthM);
 
         var o = Oscillator;
-        if (o.FrequencyHz.HasValue == o.TuningCapacitanceNf.HasValue) Fail("oscillator.frequency_hz / oscillator.tuning_capacitance_nf", "exactly one of the two", o.FrequencyHz.HasValue ? "both" : "neither");
+        if (o.FrequencyHz.HasValue && o.TuningCapacitanceNf.HasValue) Fail("oscillator.frequency_hz / oscillator.tuning_capacitance_nf", "at most one of the two (neither: frequency_hz 100000)", "both");
         if (o.FrequencyHz.HasValue && !(o.FrequencyHz > 100 && o.FrequencyHz <= 20e6)) Fail("oscillator.frequency_hz", "in (100, 2e7] Hz", o.FrequencyHz);
         if (o.TuningCapacitanceNf.HasValue && !(o.TuningCapacitanceNf > 0.001 && o.TuningCapacitanceNf <= 1e6)) Fail("oscillator.tuning_capacitance_nf", "in (0.001, 1e6] nF", o.TuningCapacitanceNf);
         if (o.TempcoPpmPerK.HasValue && !(Math.Abs(o.TempcoPpmPerK.Value) <= 10000)) Fail("oscillator.tempco_ppm_per_k", "in [-10000, 10000] ppm/K", o.TempcoPpmPerK);
@@ -131,6 +131,9 @@ public sealed class Scene
         if (!(Math.Abs(o.CoilPpmPerK) <= 10000)) Fail("oscillator.coil_ppm_per_k", "in [-10000, 10000] ppm/K", o.CoilPpmPerK);
         if (!(o.NominalTemperatureC > -100 && o.NominalTemperatureC < 200)) Fail("oscillator.nominal_temperature_c", "in (-100, 200) C", o.NominalTemperatureC);
         if (!o.TempcoPpmPerK.HasValue && o.Capacitor == CapacitorDielectric.Custom && !o.CapacitorPpmPerK.HasValue) Fail("oscillator.capacitor_ppm_per_k", "given when oscillator.capacitor is custom", null);
+        if (o.CapacitorPpmPerK.HasValue && !(Math.Abs(o.CapacitorPpmPerK.Value) <= 10000)) Fail("oscillator.capacitor_ppm_per_k", "in [-10000, 10000] ppm/K", o.CapacitorPpmPerK);
+        if (!(Math.Abs(o.CoilPpmPerK) <= 10000)) Fail("oscillator.coil_ppm_per_k", "in [-10000, 10000] ppm/K", o.CoilPpmPerK);
+        if (!(o.NominalTemperatureC > -100 && o.NominalTemperatureC < 200)) Fail("oscillator.nominal_temperature_c", "in (-100, 200) deg C", o.NominalTemperatureC);
         CheckNoise("oscillator", o.WhiteFmAdev1s, o.FlickerAdev, Fail);
         CheckTemperature("temperature", Temperature, Fail);
 
@@ -138,7 +141,7 @@ public sealed class Scene
         {
             if (!(Reference.FrequencyHz > 100 && Reference.FrequencyHz <= 20e6)) Fail("reference.frequency_hz", "in (100, 2e7] Hz", Reference.FrequencyHz);
             if (!(Math.Abs(Reference.TempcoPpmPerK) <= 10000)) Fail("reference.tempco_ppm_per_k", "in [-10000, 10000] ppm/K", Reference.TempcoPpmPerK);
-            if (!(Reference.NominalTemperatureC > -100 && Reference.NominalTemperatureC < 200)) Fail("reference.nominal_temperature_c", "in (-100, 200) C", Reference.NominalTemperatureC);
+            if (!(Reference.NominalTemperatureC > -100 && Reference.NominalTemperatureC < 200)) Fail("reference.nominal_temperature_c", "in (-100, 200) deg C", Reference.NominalTemperatureC);
             CheckNoise("reference", Reference.WhiteFmAdev1s, Reference.FlickerAdev, Fail);
             if (Reference.Temperature is null) Fail("reference.temperature", "an object (or left out)", null);
             CheckTemperature("reference.temperature", Reference.Temperature!, Fail);
@@ -179,7 +182,7 @@ public sealed class Scene
         if (!(h.SnapshotIntervalS >= 1e-5 && h.SnapshotIntervalS <= 1)) Fail("hardware.snapshot_interval_s", "in [1e-5, 1] s", h.SnapshotIntervalS);
         if (!(h.ReadJitterS >= 0 && h.ReadJitterS <= h.SnapshotIntervalS / 4)) Fail("hardware.read_jitter_s", "in [0, snapshot_interval_s / 4] s", h.ReadJitterS);
         if (h.TempEveryRows < 0 || h.TempEveryRows > 1_000_000_000) Fail("hardware.temp_every_rows", "an integer 0..1000000000 (0 = no temp_c column)", h.TempEveryRows);
-        if (!(h.TempResolutionC >= 0 && h.TempResolutionC <= 10)) Fail("hardware.temp_resolution_c", "in [0, 10] C", h.TempResolutionC);
+        if (!(h.TempResolutionC >= 0 && h.TempResolutionC <= 10)) Fail("hardware.temp_resolution_c", "in [0, 10] deg C", h.TempResolutionC);
         if (!(h.ControlStepS >= 1e-5 && h.ControlStepS <= 0.1)) Fail("hardware.control_step_s", "in [1e-5, 0.1] s", h.ControlStepS);
 
         if (!(Faults.GlitchesPerS >= 0 && Faults.GlitchesPerS <= 1e4)) Fail("faults.glitches_per_s", "in [0, 1e4] per s", Faults.GlitchesPerS);
@@ -233,16 +236,16 @@ public sealed class Scene
 
     private static void CheckTemperature(string owner, SceneTemperature t, Action<string, string, object?> fail)
     {
-        if (!(t.StartC > -100 && t.StartC < 200)) fail($"{owner}.start_c", "in (-100, 200) C", t.StartC);
-        if (!(t.AmbientC > -100 && t.AmbientC < 200)) fail($"{owner}.ambient_c", "in (-100, 200) C", t.AmbientC);
-        if (t.Kind == TemperatureProfileKind.Settling && !(t.TimeConstantS > 0 && t.TimeConstantS <= 1e6)) fail($"{owner}.time_constant_s", "in (0, 1e6] s", t.TimeConstantS);
+        if (!(t.StartC > -100 && t.StartC < 200)) fail($"{owner}.start_c", "in (-100, 200) deg C", t.StartC);
+        if (!(t.AmbientC > -100 && t.AmbientC < 200)) fail($"{owner}.ambient_c", "in (-100, 200) deg C", t.AmbientC);
+        if (t.Kind == TemperatureProfileKind.Settling && !(t.TimeConstantS > 0 && t.TimeConstantS <= 1e7)) fail($"{owner}.time_constant_s", "in (0, 1e7] s", t.TimeConstantS);
         if (t.Points is null) fail($"{owner}.points", "a list (or left out)", null);
         double last = double.NegativeInfinity;
         for (int i = 0; i < t.Points!.Count; i++)
         {
             var p = t.Points[i];
             if (p is null || !(p.TimeS >= 0 && p.TimeS <= 86400 * 7) || !(p.TimeS > last)) fail($"{owner}.points[{i}].time_s", "increasing, in [0, 604800] s", p?.TimeS);
-            if (!(p!.TempC > -100 && p.TempC < 200)) fail($"{owner}.points[{i}].temp_c", "in (-100, 200) C", p.TempC);
+            if (!(p!.TempC > -100 && p.TempC < 200)) fail($"{owner}.points[{i}].temp_c", "in (-100, 200) deg C", p.TempC);
             last = p.TimeS;
         }
 

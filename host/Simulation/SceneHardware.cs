@@ -42,7 +42,7 @@ public sealed class SceneHardware
     /// <summary>A temp_c sample every this many rows; 0 = no temp_c column. Default 0.</summary>
     public int TempEveryRows { get; set; }
 
-    /// <summary>Temperature sensor resolution, C (samples are rounded to it). Default 0.0625.</summary>
+    /// <summary>Temperature sensor resolution, deg C (samples are rounded to it). Default 0.0625.</summary>
     public double TempResolutionC { get; set; } = 0.0625;
 
     /// <summary>Step at which the slow parts (geometry, drift, flicker) are evaluated, s; the counted frequency is linear between steps. Default 0.001.</summary>

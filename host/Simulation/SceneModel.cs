@@ -15,9 +15,9 @@ public sealed class SceneModel
         Coil = scene.Coil.ToSearchCoil();
         InductanceH = scene.Coil.InductanceModel == InductanceModel.ThinLoop ? Coil.ThinLoopInductanceH : Coil.WheelerInductanceH;
         var o = scene.Oscillator;
-        if (o.FrequencyHz.HasValue)
+        if (o.FrequencyOrDefaultHz() is double frequencyHz)
         {
-            SearchNominalHz = o.FrequencyHz.Value;
+            SearchNominalHz = frequencyHz;
             CapacitanceF = LcResonance.CapacitanceF(InductanceH, SearchNominalHz);
         }
         else

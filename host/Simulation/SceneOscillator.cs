@@ -7,11 +7,20 @@ namespace FreqReadout.Host.Simulation;
 /// </summary>
 public sealed class SceneOscillator
 {
-    /// <summary>Nominal operating frequency at <see cref="NominalTemperatureC"/>, no target, Hz; null when the capacitance is given.</summary>
+    /// <summary>The operating frequency when neither it nor the tuning capacitance is given, Hz.</summary>
+    public const double DefaultFrequencyHz = 100_000;
+
+    /// <summary>Nominal operating frequency at <see cref="NominalTemperatureC"/>, no target, Hz; null when the capacitance is given (or neither, meaning <see cref="DefaultFrequencyHz"/>).</summary>
     public double? FrequencyHz { get; set; }
 
     /// <summary>Tuning capacitance, nF; null when the frequency is given.</summary>
     public double? TuningCapacitanceNf { get; set; }
+
+    /// <summary>
+    /// The operating frequency to use, Hz: <see cref="FrequencyHz"/> when given, <see cref="DefaultFrequencyHz"/> when neither
+    /// it nor <see cref="TuningCapacitanceNf"/> is given, null when the capacitance sets the frequency.
+    /// </summary>
+    public double? FrequencyOrDefaultHz() => FrequencyHz ?? (TuningCapacitanceNf.HasValue ? null : DefaultFrequencyHz);
 
     /// <summary>Frequency tempco, ppm/K; null = derived from the parts.</summary>
     public double? TempcoPpmPerK { get; set; }
@@ -25,7 +34,7 @@ public sealed class SceneOscillator
     /// <summary>Coil inductance tempco, ppm/K (copper expansion 16.5 by default).</summary>
     public double CoilPpmPerK { get; set; } = Tempco.CopperExpansionPpmPerK;
 
-    /// <summary>Temperature at which the oscillator runs at its nominal frequency, C. Default 20.</summary>
+    /// <summary>Temperature at which the oscillator runs at its nominal frequency, deg C. Default 20.</summary>
     public double NominalTemperatureC { get; set; } = 20.0;
 
     /// <summary>White frequency noise as its Allan deviation at 1 s (sigma_y(tau) = this / sqrt(tau)). Default 2e-8.</summary>

@@ -13,10 +13,10 @@ public sealed class SceneReference
     /// <summary>Reference tempco, ppm/K. Default 0.</summary>
     public double TempcoPpmPerK { get; set; }
 
-    /// <summary>Temperature at which it runs at its nominal frequency, C. Default 20.</summary>
+    /// <summary>Temperature at which it runs at its nominal frequency, deg C. Default 20.</summary>
     public double NominalTemperatureC { get; set; } = 20.0;
 
-    /// <summary>The reference's own temperature profile. Default constant 20 C.</summary>
+    /// <summary>The reference's own temperature profile. Default constant 20 deg C.</summary>
     public SceneTemperature Temperature { get; set; } = new();
 
     /// <summary>White FM Allan deviation at 1 s. Default 2e-8.</summary>

@@ -6,10 +6,10 @@ public sealed class SceneTemperature
     /// <summary>Profile shape. Default constant.</summary>
     public TemperatureProfileKind Kind { get; set; } = TemperatureProfileKind.Constant;
 
-    /// <summary>Temperature at t = 0 (and the constant value), C. Default 20.</summary>
+    /// <summary>Temperature at t = 0 (and the constant value), deg C. Default 20.</summary>
     public double StartC { get; set; } = 20.0;
 
-    /// <summary>Settling: the ambient temperature approached, C. Default 20.</summary>
+    /// <summary>Settling: the ambient temperature approached, deg C. Default 20.</summary>
     public double AmbientC { get; set; } = 20.0;
 
     /// <summary>Settling: time constant, s (&gt; 0). Default 300.</summary>
@@ -19,7 +19,7 @@ public sealed class SceneTemperature
     public List<TemperaturePoint> Points { get; set; } = new();
 
     /// <summary>
-    /// Temperature at time t (s), C. Constant: start_c. Settling: ambient + (start - ambient) exp(-t/tau). Steps: the value
+    /// Temperature at time t (s), deg C. Constant: start_c. Settling: ambient + (start - ambient) exp(-t/tau). Steps: the value
     /// of the last point with time &lt;= t (start_c before the first). Ramps: linear between neighbouring points, start_c
     /// at t = 0 to the first point, the last value after the last point. An empty point list gives start_c.
     /// </summary>

@@ -68,8 +68,16 @@ public sealed class SimulationTruth
     /// <summary>Warnings about the scene (dipole model stretched, beat near zero, ...).</summary>
     public List<string> Warnings { get; set; } = new();
 
-    /// <summary>Indented JSON with the scene options (snake_case).</summary>
-    public string ToJson() => JsonSerializer.Serialize(this, Simulation.Scene.JsonOptions);
+    /// <summary>
+    /// Indented JSON with the scene options (snake_case), every key present: what does not apply is null, never left out
+    /// (docs/json-output.md); <c>parameters</c> is the scene with its unset optional settings as null.
+    /// </summary>
+    public string ToJson() => JsonSerializer.Serialize(this, WriteOptions);
+
+    private static readonly JsonSerializerOptions WriteOptions = new(Simulation.Scene.JsonOptions)
+    {
+        DefaultIgnoreCondition = System.Text.Json.Serialization.JsonIgnoreCondition.Never,
+    };
 
     /// <summary>Parses a truth file.</summary>
     public static SimulationTruth Parse(string json) => JsonSerializer.Deserialize<SimulationTruth>(json, Simulation.Scene.JsonOptions)

@@ -74,7 +74,7 @@ public static class SpherePolarizability
     /// <summary>
     /// Ferrous crossover frequency (Re M = 0), Hz, by bracketing on a logarithmic frequency grid and Brent's method
     /// (MathNet.Numerics.RootFinding.Brent) to 1e-10 relative. Returns NaN when mu_r &lt;= 1 (no crossover: Re M &lt; 0 at all f).
-    /// The REFERENCES.md estimate f_x ~ 1.641 mu_r / (pi mu0 sigma a^2) is <see cref="CrossoverEstimateHz"/>.
+    /// The docs/references.md estimate f_x ~ 1.641 mu_r / (pi mu0 sigma a^2) is <see cref="CrossoverEstimateHz"/>.
     /// </summary>
     public static double CrossoverFrequencyHz(double radiusM, double conductivitySPerM, double relativePermeability)
     {
@@ -111,7 +111,7 @@ public static class SpherePolarizability
         return double.NaN;
     }
 
-    /// <summary>Approximate crossover f_x ~ 1.641 mu_r / (pi mu0 sigma a^2), Hz (REFERENCES.md, valid for mu_r &gt;&gt; 1).</summary>
+    /// <summary>Approximate crossover f_x ~ 1.641 mu_r / (pi mu0 sigma a^2), Hz (docs/references.md, valid for mu_r &gt;&gt; 1).</summary>
     public static double CrossoverEstimateHz(double radiusM, double conductivitySPerM, double relativePermeability)
     {
         return 1.641 * relativePermeability / (Math.PI * PhysicalConstants.Mu0HPerM * conductivitySPerM * radiusM * radiusM);

@@ -6,6 +6,6 @@ public sealed class TemperaturePoint
     /// <summary>Time from the capture start, s (&gt;= 0, increasing).</summary>
     public double TimeS { get; set; }
 
-    /// <summary>Temperature, C.</summary>
+    /// <summary>Temperature, deg C.</summary>
     public double TempC { get; set; }
 }

@@ -1,7 +1,7 @@
 namespace FreqReadout.Detection
 {
     /// <summary>
-    /// The sign rule and the beat-side conversion (PRODUCT.md, "Sign rule"): a non-ferrous conductor
+    /// The sign rule and the beat-side conversion (README.md, "The sign rule and its limit"): a non-ferrous conductor
     /// lowers L so the search frequency rises; a ferrous object raises L so it falls (at low
     /// frequency; above the part's crossover it reads non-ferrous). A heuristic, hence the unclear band
     /// and the polarity setting.

@@ -5,7 +5,7 @@ using FreqReadout.Host.Captures;
 namespace FreqReadout.Benchmarks;
 
 /// <summary>
-/// Capture reading, per row: the text format (UTF-8, one tick per line, the contract of PRODUCT.md) and
+/// Capture reading, per row: the text format (UTF-8, one tick per line, the contract of docs/capture-text-format.md) and
 /// the binary format (delta-encoded blocks with CRC-32), both from memory so the disk is not timed;
 /// 1 000 000 rows of a 100 kHz signal on an 80 MHz, 32-bit timer (about 9 digits per tick).
 /// Run: dotnet run -c Release --project tests/FreqReadout.Benchmarks -- --filter '*CaptureReading*' --job short

@@ -6,7 +6,7 @@ namespace FreqReadout.Tests.Captures;
 /// <summary>Helpers: the contract samples copied beside the tests, and readers over in-memory text.</summary>
 internal static class CaptureTestFiles
 {
-    /// <summary>Folder of the verbatim copies of ../shared/contracts (copied to the output by the csproj glob).</summary>
+    /// <summary>Folder of the contract samples in the test output: docs/contracts, copied there by the csproj.</summary>
     public static string ContractsDir => Path.Combine(AppContext.BaseDirectory, "Data", "contracts");
 
     public static string Contract(string name) => Path.Combine(ContractsDir, name);

@@ -5,7 +5,8 @@ using static FreqReadout.Tests.Captures.CaptureTestFiles;
 namespace FreqReadout.Tests.Captures;
 
 /// <summary>
-/// Every sample of ../shared/contracts (copied verbatim to Data/contracts) read as its README says.
+/// Every contract sample of docs/contracts (copied by the csproj to Data/contracts in the test output)
+/// read as its README says.
 /// The expected values below are the README's own statements about each (invented) sample, or
 /// counted from the file itself where the README gives the count.
 /// </summary>
@@ -199,15 +200,37 @@ public sealed class ContractSampleTests
         }
 
         var sharedFiles = Directory.GetFiles(shared).Select(Path.GetFileName).OrderBy(n => n, StringComparer.Ordinal).ToArray();
-        var copies = Directory.GetFiles(ContractsDir).Select(Path.GetFileName).OrderBy(n => n, StringComparer.Ordinal).ToArray();
+        var copies = Directory.GetFiles(ContractsDir).Select(Path.GetFileName)
+            .Where(n => n != OriginNote) // the project's own note beside the verbatim copies
+            .OrderBy(n => n, StringComparer.Ordinal).ToArray();
         Assert.Equal(sharedFiles, copies);
         foreach (string name in sharedFiles!)
         {
             Assert.True(
                 File.ReadAllBytes(Path.Combine(shared, name!)).AsSpan().SequenceEqual(File.ReadAllBytes(Contract(name!))),
-                $"Data/contracts/{name} differs from {Path.Combine(shared, name!)}: copy it again verbatim");
+                $"docs/contracts/{name} differs from {Path.Combine(shared, name!)}: copy it again verbatim");
         }
     }
+
+    [Fact]
+    public void The_test_output_holds_the_repository_copy_in_docs_contracts()
+    {
+        // One copy in the repository (docs/contracts); the test output gets it through the csproj link.
+        string docs = Path.Combine(FreqReadout.Tests.Docs.CliProcess.RepoRoot(), "docs", "contracts");
+        var inDocs = Directory.GetFiles(docs).Select(Path.GetFileName).OrderBy(n => n, StringComparer.Ordinal).ToArray();
+        var inOutput = Directory.GetFiles(ContractsDir).Select(Path.GetFileName).OrderBy(n => n, StringComparer.Ordinal).ToArray();
+        Assert.Equal(inDocs, inOutput);
+        Assert.Contains(OriginNote, inDocs);
+        foreach (string name in inDocs!)
+        {
+            Assert.True(File.ReadAllBytes(Path.Combine(docs, name!)).AsSpan().SequenceEqual(File.ReadAllBytes(Contract(name!))), name + " in the test output differs from docs/contracts: rebuild");
+        }
+
+        Assert.False(Directory.Exists(Path.Combine(FreqReadout.Tests.Docs.CliProcess.RepoRoot(), "tests", "FreqReadout.Tests", "Data", "contracts")), "a second copy of the samples under tests/: keep only docs/contracts");
+    }
+
+    /// <summary>The project's note on where the samples come from (not one of the verbatim copies).</summary>
+    internal const string OriginNote = "ORIGIN.md";
 
     /// <summary>Searches upward from the test directory for a folder shared/contracts.</summary>
     internal static string? FindSharedContracts()

@@ -6,7 +6,7 @@ using static FreqReadout.Tests.Captures.CaptureTestFiles;
 
 namespace FreqReadout.Tests.Captures;
 
-/// <summary>The text format rules of PRODUCT.md beyond the contract samples: malformed cases, encodings, round trip.</summary>
+/// <summary>The text format rules of docs/capture-text-format.md beyond the contract samples: malformed cases, encodings, round trip.</summary>
 public sealed class TextCaptureFormatTests
 {
     private const string Head = "# freqreadout capture 1\n# clock_hz = 1000000\n";
@@ -119,7 +119,7 @@ public sealed class TextCaptureFormatTests
     [InlineData(Head + "# started_utc = 30/11/2026\ntick\n", 3, "expected started_utc = YYYY-MM-DDTHH:MM:SSZ")]
     [InlineData(Head + "tick,temp_c\n1,21,5\n", 4, "expected 2 comma-separated fields (tick,temp_c), found 3")]
     [InlineData(Head + "tick,temp_c\n1\n", 4, "expected 2 comma-separated fields (tick,temp_c), found 1")]
-        [InlineData(Head + "tick,temp_c\n1,warm\n", 4, "expected temp_c as a number in degrees Celsius in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found 'warm'")]
+        [InlineData(Head + "tick,temp_c\n1,warm\n", 4, "expected temp_c as a number of deg C in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found 'warm'")]
     [InlineData(Head + "tick\n-1\n", 4, "expected the tick as an unsigned integer (digits only), found '-1'")]
     [InlineData(Head + "tick\n\n,\n", 5, "expected 1 comma-separated field (tick), found 2")]
     [InlineData(Head + "tick\n18446744073709551616\n", 4, "tick 18446744073709551616 exceeds the timer width: timer_bits = 64")]

@@ -141,7 +141,7 @@ public sealed class CountCommandTests
             return doc.RootElement.GetProperty("error_hz").GetDouble();
         }
 
-        // With 3 ticks of jitter the error model is the white one, sigma_x^2 = 1/12 + jitter^2 (PRODUCT.md:
+        // With 3 ticks of jitter the error model is the white one, sigma_x^2 = 1/12 + jitter^2 (docs/json-output.md, error_hz:
         // quantisation q^2/12 plus the configured jitter; Rubiola 2005): Var(P) = 12 sigma_x^2 / (N (N^2 - 1)),
         // N = 101, P = 200 ticks, f = 50 kHz. Changed deliberately (issue 8): without jitter the figure is
         // no longer the white 1/12 one but the quantisation model's, here at a whole-tick period its

@@ -316,7 +316,7 @@ public sealed class ReplayCommandTests : IDisposable
     public void Snapshot_capture_replays_through_the_snapshot_counter()
     {
         // Pulse-counter reads every 1 ms (+-20 us) of a 100 003.7 Hz search oscillator (1 MHz timer): +12 Hz and
-        // -12 Hz passes (whole counts limit a 0.1 s gate to about 1 Hz, PRODUCT.md: 1 / (T sqrt(M))).
+        // -12 Hz passes (whole counts limit a 0.1 s gate to about 1 Hz, the snapshot error model: 1 / (T sqrt(M))).
         var capture = new SyntheticEdgeCapture
         {
             DurationSeconds = 30,

@@ -4,7 +4,7 @@ using FreqReadout.Tests.Tracking;
 namespace FreqReadout.Tests.Commands;
 
 /// <summary>
-/// Meanings of <c>replay --json</c> fixed in PRODUCT.md, end to end through synthetic edge captures (invented
+/// Meanings of <c>replay --json</c> fixed in docs/json-output.md, end to end through synthetic edge captures (invented
 /// data): a signal that stops for 3 s (no rows written) is said in a warning, its return is re-baselined with
 /// reason signal_restored, a pass during the following settling is not reported (the settling warning says
 /// when that was), passes before and after are found; "unclear" events are listed.

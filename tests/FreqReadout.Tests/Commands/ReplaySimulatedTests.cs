@@ -3,7 +3,7 @@ using System.Text.Json;
 
 namespace FreqReadout.Tests.Commands;
 
-/// <summary>The simulator's built-in floor-scan scene (invented scenario, physics of REFERENCES.md), written once per class.</summary>
+/// <summary>The simulator's built-in floor-scan scene (invented scenario, physics of docs/references.md), written once per class.</summary>
 public sealed class SimulatedDemoCapture : IDisposable
 {
     public SimulatedDemoCapture()
@@ -31,7 +31,7 @@ public sealed class SimulatedDemoCapture : IDisposable
 /// <summary>
 /// Replay and calibrate on a capture from the simulator (copper pipe, small steel fixing below its
 /// ferrous crossover, large steel anchor above it, four passes each, coil warming): every pass found once,
-/// classed as the truth's sign rule says (the anchor reads non-ferrous, PRODUCT.md sign rule), peak near
+/// classed as the truth's sign rule says (the anchor reads non-ferrous, README.md sign rule), peak near
 /// the truth's peak search shift; calibrate finds the scene's tempco.
 /// </summary>
 [Collection(ConsoleCollection.Name)]

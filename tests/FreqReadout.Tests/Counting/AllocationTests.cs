@@ -3,7 +3,7 @@ using FreqReadout.Counting;
 namespace FreqReadout.Tests.Counting;
 
 /// <summary>
-/// Hot paths allocate nothing (RULES.md / PRODUCT.md: the device's garbage collector is slow and a
+/// Hot paths allocate nothing (DEVELOPERS.md, nanoFramework rules: the device's garbage collector is slow and a
 /// pause drops edges). Counted with GC.GetAllocatedBytesForCurrentThread over at least a million
 /// inputs after a warm-up; the inputs include glitches, dropouts, no-signal polls and gate closes.
 /// </summary>

@@ -4,8 +4,8 @@ using FreqReadout.Counting;
 namespace FreqReadout.Tests.Counting;
 
 /// <summary>
-/// The counting core on the capture-format contract samples (verbatim copies in Data/contracts, see
-/// the contract README; invented data whose truth that README states). Parsed here with a minimal
+/// The counting core on the capture-format contract samples (docs/contracts, copied to Data/contracts in
+/// the test output; see the contract README there: invented data whose truth that README states). Parsed here with a minimal
 /// reader: the real capture reader is host code with its own tests.
 /// </summary>
 public class ContractSampleTests

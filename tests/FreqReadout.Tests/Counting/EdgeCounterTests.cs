@@ -30,7 +30,7 @@ public class EdgeCounterTests
     }
 
     /// <summary>
-    /// Gate semantics of PRODUCT.md "Machine-readable output": time 0 is the first edge, a time gate
+    /// Gate semantics of docs/json-output.md ("count --json"): time 0 is the first edge, a time gate
     /// closes on the first edge at or after T, gates share their boundary edge, Edges counts both
     /// boundary edges. 200 kHz on 80 MHz is exactly 400 ticks per edge (exact arithmetic).
     /// </summary>
@@ -147,7 +147,7 @@ public class EdgeCounterTests
     }
 
     /// <summary>
-    /// Variance ratio Pi/Omega = N (N+1) / (6 (N-1)): REFERENCES.md check values N=10: 2.037,
+    /// Variance ratio Pi/Omega = N (N+1) / (6 (N-1)): docs/references.md check values N=10: 2.037,
     /// N=100: 17.00, N=1000: 167.0 (Rubiola, Rev. Sci. Instrum. 76, 054703, 2005; Danielson,
     /// Vernotte, Rubiola, arXiv:1604.01004, 2016, eq. 21), reproduced from the two variance formulas.
     /// </summary>

@@ -144,7 +144,7 @@ public class TimerUnwrapperTests
         Assert.False(counts64.TryUnwrap(6, out _));
     }
 
-    /// <summary>Fast-wrap rule of PRODUCT.md: warn when the timer wraps in fewer than 8 expected intervals; once.</summary>
+    /// <summary>Fast-wrap rule of docs/capture-text-format.md: warn when the timer wraps in fewer than 8 expected intervals; once.</summary>
     [Fact]
     public void Fast_wrap_warning_is_given_once_and_only_when_due()
     {

@@ -6,7 +6,7 @@ using FreqReadout.Tests.Tracking;
 namespace FreqReadout.Tests.Detection;
 
 /// <summary>
-/// Beat mode above and below (PRODUCT.md: search shift = +beat shift above, -beat shift below; polarity
+/// Beat mode above and below (docs/capture-text-format.md, "What the numbers mean": search shift = +beat shift above, -beat shift below; polarity
 /// after that), the beat floor, the unclear band, the minimum duration, and the sign rule itself.
 /// </summary>
 public class BeatAndSignTests
@@ -88,7 +88,7 @@ public class BeatAndSignTests
     [InlineData(-1.0, 50.0, Polarity.Normal, true, TargetClass.Unclear)] // forced (beat floor, mixed sign)
     public void Sign_rule(double shift, double sigma, Polarity polarity, bool forced, TargetClass expected)
     {
-        // PRODUCT.md "Sign rule": positive search shift -> non-ferrous, negative -> ferrous; unclear near the threshold.
+        // README.md "The sign rule and its limit": positive search shift -> non-ferrous, negative -> ferrous; unclear near the threshold.
         Assert.Equal(expected, SignRule.Classify(shift, sigma, 5.0, 1.0, polarity, forced));
     }
 

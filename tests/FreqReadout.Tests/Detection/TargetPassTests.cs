@@ -59,7 +59,7 @@ public class TargetPassTests
             Assert.True(e.StartSeconds <= p.CenterSeconds + 0.1 + 1e-9 && e.EndSeconds >= p.CenterSeconds - 1e-9, what);
             Assert.True(Math.Abs(e.PeakSeconds - p.CenterSeconds) <= (p.WidthSeconds / 2) + 1e-9, what);
 
-            // Peak within 10 % (issue 3). The peak is the largest |shift| of the readings (PRODUCT.md), so it
+            // Peak within 10 % (issue 3). The peak is the largest |shift| of the readings (docs/json-output.md, events[].peak_s), so it
             // carries one gate's noise plus the upward bias of a maximum: at 8 sigma one noise sigma is
             // already 12.5 %, and no max-based peak can promise 10 % there. So the bound is 10 % or 4 noise
             // sigma, whichever is larger (4 sigma: one of the ~5 near-peak gates of a wide pass exceeds it
@@ -68,7 +68,7 @@ public class TargetPassTests
             double bound = Math.Max(tolerancePercent / 100 * Math.Abs(truth), 4 * Noise);
             Assert.True(Math.Abs(e.PeakShiftHz - truth) <= bound, what);
 
-            // Class by the sign of the synthetic search shift (PRODUCT.md sign rule; polarity applied after).
+            // Class by the sign of the synthetic search shift (README.md sign rule; polarity applied after).
             bool rise = truth > 0;
             if (polarity == Polarity.Inverted)
             {

@@ -187,7 +187,7 @@ public class CaptureSimulatorTests
     [Fact]
     public void Drift_FollowsTemperatureTimesTempcoFromParts()
     {
-        // REFERENCES.md: df/f = -(alpha_L + alpha_C)/2, copper expansion 16.5 ppm/K (CRC, memory), polystyrene about
+        // docs/references.md: df/f = -(alpha_L + alpha_C)/2, copper expansion 16.5 ppm/K (CRC, memory), polystyrene about
         // -125 ppm/K (secondary sources): +54.25 ppm/K. A ramp of +2 K over 1 s at 100 kHz: +10.85 Hz.
         var scene = Quiet(100_000, 1.0);
         scene.Oscillator.TempcoPpmPerK = null;
@@ -353,7 +353,7 @@ public class CaptureSimulatorTests
         Assert.Contains("temp_c", sim.Metadata.ExtraColumns);
         var temps = w.Rows.Where(r => r.TemperatureC.HasValue).ToList();
         Assert.Equal(10, temps.Count);
-        Assert.All(temps, r => Assert.Equal(21.3125, r.TemperatureC!.Value, 1e-9)); // 0.0625 C resolution
+        Assert.All(temps, r => Assert.Equal(21.3125, r.TemperatureC!.Value, 1e-9)); // 0.0625 deg C resolution
     }
 
     [Fact]

@@ -10,7 +10,7 @@ public class CoilTargetShiftTests
     [Fact]
     public void WorkedCoilPlusSphere_Copper()
     {
-        // REFERENCES.md worked coil check (calculated): R = 0.1 m, 30 turns, 1 cm x 1 cm winding (358.8 uH), sphere a = 1 cm
+        // docs/references.md worked coil check (calculated): R = 0.1 m, 30 turns, 1 cm x 1 cm winding (358.8 uH), sphere a = 1 cm
         // on axis at z = 0.1 m, 10 kHz, copper (sigma 5.8e7): dL = -20.005 nH (0.001 nH), df/f = +2.788e-5 (0.001e-5).
         Complex m = SpherePolarizability.PolarizabilityM3(0.01, 5.8e7, 1.0, 1e4);
         double dl = CoilTargetCoupling.InductanceChangeH(WorkedCoil, m, 0.0, 0.1);
@@ -32,7 +32,7 @@ public class CoilTargetShiftTests
     [Fact]
     public void FarField_ShiftFallsAsInverseSixthPower()
     {
-        // REFERENCES.md: dL ~ N^2 R^4 / (4 (R^2 + z^2)^3) -> z^-6 far away. Local log-log slope between 2 m and 2.2 m
+        // docs/references.md: dL ~ N^2 R^4 / (4 (R^2 + z^2)^3) -> z^-6 far away. Local log-log slope between 2 m and 2.2 m
         // (z = 20 R) is -6 (R^2/z^2) of a percent: tolerance 0.05 on the slope.
         Complex m = SpherePolarizability.PolarizabilityM3(0.01, 5.8e7, 1.0, 1e4);
         double d1 = CoilTargetCoupling.InductanceChangeH(WorkedCoil, m, 0.0, 2.0);

@@ -7,7 +7,7 @@ public class CrossoverTests
     [Fact]
     public void OneCentimetreSteel()
     {
-        // REFERENCES.md ferrous crossover (Re M = 0, calculated, Wait 1951 model): mu_r = 100, a = 1 cm, sigma = 6e6
+        // docs/references.md ferrous crossover (Re M = 0, calculated, Wait 1951 model): mu_r = 100, a = 1 cm, sigma = 6e6
         // -> 69.25 kHz; tolerance 0.01 kHz (4 significant figures given).
         double fx = SpherePolarizability.CrossoverFrequencyHz(0.01, 6e6, 100);
         Assert.Equal(69.25e3, fx, 10.0);

@@ -11,7 +11,7 @@ public class LoopFieldTests
     [InlineData(0.3)]
     public void OffAxisField_AtZeroOffset_EqualsOnAxisBiotSavart(double z)
     {
-        // REFERENCES.md: on-axis H/I = N R^2 / (2 (R^2 + z^2)^(3/2)) (Biot-Savart). The elliptic form at rho = 1e-9 m
+        // docs/references.md: on-axis H/I = N R^2 / (2 (R^2 + z^2)^(3/2)) (Biot-Savart). The elliptic form at rho = 1e-9 m
         // and at rho = 1e-4 m (exact branch) must agree; 1e-7 relative (rho^2/R^2 terms).
         double onAxis = LoopField.OnAxisPerM(30, 0.1, z);
         Assert.Equal(onAxis, LoopField.Field(30, 0.1, 1e-9, z).AxialPerM, onAxis * 1e-12);

@@ -9,7 +9,7 @@ public sealed class MaterialTableTests
     [Fact]
     public void Every_preset_has_the_conductivity_of_the_handbook_table()
     {
-        // CRC Handbook of Chemistry and Physics, values from memory, as REFERENCES.md "Materials (20 C)" gives them
+        // CRC Handbook of Chemistry and Physics, values from memory, as docs/references.md "Materials and temperature" gives them
         // (Data/references/materials-20c.csv, source in its header). Exact: the presets are the table's numbers.
         string path = Path.Combine(AppContext.BaseDirectory, "Data", "references", "materials-20c.csv");
         var rows = File.ReadAllLines(path)

@@ -29,7 +29,7 @@ public class NoiseModelTests
     [Fact]
     public void WhiteFm_AllanDeviationFollowsTauToTheMinusHalf()
     {
-        // REFERENCES.md "Frequency stability": white FM has the slope tau^-1/2 (NIST SP 1065). The scene's white_fm_adev_1s
+        // docs/references.md "Frequency stability": white FM has the slope tau^-1/2 (NIST SP 1065). The scene's white_fm_adev_1s
         // = 1e-6 then gives 3.162e-6 at 0.1 s and 1e-6 at 1 s. 64-bit timer at 80 MHz (quantisation adds < 1e-7), 20 kHz
         // divided by 10, 300 s. Tolerance 20 % (about 3000 and 300 differences: estimator spread 1.3 % and 4 %).
         var scene = new Scene

@@ -72,7 +72,7 @@ public class SceneFileTests
         Assert.Contains("targets[0].material must be one of silver, copper, aluminium, brass, cupronickel, stainless, carbon_steel or custom", ex.Message);
 
         ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"oscillator\": { \"frequency_hz\": 1e5, \"tuning_capacitance_nf\": 3 } }", "o.json"));
-        Assert.Contains("exactly one of the two", ex.Message);
+        Assert.Contains("at most one of the two", ex.Message);
 
         ex = Assert.Throws<SceneException>(() => Scene.Parse("{ \"hardware\": { \"timer_bits\": 20 } }", "h.json"));
         Assert.Contains("hardware.timer_bits must be 16, 24, 32 or 64 (got 20)", ex.Message);
@@ -95,7 +95,7 @@ public class SceneFileTests
     [Fact]
     public void MaterialPresets_AreTheHandbookTable()
     {
-        // REFERENCES.md "Materials" (20 C), CRC Handbook values from memory: a separate table from the check values.
+        // docs/references.md "Materials and temperature" (20 deg C), CRC Handbook values from memory: a separate table from the check values.
         (string Name, double Sigma)[] expected =
         {
             ("silver", 6.30e7), ("copper", 5.96e7), ("aluminium", 3.77e7), ("brass", 1.41e7),

@@ -17,7 +17,7 @@ public sealed class SimulatedCaptureCountCommandTests
     [InlineData("reciprocal", "text")]
     public void Simulate_then_count_gives_the_intended_frequency_within_error_hz(string estimator, string format)
     {
-        // White timestamp jitter of 4 ticks rms (REFERENCES.md caveat: tests of the white-noise formulas add white jitter of
+        // White timestamp jitter of 4 ticks rms (docs/references.md caveat: tests of the white-noise formulas add white jitter of
         // several ticks; the model is then the white-noise one of Rubiola 2005 / Danielson, Vernotte, Rubiola 2016, eq. 21,
         // which count's error_hz reports for --jitter-ticks 4). No oscillator noise, so the intended frequency is the truth.
         // Prescale 8 on a 24-bit, 16 MHz timer (wraps every 1.05 s, many times in the run); 130 kHz with a slow ramp.

@@ -12,7 +12,7 @@ public class SimulatedCaptureCountTests
     public void SimulatedCapture_ThroughTheCounter_GivesTheIntendedFrequencyWithinItsPredictedError(EstimatorKind estimator)
     {
         // Issue 4: a simulated capture replayed through the counting core gives back the frequency the simulator intended,
-        // within the estimator's predicted error. White timestamp jitter of 4 ticks rms (REFERENCES.md caveat: tests of the
+        // within the estimator's predicted error. White timestamp jitter of 4 ticks rms (docs/references.md caveat: tests of the
         // white-noise formulas must add white jitter of several ticks). 100 kHz, 80 MHz clock, 32-bit timer (wraps every
         // 54 s are unwrapped), slow linear drift of +0.5 Hz over the run, 0.1 s gates. Checks: every gate within 5 sigma,
         // and the rms of (f - intended)/sigma within 0.75..1.25 over 80 gates (a consistent error model).

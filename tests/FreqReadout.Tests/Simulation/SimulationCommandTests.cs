@@ -30,8 +30,8 @@ public class SimulationCommandTests
     [Fact]
     public void Coil_Json_CarriesBothInductancesAndTheTargetTable()
     {
-        // The worked coil of REFERENCES.md (Wheeler 358.82 uH) with the 1 cm steel check sphere (sigma 6e6, mu_r 100):
-        // crossover 69.25 kHz (REFERENCES.md, calculated); at 10 kHz and 100 mm on axis dL = +18.27 nH.
+        // The worked coil of docs/references.md (Wheeler 358.82 uH) with the 1 cm steel check sphere (sigma 6e6, mu_r 100):
+        // crossover 69.25 kHz (docs/references.md, calculated); at 10 kHz and 100 mm on axis dL = +18.27 nH.
         var (code, output, err) = RunCli("coil", "--turns", "30", "--diameter-mm", "200", "--winding-length-mm", "10", "--winding-depth-mm", "10",
             "--frequency-hz", "10000", "--material", "custom", "--conductivity", "6e6", "--mu-r", "100", "--radius-mm", "10", "--depths-mm", "80,180", "--height-mm", "20", "--json");
         Assert.True(code == 0, err);
@@ -106,7 +106,7 @@ public class SimulationCommandTests
     {
         // The capture formats' own readers (picked by content) must accept what the simulator writes, in both formats, with
         // identical rows; and `count` on it gives the intended frequency: at t = 0 the demo coil is at 12 C, 8 K below the
-        // nominal 20 C, with -8.25 ppm/K (copper 16.5 ppm/K and C0G 0, REFERENCES.md): 100 000 (1 + 66e-6) = 100 006.6 Hz.
+        // nominal 20 C, with -8.25 ppm/K (copper 16.5 ppm/K and C0G 0, docs/references.md): 100 000 (1 + 66e-6) = 100 006.6 Hz.
         // Tolerance 0.05 Hz (flicker and white FM of the demo are a few mHz; the first gate is 0.1 s).
         string dir = Path.Combine(Path.GetTempPath(), "freqreadout-sim-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(dir);

@@ -5,7 +5,7 @@ namespace FreqReadout.Tests.Simulation;
 
 public class SpherePolarizabilityTests
 {
-    // All check values: J. R. Wait, Geophysics 16:666, 1951 (form as in Ledger and Lionheart's polarizability papers), REFERENCES.md "Coil and target
+    // All check values: J. R. Wait, Geophysics 16:666, 1951 (form as in Ledger and Lionheart's polarizability papers), docs/references.md "Coil and target
     // physics", M / (2 pi a^3), a = 1 cm, calculated; these use sigma = 5.8e7 (copper) and 6e6 (steel), not the presets.
     // Tolerance 2e-5 absolute: the values are given to 5 decimals.
     private const double Tol = 2e-5;
@@ -69,8 +69,8 @@ public class SpherePolarizabilityTests
     public void LargeLossySphere_NoOverflow_AsymptoticForm()
     {
         // Issue 4: a 5 cm copper sphere at 1 MHz: |ka| ~ 770, so sin/cos of ka overflow double range. The asymptotic form
-        // (cot -> i, j2/j0 -> -1) must give finite values near the high-frequency limit -1 (REFERENCES.md limit), with the
-        // asymptotic value itself, M/(2 pi a^3) = 3/(ka)^2 - 1 - 3 cot(ka)/(ka) with cot -> i (derived from the REFERENCES.md
+        // (cot -> i, j2/j0 -> -1) must give finite values near the high-frequency limit -1 (docs/references.md limit), with the
+        // asymptotic value itself, M/(2 pi a^3) = 3/(ka)^2 - 1 - 3 cot(ka)/(ka) with cot -> i (derived from the docs/references.md
         // non-magnetic form); 1e-4.
         double a = 0.05;
         double f = 1e6;
@@ -82,7 +82,7 @@ public class SpherePolarizabilityTests
         Assert.Equal(expected.Real, m.Real, 1e-4);
         Assert.Equal(expected.Imaginary, m.Imaginary, 1e-4);
         Assert.True(m.Imaginary <= 0);
-        // And the steel sphere of the same size at 1 MHz, mu_r 100: far above its crossover (about 6 kHz by the REFERENCES.md
+        // And the steel sphere of the same size at 1 MHz, mu_r 100: far above its crossover (about 6 kHz by the docs/references.md
         // estimate 1.641 mu_r / (pi mu0 sigma a^2)), so finite with -1 < Re M < 0.
         Complex s = SpherePolarizability.Normalised(a, 6.99e6, 100.0, f);
         Assert.True(double.IsFinite(s.Real) && double.IsFinite(s.Imaginary));
@@ -92,7 +92,7 @@ public class SpherePolarizabilityTests
     [Fact]
     public void SkinDepth_CopperAt100kHz()
     {
-        // REFERENCES.md: skin depth sqrt(2/(w mu sigma)), copper 1.678e-8 ohm m at 100 kHz: 0.20617 mm; 0.00001 mm.
+        // docs/references.md: skin depth sqrt(2/(w mu sigma)), copper 1.678e-8 ohm m at 100 kHz: 0.20617 mm; 0.00001 mm.
         Assert.Equal(0.20617e-3, SpherePolarizability.SkinDepthM(1e5, 1.0 / 1.678e-8, 1.0), 1e-8);
     }
 }

@@ -36,7 +36,7 @@ internal sealed class SyntheticEdgeCapture
     public double SnapshotEverySeconds { get; init; }
 
     /// <summary>Snapshots: each read lands uniformly within +-this of its nominal time (as the contract sample's +-20 us),
-    /// so whole-count quantisation behaves like noise rather than a deterministic pattern (REFERENCES.md caveat).</summary>
+    /// so whole-count quantisation behaves like noise rather than a deterministic pattern (docs/references.md, "Quantisation is not white noise").</summary>
     public double SnapshotJitterSeconds { get; init; } = 20e-6;
 
     /// <summary>Writes the capture to <paramref name="path"/>; returns the number of rows.</summary>

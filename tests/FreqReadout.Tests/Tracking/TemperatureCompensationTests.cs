@@ -5,7 +5,7 @@ namespace FreqReadout.Tests.Tracking;
 /// <summary>
 /// Optional temperature compensation: with the right tempco a fast temperature change that the drift
 /// tracker cannot follow leaves no trace; without it, it does. Synthetic truth (invented data): tempco
-/// -10 ppm/K (about the copper coil's -8 ppm/K of PRODUCT.md plus a little capacitor), 3 K steps taking 3 s.
+/// -10 ppm/K (about the copper coil's -8 ppm/K of docs/references.md plus a little capacitor), 3 K steps taking 3 s.
 /// </summary>
 public class TemperatureCompensationTests
 {
