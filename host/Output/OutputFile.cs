@@ -185,7 +185,7 @@ public sealed class OutputFile
             string candidate = System.IO.Path.Combine(folder, $".{stem}.{Guid.NewGuid().ToString("N").Substring(0, 12)}.tmp");
             try
             {
-                _file = new FileStream(candidate, FileMode.CreateNew, FileAccess.Write, FileShare.None, 65536);
+                _file = new FileStream(candidate, FileMode.CreateNew, FileAccess.Write, FileShare.Read, 65536);
                 _temporaryPath = candidate;
                 break;
             }
