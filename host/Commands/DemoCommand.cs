@@ -59,6 +59,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
             capture = outputs.AddOutput("the demo's temporary capture", scratch, "the demo capture");
         }
 
+        capture.RegularFileNeededBecause = DemoRun.ReadBackReason;
         if (!outputs.TryPrepare(out OutputFileException? problem))
         {
             return CommandOutput.Fail(problem!.Message, problem.ExitCode);

@@ -20,6 +20,9 @@ public static class DemoRun
     /// <summary>An event matches a pass when its peak lies within this many seconds of the simulated peak.</summary>
     public const double MatchWindowSeconds = 1.0;
 
+    /// <summary>Why the demo capture must be a regular file (for <see cref="OutputFile.RegularFileNeededBecause"/>).</summary>
+    public const string ReadBackReason = "the demo reads its capture back to replay it";
+
     /// <summary>Runs the demo, writing the capture (text format) to <paramref name="capturePath"/>.</summary>
     public static DemoResult Run(string capturePath, IProgress<double>? progress, CancellationToken cancellationToken)
         => Run(DemoScenes.FloorScan(), "built-in demo scene", capturePath, progress, cancellationToken);
@@ -30,6 +33,7 @@ public static class DemoRun
     {
         using var outputs = new OutputFileSet();
         OutputFile capture = outputs.AddOutput("the demo capture", capturePath, "the demo capture");
+        capture.RegularFileNeededBecause = ReadBackReason;
         if (!outputs.TryPrepare(out OutputFileException? problem))
         {
             throw problem!;
@@ -47,7 +51,7 @@ public static class DemoRun
     /// </summary>
     public static DemoResult Run(Scene scene, string sceneName, OutputFile capture, IProgress<double>? progress, CancellationToken cancellationToken)
     {
-        string readBack = capture.ContentPath ?? throw new ArgumentException($"{capture.Path}: the demo capture must be a regular file (it is read back)", nameof(capture));
+        string readBack = capture.ContentPath ?? throw new ArgumentException($"{capture.Path}: the demo capture must be a regular file ({ReadBackReason}); set RegularFileNeededBecause before preparing", nameof(capture));
         var model = new SceneModel(scene, sceneName);
         var simulator = new CaptureSimulator(model);
         SimulationTruth truth;

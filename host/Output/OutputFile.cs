@@ -42,6 +42,12 @@ public sealed class OutputFile
     /// <summary>Replace on success (every command) or write in place (a recording).</summary>
     public OutputWriteMode Mode { get; }
 
+    /// <summary>
+    /// Set before the set is prepared when the command needs a regular file here (it reads the bytes
+    /// back, say): why, for the message that refuses a device, a pipe or standard output.
+    /// </summary>
+    public string? RegularFileNeededBecause { get; set; }
+
     /// <summary>What the path turned out to be when the set was checked.</summary>
     public OutputTargetKind TargetKind { get; internal set; }
 

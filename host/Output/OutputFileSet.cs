@@ -138,6 +138,10 @@ public sealed class OutputFileSet : IDisposable
         foreach (OutputFile file in _outputs)
         {
             outputKeys.Add(Resolve(file));
+            if (file.RegularFileNeededBecause is string because && !file.IsRegularFile)
+            {
+                throw file.Refusal($"is {(file.TargetKind == OutputTargetKind.StandardOutput ? "standard output" : file.TargetKind == OutputTargetKind.Pipe ? "a pipe" : "a device")}, but a regular file is needed: {because}");
+            }
         }
 
         var inputKeys = _inputs.Select(i => KeyOfInput(i.Path)).ToList();
