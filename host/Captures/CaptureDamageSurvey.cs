@@ -116,6 +116,11 @@ public static class CaptureDamageSurvey
             string cut = blockBytes > 0
                 ? $"cut after {present.ToString(CultureInfo.InvariantCulture)} of its {blockBytes.ToString(CultureInfo.InvariantCulture)} bytes"
                 : $"cut inside its length ({present.ToString(CultureInfo.InvariantCulture)} bytes left)";
+            if (tag == BinaryCaptureFormat.EndTag)
+            {
+                return new CaptureDamageReport(where, $"only the end block ({cut}): every row is kept, the trailer is lost", 0);
+            }
+
             return new CaptureDamageReport(where, $"block {block} ({rows}), {cut}; nothing follows it", tag == BinaryCaptureFormat.DataTag && rowCount >= 0 ? rowCount : -1);
         }
 

@@ -121,7 +121,8 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             long kept = 0;
             long read = 0;
             CaptureFormatException? damage = null;
-            CaptureRow? cutRow = null;
+            long cutLine = 0; // a text capture's last line without a line end (0: none)
+            string? cutTrailerKey = null; // ... when that line is a trailer line: its key, dropped
             var trailer = new List<KeyValuePair<string, string>>();
             try
             {
@@ -180,32 +181,41 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
                         }
                     }
 
-                    if (held is CaptureRow last)
+                    trailer.AddRange(reader.Trailer);
+                    if (holdBack && damage == null)
                     {
+                        // A last line without a line end may be cut mid-row (or mid-value, for a trailer line).
                         CaptureDamageSurvey.ScanText(settings.Input, long.MaxValue, out long lastLine, out bool terminated, out _);
-                        if (damage == null && !terminated && last.LineNumber == lastLine)
+                        if (!terminated && held is CaptureRow cut && cut.LineNumber == lastLine)
                         {
-                            cutRow = last;
+                            cutLine = lastLine;
+                            held = null;
                         }
-                        else
+                        else if (!terminated && trailer.Count > 0)
                         {
-                            writer.WriteRow(last);
-                            kept++;
+                            cutLine = lastLine;
+                            cutTrailerKey = trailer[^1].Key;
+                            trailer.RemoveAt(trailer.Count - 1);
                         }
                     }
 
-                    trailer.AddRange(reader.Trailer);
-                    if (settings.Salvage && (damage != null || cutRow != null))
+                    if (held is CaptureRow last)
+                    {
+                        writer.WriteRow(last);
+                        kept++;
+                    }
+
+                    if (settings.Salvage && (damage != null || cutLine > 0))
                     {
                         if (kept == 0 && !trim)
                         {
-                            string where = damage?.Message ?? $"{settings.Input}:{cutRow!.Value.LineNumber}: the only row has no line end (cut)";
+                            string where = damage?.Message ?? $"{settings.Input}:{cutLine}: the only row has no line end (cut)";
                             return CommandOutput.Fail($"{where}; nothing to salvage: no row comes before the damage ({NothingWritten(output)})", CommandOutput.BadInput);
                         }
 
                         trailer.Add(new KeyValuePair<string, string>(SalvageTrailerKey, damage != null
                             ? $"{(inputFormat == CaptureFileFormat.Binary ? "block" : "line")} {damage.LineNumber} of {Path.GetFileName(settings.Input)}"
-                            : $"line {cutRow!.Value.LineNumber} of {Path.GetFileName(settings.Input)} (no line end)"));
+                            : $"line {cutLine} of {Path.GetFileName(settings.Input)} (no line end)"));
                     }
 
                     writer.Complete(trailer);
@@ -231,9 +241,9 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
                 CommandOutput.Diagnostic("warning: " + warning);
             }
 
-            if (damage != null || cutRow != null)
+            if (damage != null || cutLine > 0)
             {
-                CommandOutput.Diagnostic("warning: " + SalvageMessage(settings, inputFormat, damage, cutRow, kept, read));
+                CommandOutput.Diagnostic("warning: " + SalvageMessage(settings, inputFormat, damage, cutLine, cutTrailerKey, kept, read));
             }
             else if (settings.Salvage)
             {
@@ -246,19 +256,24 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
             }
 
             string shown = output.TargetKind == OutputTargetKind.StandardOutput ? "standard output" : settings.Output;
-            CommandOutput.Diagnostic($"{shown}: {(outputFormat == CaptureFileFormat.Binary ? "binary" : "text")} capture, {kept} of {read} rows{(damage != null || cutRow != null ? " (salvaged)" : string.Empty)}");
+            CommandOutput.Diagnostic($"{shown}: {(outputFormat == CaptureFileFormat.Binary ? "binary" : "text")} capture, {kept} of {read} rows{(damage != null || cutLine > 0 ? " (salvaged)" : string.Empty)}");
             return 0;
         }
     }
 
     /// <summary>The warning of a salvage: where the damage starts, what was kept, what was lost.</summary>
-    private static string SalvageMessage(Settings settings, CaptureFileFormat inputFormat, CaptureFormatException? damage, CaptureRow? cutRow, long kept, long read)
+    private static string SalvageMessage(Settings settings, CaptureFileFormat inputFormat, CaptureFormatException? damage, long cutLine, string? cutTrailerKey, long kept, long read)
     {
-        string keptText = $"kept the {CaptureDamageSurvey.Count(kept, "row")} before it in {(settings.Output == OutputFile.StandardOutputPath ? "standard output" : settings.Output)}";
+        string outputName = settings.Output == OutputFile.StandardOutputPath ? "standard output" : settings.Output;
+        string keptText = $"kept the {CaptureDamageSurvey.Count(kept, "row")} before it in {outputName}";
+        if (damage == null && cutTrailerKey != null)
+        {
+            return $"{settings.Input}: damaged at line {cutLine}: the last line, a trailer line, has no line end, so its value may be cut (as a power loss leaves a recording); kept every row ({kept}) in {outputName}; lost: the trailer key {cutTrailerKey}";
+        }
+
         if (damage == null)
         {
-            long line = cutRow!.Value.LineNumber;
-            return $"{settings.Input}: damaged at line {line}: the last line has no line end, so it may be cut mid-row (as a power loss leaves a recording); {keptText}; lost: 1 data line (line {line})";
+            return $"{settings.Input}: damaged at line {cutLine}: the last line has no line end, so it may be cut mid-row (as a power loss leaves a recording); {keptText}; lost: 1 data line (line {cutLine})";
         }
 
         CaptureDamageReport report;
