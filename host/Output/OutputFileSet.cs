@@ -172,7 +172,7 @@ public sealed class OutputFileSet : IDisposable
                     if (output.TargetKind == OutputTargetKind.StandardOutput)
                     {
                         throw new OutputFileException(
-                            $"{other.Label} - and {output.Label} - would both go to standard output: give one of them a file name",
+                            $"{other.Label} {other.Path} and {output.Label} {output.Path} would both go to standard output: give one of them a file name",
                             OutputFileException.UsageExitCode);
                     }
 
@@ -206,13 +206,23 @@ public sealed class OutputFileSet : IDisposable
             throw new OutputFileException($"{file.Label}: the path is empty; give a file name", OutputFileException.UsageExitCode);
         }
 
-        if (file.Path == OutputFile.StandardOutputPath)
+        int standardStream = StandardStreamOf(file.Path);
+        if (standardStream == 2)
         {
+            throw new OutputFileException(
+                $"{file.Label} {file.Path}: standard error carries this command's messages; give a file name",
+                OutputFileException.UsageExitCode);
+        }
+
+        if (standardStream == 1)
+        {
+            // "-" or a name of descriptor 1: written through the descriptor itself, so a shell's ">>" still appends
+            // and nothing is replaced (reopening the path would start at offset 0, or replace a redirected file).
             file.TargetKind = OutputTargetKind.StandardOutput;
             if (StandardOutputInUse)
             {
                 throw new OutputFileException(
-                    $"{file.Label} -: standard output already carries this command's report; give a file name",
+                    $"{file.Label} {file.Path}: standard output already carries this command's report; give a file name",
                     OutputFileException.UsageExitCode);
             }
 
@@ -220,9 +230,23 @@ public sealed class OutputFileSet : IDisposable
         }
 
         string target;
+        FileIdentity identity;
+        FileNodeKind kind;
         try
         {
-            target = FollowLinks(Path.GetFullPath(file.Path));
+            // The identity follows every link (also /dev/stdout's links into /proc); the path of a link's final
+            // target is needed only for a regular file (its temporary file goes beside it) or one to be created.
+            string full = Path.GetFullPath(file.Path);
+            identity = FileIdentity.Of(full);
+            kind = identity.Kind != FileNodeKind.Unknown
+                ? identity.Kind
+                : Directory.Exists(full) ? FileNodeKind.Directory : File.Exists(full) ? FileNodeKind.Regular : FileNodeKind.Missing;
+            target = full;
+            if (kind is FileNodeKind.Regular or FileNodeKind.Missing)
+            {
+                string final = FollowLinks(full);
+                target = kind == FileNodeKind.Missing || File.Exists(final) ? final : full;
+            }
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
@@ -230,13 +254,6 @@ public sealed class OutputFileSet : IDisposable
         }
 
         file.TargetPath = target;
-        FileIdentity identity = FileIdentity.Of(target);
-        FileNodeKind kind = identity.Kind;
-        if (kind == FileNodeKind.Unknown)
-        {
-            kind = Directory.Exists(target) ? FileNodeKind.Directory : File.Exists(target) ? FileNodeKind.Regular : FileNodeKind.Missing;
-        }
-
         switch (kind)
         {
             case FileNodeKind.Directory:
@@ -296,26 +313,48 @@ public sealed class OutputFileSet : IDisposable
     {
         try
         {
-            if (path.Length == 0 || path == OutputFile.StandardOutputPath)
+            if (path.Length == 0 || StandardStreamOf(path) != 0)
             {
                 return FileKey.None;
             }
 
-            string target = FollowLinks(Path.GetFullPath(path));
-
-            FileIdentity identity = FileIdentity.Of(target);
-            if (identity.Kind == FileNodeKind.Missing || (identity.Kind == FileNodeKind.Unknown && !File.Exists(target)))
+            string full = Path.GetFullPath(path);
+            FileIdentity identity = FileIdentity.Of(full);
+            string target = full;
+            if (identity.Kind == FileNodeKind.Missing || (identity.Kind == FileNodeKind.Unknown && !File.Exists(full)))
             {
+                target = FollowLinks(full);
                 string? folder = Path.GetDirectoryName(target);
                 return folder == null ? FileKey.None : FileKey.OfNewFile(FileIdentity.Of(folder), folder, Path.GetFileName(target));
             }
 
-            return FileKey.Of(identity, target);
+            return FileKey.Of(identity, identity.IsKnown ? target : FollowLinks(full));
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
             return FileKey.None; // the command reports the unreadable input itself
         }
+    }
+
+    /// <summary>1 for a name of standard output ("-", /dev/stdout, /dev/fd/1, /proc/self/fd/1), 2 for one of standard error, else 0.</summary>
+    internal static int StandardStreamOf(string path)
+    {
+        if (path == OutputFile.StandardOutputPath)
+        {
+            return 1;
+        }
+
+        if (OperatingSystem.IsWindows())
+        {
+            return 0;
+        }
+
+        return path switch
+        {
+            "/dev/stdout" or "/dev/fd/1" or "/proc/self/fd/1" => 1,
+            "/dev/stderr" or "/dev/fd/2" or "/proc/self/fd/2" => 2,
+            _ => 0,
+        };
     }
 
     /// <summary>The final target of a symbolic link (even one that points to nothing yet); the path itself when it is no link.</summary>

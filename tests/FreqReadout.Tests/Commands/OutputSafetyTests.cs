@@ -345,6 +345,23 @@ public sealed class OutputSafetyTests : IClassFixture<OutputSafetyInputs>, IDisp
         FileSnapshot.AssertUnchanged(before, _dir, "demo, disk full");
     }
 
+    [Fact]
+    public void Convert_to_dev_stdout_writes_through_the_descriptor()
+    {
+        if (!OperatingSystem.IsLinux())
+        {
+            return;
+        }
+
+        // Standard output is a pipe here; through a shell's ">>" the same descriptor would append, not replace.
+        var before = FileSnapshot.Of(_dir);
+        Docs.CliProcess.Result r = Docs.CliProcess.Run(_dir, new[] { "convert", "cap.csv", "/dev/stdout", "--to", "text" });
+        Assert.True(r.ExitCode == 0, r.Stderr);
+        Assert.Equal(File.ReadAllText(Path.Combine(_dir, "cap.csv")), r.Stdout);
+        Assert.Contains("standard output: text capture", r.Stderr);
+        FileSnapshot.AssertUnchanged(before, _dir, "convert to /dev/stdout");
+    }
+
     private static Case Find(string name) => Cases.Single(c => c.Name == name);
 
     /// <summary>Gives every output of the case a file that already exists, so that "unchanged" is a real check.</summary>

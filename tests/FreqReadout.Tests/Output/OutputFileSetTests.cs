@@ -356,6 +356,29 @@ public sealed class OutputFileSetTests : IDisposable
             set.AddOutput("--events", "-", "the events");
             Assert.Equal("--readings - and --events - would both go to standard output: give one of them a file name", Refused(set).Message);
         }
+
+        if (!OperatingSystem.IsWindows())
+        {
+            // The names of descriptors 1 and 2 are the streams themselves, never files to replace.
+            using (var set = new OutputFileSet { StandardOutputInUse = true })
+            {
+                set.AddOutput("--readings", "/dev/stdout", "the readings");
+                Assert.Equal("--readings /dev/stdout: standard output already carries this command's report; give a file name", Refused(set).Message);
+            }
+
+            using (var set = new OutputFileSet())
+            {
+                set.AddOutput("<out>", "/dev/stderr", "the capture");
+                Assert.Equal("<out> /dev/stderr: standard error carries this command's messages; give a file name", Refused(set).Message);
+            }
+
+            using (var set = new OutputFileSet())
+            {
+                OutputFile o = set.AddOutput("<out>", "/dev/fd/1", "the capture");
+                Assert.True(set.TryPrepare(out _));
+                Assert.Equal(OutputTargetKind.StandardOutput, o.TargetKind);
+            }
+        }
     }
 
     [Fact]
