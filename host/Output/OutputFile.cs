@@ -124,8 +124,10 @@ public sealed class OutputFile
     internal OutputFileException WriteFailure(Exception e)
     {
         string note = UnchangedNote;
+        // The runtime's Unix messages end in " : 'path'", here often the temporary file's: the line names the user's path already.
+        string reason = System.Text.RegularExpressions.Regex.Replace(FileErrorText.Reason(TargetPath, e), " : '[^']*'$", string.Empty);
         return new OutputFileException(
-            $"{ShownPath}: cannot write {What}: {FileErrorText.Reason(TargetPath, e)}" + (note.Length > 0 ? $" ({note})" : string.Empty),
+            $"{ShownPath}: cannot write {What}: {reason}" + (note.Length > 0 ? $" ({note})" : string.Empty),
             OutputFileException.FileExitCode,
             e);
     }
