@@ -2,6 +2,7 @@ using System.ComponentModel;
 using System.Globalization;
 using System.Text.Json.Nodes;
 using FreqReadout.Host.Demo;
+using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
 using FreqReadout.Host.Simulation;
 using Spectre.Console;
@@ -19,7 +20,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--keep <DIR>")]
-        [Description("Keep the simulated capture (floor-demo.csv) in DIR to replay or count it yourself. Default: a temporary file, deleted afterwards.")]
+        [Description("Keep the simulated capture (floor-demo.csv) and its truth (floor-demo.truth.json) in DIR to replay or count them yourself; existing ones are replaced only when the demo succeeds. Default: a temporary file, deleted afterwards.")]
         [FilePath]
         public string? Keep { get; set; }
 
@@ -34,8 +35,11 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
-        string path;
-        bool temporary = settings.Keep == null;
+        // The capture goes through the output layer either way: kept, it is moved into place (with its truth
+        // file) only when the demo succeeded; not kept, its temporary file is read back and then dropped.
+        using var outputs = new OutputFileSet { StandardOutputInUse = true };
+        OutputFile capture;
+        OutputFile? truthOut = null;
         if (settings.Keep != null)
         {
             try
@@ -47,39 +51,38 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
                 return CommandOutput.Fail($"--keep {settings.Keep}: cannot create the folder ({e.Message})", CommandOutput.BadInput);
             }
 
-            path = Path.Combine(settings.Keep, "floor-demo.csv");
+            capture = outputs.AddOutput("--keep", Path.Combine(settings.Keep, "floor-demo.csv"), "the demo capture");
+            truthOut = outputs.AddOutput("--keep", Path.Combine(settings.Keep, "floor-demo.truth.json"), "the demo truth file");
         }
         else
         {
-            path = Path.Combine(Path.GetTempPath(), $"freqreadout-demo-{Environment.ProcessId}-{Guid.NewGuid():N}.csv");
+            string scratch = Path.Combine(Path.GetTempPath(), $"freqreadout-demo-{Environment.ProcessId}-{Guid.NewGuid():N}.csv");
+            capture = outputs.AddOutput("the demo's temporary capture", scratch, "the demo capture");
+        }
+
+        capture.RegularFileNeededBecause = DemoRun.ReadBackReason;
+        if (!outputs.TryPrepare(out OutputFileException? problem))
+        {
+            return CommandOutput.Fail(problem!.Message, problem.ExitCode);
         }
 
         DemoResult result;
         try
         {
-            result = settings.Quiet || settings.Json || !CommandOutput.ErrorIsTerminal() ? DemoRun.Run(path, null, cancellationToken) : RunWithProgress(path, cancellationToken);
-            if (settings.Keep != null)
+            result = settings.Quiet || settings.Json || !CommandOutput.ErrorIsTerminal() ? DemoRun.Run(DemoScenes.FloorScan(), DemoSceneName, capture, null, cancellationToken) : RunWithProgress(capture, cancellationToken);
+            if (truthOut != null)
             {
-                File.WriteAllText(Path.Combine(settings.Keep, "floor-demo.truth.json"), result.Truth.ToJson() + "\n");
+                using (var truth = new StreamWriter(truthOut.Stream, new System.Text.UTF8Encoding(false)))
+                {
+                    truth.Write(result.Truth.ToJson() + "\n");
+                }
+
+                outputs.Commit();
             }
         }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        catch (OutputFileException e)
         {
-            return CommandOutput.Fail($"{path}: cannot write the demo capture ({e.Message})", CommandOutput.BadInput);
-        }
-        finally
-        {
-            if (temporary)
-            {
-                try
-                {
-                    File.Delete(path);
-                }
-                catch (IOException)
-                {
-                    // A temporary file left behind is harmless.
-                }
-            }
+            return CommandOutput.Fail(e.Message, e.ExitCode);
         }
 
         if (settings.Json)
@@ -94,7 +97,9 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         return 0;
     }
 
-    private static DemoResult RunWithProgress(string path, CancellationToken ct)
+    private const string DemoSceneName = "built-in demo scene";
+
+    private static DemoResult RunWithProgress(OutputFile capture, CancellationToken ct)
     {
         DemoResult? result = null;
         var err = CommandOutput.Stderr();
@@ -104,7 +109,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
             .Start(ctx =>
             {
                 ProgressTask task = ctx.AddTask("simulating the floor scan, then replaying it");
-                result = DemoRun.Run(path, new ProgressTaskReporter(task), ct);
+                result = DemoRun.Run(DemoScenes.FloorScan(), DemoSceneName, capture, new ProgressTaskReporter(task), ct);
                 task.Value = task.MaxValue;
             });
         return result!;

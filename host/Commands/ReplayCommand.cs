@@ -6,6 +6,7 @@ using FreqReadout.Counting;
 using FreqReadout.Detection;
 using FreqReadout.Host.Captures;
 using FreqReadout.Host.Counting;
+using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
 using FreqReadout.Readout;
 using Spectre.Console;
@@ -30,12 +31,12 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     public sealed class Settings : ReadoutCommandSettings
     {
         [CommandOption("--readings <FILE>")]
-        [Description("Also write the gate-by-gate readings as CSV (ending with error_hz, the gate's predicted error; scatter_hz, the measured scatter of consecutive gates; inferred_edges).")]
+        [Description("Also write the gate-by-gate readings as CSV, ending with error_hz (the gate's predicted error), scatter_hz (the measured scatter of consecutive gates) and inferred_edges; an existing file is replaced only when the replay succeeds, never the capture itself.")]
         [FilePath]
         public string? ReadingsFile { get; set; }
 
         [CommandOption("--events <FILE>")]
-        [Description("Also write the events as CSV.")]
+        [Description("Also write the events as CSV (replaced only when the replay succeeds; never the capture or the --readings file).")]
         [FilePath]
         public string? EventsFile { get; set; }
 
@@ -93,6 +94,16 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             return CommandOutput.Fail("--hold-span: " + holdError, CommandOutput.BadOption);
         }
 
+        // Every output is checked (and opened as a temporary file) before any work; none may be the capture or the other.
+        using var outputs = new OutputFileSet { StandardOutputInUse = true };
+        outputs.AddInput("the capture", settings.Capture);
+        OutputFile? readingsFile = settings.ReadingsFile != null ? outputs.AddOutput("--readings", settings.ReadingsFile, "the readings") : null;
+        OutputFile? eventsFile = settings.EventsFile != null ? outputs.AddOutput("--events", settings.EventsFile, "the events") : null;
+        if (!outputs.TryPrepare(out OutputFileException? problem))
+        {
+            return CommandOutput.Fail(problem!.Message, problem.ExitCode);
+        }
+
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
         if (opened == null)
         {
@@ -123,7 +134,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             CaptureFormatException? damaged = null;
             try
             {
-                readingsCsv = settings.ReadingsFile != null ? OpenCsv(settings.ReadingsFile, ReadingsHeader) : null;
+                readingsCsv = readingsFile != null ? OpenCsv(readingsFile.Stream, ReadingsHeader) : null;
                 session = new ReplaySession(readout, reader.Metadata.StartedUtc) { HoldSpans = holdSpans };
                 if (readingsCsv != null)
                 {
@@ -143,16 +154,14 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 string note = $"the capture is damaged ({e.Message}); this summary covers only the {session!.Gates} gates read before it";
                 report = settings.WithIgnoredOptionWarnings(session!.Finish(source.RowsRead, reader.Metadata.Signal, source.Warnings.Append(note)), reader.Metadata);
             }
+            catch (OutputFileException e)
+            {
+                return CommandOutput.Fail(e.Message, e.ExitCode);
+            }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
-                // Either the readings file could not be opened or written, or the capture could not be read.
-                string file = settings.ReadingsFile ?? settings.Capture;
-                string what = settings.ReadingsFile != null ? "cannot write the readings" : "cannot read the capture";
-                return CommandOutput.Fail($"{file}: {what}: {FileErrorText.Reason(file, e)}", CommandOutput.BadInput);
-            }
-            finally
-            {
-                readingsCsv?.Dispose();
+                string note = outputs.UnchangedNote();
+                return CommandOutput.Fail($"{settings.Capture}: cannot read the capture: {FileErrorText.Reason(settings.Capture, e)}{(note.Length > 0 ? $" ({note})" : string.Empty)}", CommandOutput.BadInput);
             }
 
             if (report.Gates == 0 && damaged == null)
@@ -166,20 +175,24 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 return CommandOutput.Fail($"{reader.SourceName}: {CountCommand.NoGateText(source)}", CommandOutput.BadInput);
             }
 
-            if (settings.EventsFile != null)
+            try
             {
-                try
+                readingsCsv?.Dispose(); // flushes into the readings file (a full disk shows here at the latest)
+                if (eventsFile != null)
                 {
-                    using StreamWriter events = OpenCsv(settings.EventsFile, EventsHeader);
+                    using StreamWriter events = OpenCsv(eventsFile.Stream, EventsHeader);
                     foreach (ReplayEvent e in report.Events)
                     {
                         events.WriteLine(EventRow(e));
                     }
                 }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-                {
-                    return CommandOutput.Fail($"{settings.EventsFile}: cannot write the events: {FileErrorText.Reason(settings.EventsFile, e)}", CommandOutput.BadInput);
-                }
+
+                // Also after a capture damaged part-way: the files hold what the summary covers.
+                outputs.Commit();
+            }
+            catch (OutputFileException e)
+            {
+                return CommandOutput.Fail(e.Message, e.ExitCode);
             }
 
             if (settings.Json)
@@ -313,9 +326,9 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     private const string ReadingsHeader = "time_s,state,frequency_hz,baseline_hz,shift_hz,shift_ppm,shift_sigma,noise_hz,drift_hz_per_s,temp_correction_hz,temp_c,target,hold,below_beat_floor,class,marks,error_hz,scatter_hz,inferred_edges";
     private const string EventsHeader = "start_s,end_s,peak_s,peak_shift_hz,peak_shift_ppm,peak_sigma,noise_hz,class,end,start_utc";
 
-    private static StreamWriter OpenCsv(string path, string header)
+    private static StreamWriter OpenCsv(Stream stream, string header)
     {
-        var w = new StreamWriter(path, false, new UTF8Encoding(false)) { NewLine = "\n" };
+        var w = new StreamWriter(stream, new UTF8Encoding(false), 65536) { NewLine = "\n" };
         w.WriteLine(header);
         return w;
     }

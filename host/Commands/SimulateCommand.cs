@@ -1,6 +1,7 @@
 using System.ComponentModel;
 using System.Globalization;
 using FreqReadout.Host.Captures;
+using FreqReadout.Host.Output;
 using FreqReadout.Host.Simulation;
 using Spectre.Console;
 using Spectre.Console.Cli;
@@ -24,12 +25,12 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public bool Demo { get; set; }
 
         [CommandOption("--out <FILE>")]
-        [Description("Capture file to write.")]
+        [Description("Capture file to write (an existing file is replaced only when the whole run succeeds). A long run states its expected size and time first, and is refused when it would not fit in the free space of the folder.")]
         [FilePath]
         public string? Out { get; set; }
 
         [CommandOption("--truth <FILE>")]
-        [Description("Truth file to write (JSON). Default: the capture path + .truth.json.")]
+        [Description("Truth file to write (JSON). Default: the capture path + .truth.json. Checked and written with the capture: never the scene file or another output.")]
         [FilePath]
         public string? Truth { get; set; }
 
@@ -61,77 +62,104 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
-        Scene scene;
-        try
-        {
-            scene = LoadScene(settings);
-        }
-        catch (SceneException ex)
-        {
-            return CommandOutput.Fail(ex.Message, ex.CommandLine ? CommandOutput.BadOption : CommandOutput.BadInput);
-        }
-
-        if (settings.SaveScene is not null)
-        {
-            try
-            {
-                File.WriteAllText(settings.SaveScene, scene.ToJson() + "\n");
-            }
-            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-            {
-                return CommandOutput.Fail($"{settings.SaveScene}: cannot write the scene file: {FileErrorText.Reason(settings.SaveScene, ex)}", CommandOutput.BadInput);
-            }
-        }
-
-        if (settings.Out is null)
-        {
-            return settings.SaveScene is not null ? 0 : CommandOutput.Fail("--out <FILE> is required (the capture to write)", CommandOutput.BadOption);
-        }
-
         string format = settings.Format.Trim().ToLowerInvariant();
         if (format is not ("text" or "binary"))
         {
             return CommandOutput.Fail($"--format must be text or binary (got {OptionValues.Quote(settings.Format)})", CommandOutput.BadOption);
         }
 
-        SceneModel model;
+        // Every output is checked, and opened as a temporary file, before the scene is even read: none may be
+        // the scene file or another output, every folder must exist, and nothing is replaced unless all succeed.
+        using var outputs = new OutputFileSet { StandardOutputInUse = true };
+        outputs.AddInput("the scene file --scene", settings.Scene);
+        OutputFile? sceneOut = settings.SaveScene is not null ? outputs.AddOutput("--save-scene", settings.SaveScene, "the scene file") : null;
+        OutputFile? captureOut = settings.Out is not null ? outputs.AddOutput("--out", settings.Out, "the capture") : null;
+        string? truthPath = settings.Out is null ? null : settings.Truth ?? settings.Out + ".truth.json";
+        OutputFile? truthOut = truthPath is not null ? outputs.AddOutput("--truth", truthPath, "the truth file") : null;
+        if (captureOut is null && sceneOut is null)
+        {
+            return CommandOutput.Fail("--out <FILE> is required (the capture to write)", CommandOutput.BadOption);
+        }
+
+        if (!outputs.TryPrepare(out OutputFileException? problem))
+        {
+            return CommandOutput.Fail(problem!.Message, problem.ExitCode);
+        }
+
+        Scene scene;
+        SceneModel? model = null;
         try
         {
-            model = new SceneModel(scene, settings.Scene ?? "demo scene");
+            scene = LoadScene(settings);
+            if (captureOut is not null)
+            {
+                model = new SceneModel(scene, settings.Scene ?? "demo scene");
+            }
         }
         catch (SceneException ex)
         {
             return CommandOutput.Fail(ex.Message, ex.CommandLine ? CommandOutput.BadOption : CommandOutput.BadInput);
         }
 
-        string truthPath = settings.Truth ?? settings.Out + ".truth.json";
-        var simulator = new CaptureSimulator(model);
-        SimulationTruth truth;
         try
         {
-            using var writer = CaptureOutput.Create(settings.Out, simulator.Metadata, format);
-            truth = settings.Quiet || !CommandOutput.ErrorIsTerminal() ? simulator.Run(writer, null, cancellationToken) : RunWithProgress(simulator, writer, cancellationToken);
+            if (sceneOut is not null)
+            {
+                WriteText(sceneOut, scene.ToJson() + "\n");
+            }
+
+            if (model is null || captureOut is null || truthOut is null)
+            {
+                outputs.Commit();
+                return 0;
+            }
+
+            var captureFormat = format == "binary" ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+            var estimate = SimulationEstimate.Measure(model, captureFormat, cancellationToken);
+            if (estimate.IsLong)
+            {
+                if (captureOut.TryGetFreeBytes(out long free) && estimate.CaptureBytes > free)
+                {
+                    string folder = Path.GetDirectoryName(captureOut.TargetPath) ?? captureOut.TargetPath;
+                    return CommandOutput.Fail(
+                        $"--out {settings.Out}: the capture would need {estimate.Describe(format)}, but {folder} has only {SimulationEstimate.Bytes(free)} free; " +
+                        $"shorten it (--duration-s, duration_s), {(format == "text" ? "write --format binary, " : string.Empty)}or write to a larger disk (nothing written)",
+                        CommandOutput.BadInput);
+                }
+
+                if (!settings.Quiet)
+                {
+                    CommandOutput.Diagnostic($"simulate: {estimate.Describe(format)}");
+                }
+            }
+
+            var simulator = new CaptureSimulator(model);
+            SimulationTruth truth;
+            using (var writer = CaptureOutput.Create(captureOut.Stream, simulator.Metadata, format))
+            {
+                truth = settings.Quiet || !CommandOutput.ErrorIsTerminal() ? simulator.Run(writer, null, cancellationToken) : RunWithProgress(simulator, writer, cancellationToken);
+            }
+
+            WriteText(truthOut, truth.ToJson() + "\n");
+            outputs.Commit();
+            PrintSummary(settings.Out!, truthPath!, truth);
+            return 0;
+        }
+        catch (OutputFileException ex)
+        {
+            return CommandOutput.Fail(ex.Message, ex.ExitCode);
         }
         catch (ArgumentException ex)
         {
-            return CommandOutput.Fail(ex.Message, CommandOutput.BadInput);
+            string note = outputs.UnchangedNote();
+            return CommandOutput.Fail(ex.Message + (note.Length > 0 ? $" ({note})" : string.Empty), CommandOutput.BadInput);
         }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{settings.Out}: cannot write the capture: {FileErrorText.Reason(settings.Out, ex)}", CommandOutput.BadInput);
-        }
+    }
 
-        try
-        {
-            File.WriteAllText(truthPath, truth.ToJson() + "\n");
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            return CommandOutput.Fail($"{truthPath}: cannot write the truth file: {FileErrorText.Reason(truthPath, ex)}", CommandOutput.BadInput);
-        }
-
-        PrintSummary(settings.Out, truthPath, truth);
-        return 0;
+    private static void WriteText(OutputFile file, string text)
+    {
+        using var writer = new StreamWriter(file.Stream, new System.Text.UTF8Encoding(false));
+        writer.Write(text);
     }
 
     /// <summary>Loads the scene (file or demo) and applies the command-line overrides; throws <see cref="SceneException"/>.</summary>

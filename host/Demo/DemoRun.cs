@@ -2,6 +2,7 @@ using FreqReadout.Counting;
 using FreqReadout.Host.Captures;
 using FreqReadout.Host.Commands;
 using FreqReadout.Host.Counting;
+using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
 using FreqReadout.Host.Simulation;
 using FreqReadout.Readout;
@@ -19,26 +20,53 @@ public static class DemoRun
     /// <summary>An event matches a pass when its peak lies within this many seconds of the simulated peak.</summary>
     public const double MatchWindowSeconds = 1.0;
 
+    /// <summary>Why the demo capture must be a regular file (for <see cref="OutputFile.RegularFileNeededBecause"/>).</summary>
+    public const string ReadBackReason = "the demo reads its capture back to replay it";
+
     /// <summary>Runs the demo, writing the capture (text format) to <paramref name="capturePath"/>.</summary>
     public static DemoResult Run(string capturePath, IProgress<double>? progress, CancellationToken cancellationToken)
         => Run(DemoScenes.FloorScan(), "built-in demo scene", capturePath, progress, cancellationToken);
 
     /// <summary>Simulates any scene, replays it with replay's defaults and matches passes to events, as the demo does.</summary>
+    /// <exception cref="OutputFileException">The capture cannot be written (its folder is missing, the disk is full, ...); an existing file is left as it was.</exception>
     public static DemoResult Run(Scene scene, string sceneName, string capturePath, IProgress<double>? progress, CancellationToken cancellationToken)
     {
+        using var outputs = new OutputFileSet();
+        OutputFile capture = outputs.AddOutput("the demo capture", capturePath, "the demo capture");
+        capture.RegularFileNeededBecause = ReadBackReason;
+        if (!outputs.TryPrepare(out OutputFileException? problem))
+        {
+            throw problem!;
+        }
+
+        DemoResult result = Run(scene, sceneName, capture, progress, cancellationToken);
+        outputs.Commit();
+        return result;
+    }
+
+    /// <summary>
+    /// The demo on a prepared output: the capture is simulated into <paramref name="capture"/>'s stream and
+    /// read back from what was written (<see cref="OutputFile.ContentPath"/>) before the caller commits, or
+    /// drops, the file.
+    /// </summary>
+    public static DemoResult Run(Scene scene, string sceneName, OutputFile capture, IProgress<double>? progress, CancellationToken cancellationToken)
+    {
+        string readBack = capture.ContentPath ?? throw new ArgumentException($"{capture.Path}: the demo capture must be a regular file ({ReadBackReason}); set RegularFileNeededBecause before preparing", nameof(capture));
         var model = new SceneModel(scene, sceneName);
         var simulator = new CaptureSimulator(model);
         SimulationTruth truth;
-        using (ICaptureWriter writer = CaptureFile.Create(capturePath, simulator.Metadata, CaptureFileFormat.Text))
+        using (ICaptureWriter writer = CaptureFile.Create(capture.Stream, simulator.Metadata, CaptureFileFormat.Text))
         {
             truth = simulator.Run(writer, progress, cancellationToken);
         }
 
+        string capturePath = capture.Path;
+        ReplayReport report;
         var defaults = new ReadoutCommandSettings();
         CounterSettings options = defaults.BuildOptions(out string? optionError)
             ?? throw new InvalidOperationException("default counter options invalid: " + optionError);
-        ReplayReport report;
-        using (ICaptureReader reader = CaptureFile.Open(capturePath))
+        var bytes = new FileStream(readBack, FileMode.Open, FileAccess.Read, FileShare.ReadWrite, 65536, FileOptions.SequentialScan);
+        using (ICaptureReader reader = CaptureFile.Open(bytes, capturePath))
         {
             ReadoutSettings readout = defaults.BuildReadoutSettings(reader.Metadata, out string? readoutError)
                 ?? throw new InvalidOperationException("default readout settings invalid: " + readoutError);
