@@ -27,8 +27,8 @@ namespace FreqReadout.Host.Bench;
 /// no temp_c column.
 /// <para>Targets: the classes of a kind and mode's targets are dealt from a shuffled list that is exactly half ferrous, half
 /// non-ferrous, by the sign rule's class at the operating frequency (the class the truth scores): a ferrous one is carbon
-/// steel below its crossover; a non-ferrous one is carbon steel above its crossover (one in three) or copper, aluminium or
-/// brass. Each has a pass width uniform in 0.2-3 s and a peak uniform in 8-40 x the gate noise; <see cref="TargetPlacement"/>
+/// steel below its crossover; a non-ferrous one is carbon steel above its crossover (one in three, when such a part fits
+/// under the coil) or copper, aluminium or brass. Each has a pass width uniform in 0.2-3 s and a peak uniform in 8-40 x the gate noise; <see cref="TargetPlacement"/>
 /// finds its size and depth and the leg that gives that pass.</para>
 /// </summary>
 public static class BenchSceneBuilder
@@ -65,37 +65,22 @@ public static class BenchSceneBuilder
         {
             IReadOnlyList<string> classes = ClassesOf(key, size);
             var legs = new List<SceneSweepLeg>();
+            scene.Sweep.Legs = legs;
             double t = LeadInSeconds + (FirstLegJitterSeconds * rng.NextDouble());
             for (int k = 0; k < classes.Count; k++)
             {
                 cancellationToken.ThrowIfCancellationRequested();
-                bool steel = classes[k] == "ferrous" || rng.NextDouble() < SteelAboveCrossoverShare;
-                string material = steel ? "carbon_steel" : NonFerrous[(int)(rng.NextDouble() * NonFerrous.Length) % NonFerrous.Length];
                 double width = Uniform(rng, MinPassSeconds, MaxPassSeconds);
                 double multiple = Uniform(rng, MinPeakNoise, MaxPeakNoise);
-                TargetPlacementResult place = TargetPlacement.Place(model0, material, classes[k], multiple * noiseHz, heightM, rng);
-                double speed = 2.0 * place.HalfPeakOffsetM / width;
-                double legSeconds = 2.0 * place.LegEndOffsetM / speed;
-                double x = k * TargetSpacingM;
-                bool forward = rng.NextDouble() < 0.5;
                 if (k > 0)
                 {
                     t += Uniform(rng, MinGapSeconds, MaxGapSeconds);
                 }
 
-                legs.Add(new SceneSweepLeg
-                {
-                    StartS = t,
-                    FromM = forward ? x - place.LegEndOffsetM : x + place.LegEndOffsetM,
-                    ToM = forward ? x + place.LegEndOffsetM : x - place.LegEndOffsetM,
-                    DurationS = legSeconds,
-                });
-                scene.Targets.Add(new SceneTarget { Name = $"t{k}", Material = material, RadiusM = place.RadiusM, DepthM = place.DepthM, PositionM = x });
-                targets.Add(new BenchTargetPlan(k, classes[k], material, width, multiple, place));
-                t += legSeconds;
+                targets.Add(AddTarget(scene, model0, k, classes[k], width, multiple, noiseHz, t, rng));
+                t = legs[^1].StartS + legs[^1].DurationS;
             }
 
-            scene.Sweep.Legs = legs;
             durationS = t + TailSeconds;
         }
 
@@ -166,10 +151,63 @@ public static class BenchSceneBuilder
     }
 
     /// <summary>
+    /// Adds target <paramref name="index"/> (at 20 m x index along the line) and its leg (starting at
+    /// <paramref name="startSeconds"/>, in a direction drawn from <paramref name="random"/>) to <paramref name="scene"/>, whose
+    /// <c>sweep.legs</c> list must exist and hold the earlier legs. The part reads <paramref name="signRuleClass"/>: carbon
+    /// steel below its crossover for ferrous; for non-ferrous, carbon steel above its crossover with probability 1/3 when such
+    /// a part fits under the coil, else copper, aluminium or brass. Its truth peak is <paramref name="peakNoise"/> x
+    /// <paramref name="gateNoiseHz"/> and its half-peak width lasts <paramref name="passSeconds"/> (<see cref="TargetPlacement"/>).
+    /// </summary>
+    /// <param name="scene">The scene (coil, height, oscillator already set).</param>
+    /// <param name="model">A model of the scene's coil and oscillator (targets and legs are not used).</param>
+    /// <param name="index">Target and leg number.</param>
+    /// <param name="signRuleClass">ferrous or non-ferrous.</param>
+    /// <param name="passSeconds">Full width at half peak of the pass, s.</param>
+    /// <param name="peakNoise">Truth peak in gate-noise units.</param>
+    /// <param name="gateNoiseHz">The scene's gate noise, Hz.</param>
+    /// <param name="startSeconds">Leg start, s.</param>
+    /// <param name="random">Draws.</param>
+    /// <exception cref="InvalidOperationException">No part of the class reaches the peak under this coil.</exception>
+    public static BenchTargetPlan AddTarget(Scene scene, SceneModel model, int index, string signRuleClass, double passSeconds, double peakNoise, double gateNoiseHz, double startSeconds, SimulationRandom random)
+    {
+        bool ferrous = signRuleClass == "ferrous";
+        bool steel = ferrous || random.NextDouble() < SteelAboveCrossoverShare;
+        string metal = NonFerrous[(int)(random.NextDouble() * NonFerrous.Length) % NonFerrous.Length];
+        string material = steel ? "carbon_steel" : metal;
+        double heightM = scene.Sweep.HeightM;
+        if (!TargetPlacement.TryPlace(model, material, signRuleClass, peakNoise * gateNoiseHz, heightM, random, out TargetPlacementResult? placed, out string? why))
+        {
+            if (ferrous)
+            {
+                throw new InvalidOperationException(why);
+            }
+
+            // Steel above its crossover does not fit this coil (it is larger than half the coil's radius): a non-ferrous metal.
+            material = metal;
+            placed = TargetPlacement.Place(model, material, signRuleClass, peakNoise * gateNoiseHz, heightM, random);
+        }
+
+        TargetPlacementResult place = placed!;
+        double speed = 2.0 * place.HalfPeakOffsetM / passSeconds;
+        double legSeconds = 2.0 * place.LegEndOffsetM / speed;
+        double x = index * TargetSpacingM;
+        bool forward = random.NextDouble() < 0.5;
+        scene.Sweep.Legs!.Add(new SceneSweepLeg
+        {
+            StartS = startSeconds,
+            FromM = forward ? x - place.LegEndOffsetM : x + place.LegEndOffsetM,
+            ToM = forward ? x + place.LegEndOffsetM : x - place.LegEndOffsetM,
+            DurationS = legSeconds,
+        });
+        scene.Targets.Add(new SceneTarget { Name = $"t{index}", Material = material, RadiusM = place.RadiusM, DepthM = place.DepthM, PositionM = x });
+        return new BenchTargetPlan(index, signRuleClass, material, passSeconds, peakNoise, place);
+    }
+
+    /// <summary>
     /// The coil diameter for a scene at <paramref name="searchHz"/> whose largest peak is <paramref name="maxPeakHz"/>: 0.18 m,
     /// or 0.9, 0.81, ... times that (down to 0.01 m) until a carbon-steel sphere of the radius that maximises r^3 Re M among
-    /// those below 0.85 of the crossover radius gives at least that peak on the coil's axis with its centre 0.3 coil radii below
-    /// a surface 0.2 coil radii under the coil.
+    /// those below 0.85 of the crossover radius (at most half the coil's radius) gives at least that peak on the coil's axis
+    /// with its centre 0.3 coil radii (at least 1.5 sphere radii) below a surface 0.2 coil radii under the coil.
     /// </summary>
     public static double CoilDiameterM(double searchHz, double maxPeakHz)
     {
@@ -193,8 +231,9 @@ public static class BenchSceneBuilder
         {
             var coil = new SearchCoil(45, diameter, 0, 0, 0.0005);
             double r = coil.MeanRadiusM;
-            double axial = (CoilHeightRadii * r) + Math.Max(FerrousReachDepthRadii * r, 1.5 * bestRadius);
-            var m = SpherePolarizability.PolarizabilityM3(bestRadius, steel.ConductivitySPerM, steel.RelativePermeability, searchHz);
+            double a = Math.Min(bestRadius, 0.5 * r); // placement draws radii up to half the coil's radius
+            double axial = (CoilHeightRadii * r) + Math.Max(FerrousReachDepthRadii * r, 1.5 * a);
+            var m = SpherePolarizability.PolarizabilityM3(a, steel.ConductivitySPerM, steel.RelativePermeability, searchHz);
             double dl = CoilTargetCoupling.OnAxisInductanceChangeH(coil, m, axial);
             if (bestRadius > 0 && Math.Abs(searchHz * LcResonance.FractionalShift(coil.WheelerInductanceH, dl)) >= maxPeakHz)
             {

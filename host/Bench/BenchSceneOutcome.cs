@@ -6,7 +6,7 @@ namespace FreqReadout.Host.Bench;
 /// <param name="Rows">Capture rows (edges or snapshots).</param>
 /// <param name="Passes">Truth passes in time order.</param>
 /// <param name="Ways">Readout, fixed-3s, moving-10s (in <see cref="BenchWay"/> order).</param>
-/// <param name="ReadoutWarnings">The replay's warnings.</param>
+/// <param name="Readout">The replay's report (events, re-baselines, noise, warnings).</param>
 /// <param name="ElapsedSeconds">Wall time of this scene (drawing, simulating, replaying, plain ways), s.</param>
 public sealed record BenchSceneOutcome(
     BenchScene Scene,
@@ -14,5 +14,5 @@ public sealed record BenchSceneOutcome(
     long Rows,
     IReadOnlyList<BenchPass> Passes,
     IReadOnlyList<BenchWayOutcome> Ways,
-    IReadOnlyList<string> ReadoutWarnings,
+    FreqReadout.Host.Replay.ReplayReport Readout,
     double ElapsedSeconds);

@@ -85,27 +85,8 @@ public static class QualityBench
         try
         {
             BenchScene bench = BenchSceneBuilder.Build(key, size, cancellationToken);
-            var model = new SceneModel(bench.Scene, bench.Scene.Name);
-            var simulator = new CaptureSimulator(model);
-            var capture = new MemoryCapture(simulator.Metadata, key.Name);
-            SimulationTruth truth = simulator.Run(capture, null, cancellationToken);
-            IReadOnlyList<BenchPass> passes = PassesOf(bench, model, truth);
-            var ways = new List<BenchWayOutcome>();
-
-            ReplayReport report = Replay(capture, cancellationToken);
-            ways.Add(new BenchWayOutcome(BenchWay.Readout, BenchPassMatcher.Match(passes, report.Events), report.Rebaselines.Count));
-
-            List<PlainGate> gates = PlainReciprocalGates.Compute(capture);
-            CaptureMetadata md = capture.Metadata;
-            double sign = SignRule.SearchSignPerCounted(md.Signal, md.BeatSide);
-            foreach (var (way, baseline) in new[] { (BenchWay.FixedBaseline, PlainBaseline.Fixed), (BenchWay.MovingBaseline, PlainBaseline.Moving) })
-            {
-                PlainDetectionResult plain = PlainDetector.Detect(gates, baseline, sign, model.SearchNominalHz);
-                var events = plain.Events.Select(e => new ReplayEvent(e, null)).ToList();
-                ways.Add(new BenchWayOutcome(way, BenchPassMatcher.Match(passes, events), 0));
-            }
-
-            return new BenchSceneOutcome(bench, model.DurationS, capture.Rows, passes, ways, report.Warnings, clock.Elapsed.TotalSeconds);
+            BenchSceneOutcome outcome = Run(bench, null, cancellationToken);
+            return outcome with { ElapsedSeconds = clock.Elapsed.TotalSeconds };
         }
         catch (Exception e) when (e is InvalidOperationException or ArgumentException or SceneException or CaptureFormatException)
         {
@@ -113,8 +94,43 @@ public static class QualityBench
         }
     }
 
-    /// <summary>The capture through the counting core and the device pipeline exactly as <c>replay</c> runs it with its defaults.</summary>
-    private static ReplayReport Replay(MemoryCapture capture, CancellationToken cancellationToken)
+    /// <summary>
+    /// Simulates a drawn (or hand-built) bench scene into memory and scores it: the readout through
+    /// <see cref="CaptureGateSource"/> and <see cref="ReplaySession"/>, and the two plain ways on the same rows. The passes
+    /// scored are those of <see cref="BenchScene.Targets"/> (target k on leg k).
+    /// </summary>
+    /// <param name="bench">The scene.</param>
+    /// <param name="readout">Readout settings to use instead of replay's defaults (signal, beat side and search_hz are taken
+    /// from the capture, as replay does); null for the defaults.</param>
+    /// <param name="cancellationToken">Stops the run.</param>
+    public static BenchSceneOutcome Run(BenchScene bench, ReadoutSettings? readout, CancellationToken cancellationToken)
+    {
+        var clock = Stopwatch.StartNew();
+        var model = new SceneModel(bench.Scene, bench.Scene.Name);
+        var simulator = new CaptureSimulator(model);
+        var capture = new MemoryCapture(simulator.Metadata, bench.Key.Name);
+        SimulationTruth truth = simulator.Run(capture, null, cancellationToken);
+        IReadOnlyList<BenchPass> passes = PassesOf(bench, model, truth);
+        var ways = new List<BenchWayOutcome>();
+
+        ReplayReport report = Replay(capture, readout, cancellationToken);
+        ways.Add(new BenchWayOutcome(BenchWay.Readout, BenchPassMatcher.Match(passes, report.Events), report.Rebaselines.Count));
+
+        List<PlainGate> gates = PlainReciprocalGates.Compute(capture);
+        CaptureMetadata md = capture.Metadata;
+        double sign = SignRule.SearchSignPerCounted(md.Signal, md.BeatSide);
+        foreach (var (way, baseline) in new[] { (BenchWay.FixedBaseline, PlainBaseline.Fixed), (BenchWay.MovingBaseline, PlainBaseline.Moving) })
+        {
+            PlainDetectionResult plain = PlainDetector.Detect(gates, baseline, sign, model.SearchNominalHz);
+            var events = plain.Events.Select(e => new ReplayEvent(e, null)).ToList();
+            ways.Add(new BenchWayOutcome(way, BenchPassMatcher.Match(passes, events), 0));
+        }
+
+        return new BenchSceneOutcome(bench, model.DurationS, capture.Rows, passes, ways, report, clock.Elapsed.TotalSeconds);
+    }
+
+    /// <summary>The capture through the counting core and the device pipeline exactly as <c>replay</c> runs it (with its defaults unless <paramref name="template"/> is given).</summary>
+    private static ReplayReport Replay(MemoryCapture capture, ReadoutSettings? template, CancellationToken cancellationToken)
     {
         var defaults = new ReadoutCommandSettings();
         CounterSettings options = defaults.BuildOptions(out string? optionError)
@@ -122,6 +138,20 @@ public static class QualityBench
         using ICaptureReader reader = capture.OpenReader();
         ReadoutSettings readout = defaults.BuildReadoutSettings(reader.Metadata, out string? readoutError)
             ?? throw new InvalidOperationException("replay's default readout settings are invalid: " + readoutError);
+        if (template != null)
+        {
+            ReadoutSettings given = template.Clone();
+            given.Signal = readout.Signal;
+            given.BeatSide = readout.BeatSide;
+            given.SearchHz = readout.SearchHz;
+            if (!given.TryValidate(out string error))
+            {
+                throw new ArgumentException(error);
+            }
+
+            readout = given;
+        }
+
         var source = new CaptureGateSource(reader, options);
         var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
         return session.Run(source, cancellationToken);

@@ -49,6 +49,16 @@ public static class TargetPlacement
     /// <exception cref="InvalidOperationException">No radius in range gives a depth in range (the message says which peak).</exception>
     public static TargetPlacementResult Place(SceneModel model, string material, string signRuleClass, double peakShiftHz, double heightM, SimulationRandom random)
     {
+        return TryPlace(model, material, signRuleClass, peakShiftHz, heightM, random, out TargetPlacementResult? result, out string? why)
+            ? result!
+            : throw new InvalidOperationException(why);
+    }
+
+    /// <summary>As <see cref="Place"/>, but false with the reason instead of an exception.</summary>
+    public static bool TryPlace(SceneModel model, string material, string signRuleClass, double peakShiftHz, double heightM, SimulationRandom random, out TargetPlacementResult? result, out string? why)
+    {
+        result = null;
+        why = null;
         if (!MaterialPresets.TryGet(material, null, out Material m))
         {
             throw new ArgumentException("unknown material " + material, nameof(material));
@@ -72,8 +82,9 @@ public static class TargetPlacement
 
         if (!(upper > lower))
         {
-            throw new InvalidOperationException(FormattableString.Invariant(
-                $"no {material} sphere of {lower * 1e3:0.##}-{upper * 1e3:0.##} mm reads {signRuleClass} at {model.SearchNominalHz:G6} Hz under a coil of {2 * coilRadius * 1e3:0} mm"));
+            why = FormattableString.Invariant(
+                $"no {material} sphere reads {signRuleClass} at {model.SearchNominalHz:G6} Hz within {Math.Max(0.001, 0.03 * coilRadius) * 1e3:0.##}-{0.5 * coilRadius * 1e3:0.##} mm (a coil of {2 * coilRadius * 1e3:0} mm)");
+            return false;
         }
 
         double logMin = Math.Log(lower);
@@ -113,11 +124,13 @@ public static class TargetPlacement
 
             double depth = Math.Exp(0.5 * (lo + hi));
             Profile p = Peak(model, m, radius, depth, heightM, ProfileGridPoints);
-            return new TargetPlacementResult(material, radius, depth, p.PeakHz, p.HalfPeakM, p.LegEndM);
+            result = new TargetPlacementResult(material, radius, depth, p.PeakHz, p.HalfPeakM, p.LegEndM);
+            return true;
         }
 
-        throw new InvalidOperationException(FormattableString.Invariant(
+        why = (FormattableString.Invariant(
             $"no {material} sphere of {lower * 1e3:0.##}-{upper * 1e3:0.##} mm reading {signRuleClass} at a depth of up to {maxDepth:0.000} m gives a peak shift of {peakShiftHz:G4} Hz at {model.SearchNominalHz:G6} Hz under a coil of {2 * coilRadius * 1e3:0} mm"));
+        return false;
     }
 
     /// <summary>The target's |search shift| profile along the line: its peak (Hz), and the half-peak and leg-end offsets (m).</summary>

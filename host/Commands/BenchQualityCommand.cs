@@ -129,7 +129,7 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         }
         else
         {
-            Print(CommandOutput.Stdout(), report);
+            Print(report);
         }
 
         return 0;
@@ -229,31 +229,36 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         double low = r.Scenes.Min(s => s.Scene.GateNoisePpm);
         double high = r.Scenes.Max(s => s.Scene.GateNoisePpm);
         return string.Create(ci,
-            $"seeds: {r.SeedSet} (master seed {r.MasterSeed}){(r.Quick ? ", quick subset" : string.Empty)}; {any.Targets} targets per kind (half ferrous), " +
+            $"seeds: {r.SeedSet} (master seed {r.MasterSeed}){(r.Quick ? ", quick subset" : string.Empty)}; {any.Targets} targets per kind (half of each class), " +
             $"{any.DriftOnlyHours:0.##} h drift-only per kind; gate noise {low:0.###}-{high:0.#} ppm; {r.Scenes.Count} scenes, " +
             $"{r.SimulatedSeconds / 3600:0.00} h simulated, {r.CaptureRows / 1e6:0.0} M rows, in {r.ElapsedSeconds:0} s with {r.Jobs} at once");
     }
 
-    private static void Print(IAnsiConsole console, QualityBenchReport r)
+    private static void Print(QualityBenchReport r)
     {
-        console.MarkupLine("[bold]Tracking-quality bench[/] — invented scenes drawn from the simulator (not field data); definition in host/Bench/README.md.");
-        var table = new Table().Border(TableBorder.Simple);
-        for (int i = 0; i < Headers.Length; i++)
+        Console.Out.WriteLine("Tracking-quality bench: invented scenes drawn from the simulator (not field data); definition in host/Bench/README.md.");
+        Console.Out.WriteLine();
+
+        // Plain fixed-width text (a Spectre table would wrap its cells on an 80-column or redirected console).
+        var rows = new List<string[]> { Headers };
+        rows.AddRange(r.Rows.Select(row => Cells(row, r)));
+        int[] widths = Enumerable.Range(0, Headers.Length).Select(i => rows.Max(x => x[i].Length)).ToArray();
+        foreach (string[] cells in rows)
         {
-            table.AddColumn(i >= 2 && i <= 8 ? new TableColumn(Headers[i]).RightAligned() : new TableColumn(Headers[i]));
+            string line = string.Join("  ", cells.Select((c, i) => i >= 2 && i <= 8 ? c.PadLeft(widths[i]) : c.PadRight(widths[i])));
+            Console.Out.WriteLine(line.TrimEnd());
+            if (ReferenceEquals(cells, Headers))
+            {
+                Console.Out.WriteLine(string.Join("  ", widths.Select(w => new string('-', w))));
+            }
         }
 
-        foreach (QualityRow row in r.Rows)
-        {
-            table.AddRow(Cells(row, r).Select(Markup.Escape).ToArray());
-        }
-
-        console.Write(table);
-        console.WriteLine(Setup(r));
-        console.WriteLine(Legend);
+        Console.Out.WriteLine();
+        Console.Out.WriteLine(Setup(r) + ".");
+        Console.Out.WriteLine(Legend);
         if (r.SeedSet == "tune")
         {
-            console.WriteLine("These are the tuning seeds: report on --seeds report once the design is frozen.");
+            Console.Out.WriteLine("These are the tuning seeds: report on --seeds report once the design is frozen.");
         }
     }
 
@@ -445,7 +450,7 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
 
         json.WriteEndArray();
         json.WriteStartArray("readout_warnings");
-        foreach (string w in s.ReadoutWarnings)
+        foreach (string w in s.Readout.Warnings)
         {
             json.WriteStringValue(w);
         }
