@@ -13,9 +13,10 @@ namespace FreqReadout.Host.Bench;
 /// <item>search: 50-150 kHz divided by 8 (6-19 k recorded edges/s), input capture on a 32-bit timer at 80 MHz or 240 MHz
 /// (even odds; the faster clock stands for a time-to-digital counter and is what takes 0.1 s reciprocal gates down to
 /// 0.02 ppm), white FM log-uniform 2e-9..5e-8 at 1 s, flicker a quarter of it: gate noise about 0.02-0.2 ppm;</item>
-/// <item>beat above / below: search 80-120 kHz, reference on the given side; even odds of (a) input capture at 80 MHz,
-/// beat 3-8 kHz, white FM of each oscillator log-uniform 2e-8..5e-7 (gate noise about 0.1-2 ppm) or (b) software time stamps
-/// on a 1 MHz timer with 5-20 us rms jitter (log-uniform), beat 2-5 kHz, white FM 2e-8 (about 1.5-14 ppm);</item>
+/// <item>beat above / below: reference on the given side; even odds of (a) search 80-120 kHz, input capture at 80 MHz,
+/// beat 3-8 kHz, white FM of each oscillator log-uniform 2e-8..5e-7 (gate noise about 0.1-2 ppm) or (b) search 20-40 kHz,
+/// software time stamps on a 1 MHz timer with 5-20 us rms jitter (log-uniform), a beat whose period is 40-80 rms jitters,
+/// white FM 2e-8 (about 4-18 ppm);</item>
 /// <item>snapshots: 200-400 kHz, a pulse-counter read every 10 ms (the read schedule wanders by +-10 %), stamped on a
 /// 1 MHz timer with 1 us rms mismatch, white FM 2e-8: about 15-25 ppm.</item>
 /// </list>
@@ -292,9 +293,13 @@ public static class BenchSceneBuilder
             case BenchMode.BeatAbove:
             case BenchMode.BeatBelow:
             {
-                double search = Uniform(rng, 80e3, 120e3);
                 bool capture = rng.NextDouble() < 0.5;
-                double beat = capture ? Uniform(rng, 3e3, 8e3) : Uniform(rng, 2e3, 5e3);
+                double search = capture ? Uniform(rng, 80e3, 120e3) : Uniform(rng, 20e3, 40e3);
+                double jitter = capture ? 0.0 : LogUniform(rng, 5e-6, 20e-6);
+
+                // Software stamps: the beat period is at least 40 rms jitters (the jitter stays within 2.5 % of a period, well
+                // inside the counter's glitch guard at half a period).
+                double beat = capture ? Uniform(rng, 3e3, 8e3) : Uniform(rng, 0.5, 1.0) / (40 * jitter);
                 double white = capture ? LogUniform(rng, 2e-8, 5e-7) : 2e-8;
                 scene.Oscillator = new SceneOscillator { FrequencyHz = search, WhiteFmAdev1s = white, FlickerAdev = white / 4 };
                 scene.Reference = new SceneReference
@@ -305,7 +310,7 @@ public static class BenchSceneBuilder
                 };
                 scene.Hardware = capture
                     ? new SceneHardware { ClockHz = 80e6, Prescale = 1, TimerBits = 32, TimestampMethod = TimestampMethod.InputCapture }
-                    : new SceneHardware { ClockHz = 1e6, Prescale = 1, TimerBits = 32, TimestampMethod = TimestampMethod.Custom, JitterS = LogUniform(rng, 5e-6, 20e-6) };
+                    : new SceneHardware { ClockHz = 1e6, Prescale = 1, TimerBits = 32, TimestampMethod = TimestampMethod.Custom, JitterS = jitter };
                 break;
             }
 

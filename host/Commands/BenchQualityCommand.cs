@@ -40,6 +40,10 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         [Description("Print the table as Markdown (as kept in the README).")]
         public bool Markdown { get; set; }
 
+        [CommandOption("--save-json <FILE>")]
+        [Description("Also write the --json object to FILE (whatever is printed).")]
+        public string? SaveJson { get; set; }
+
         [CommandOption("--quiet")]
         [Description("No progress on stderr.")]
         public bool Quiet { get; set; }
@@ -117,6 +121,18 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         catch (InvalidOperationException e)
         {
             return CommandOutput.Fail(e.Message, 1);
+        }
+
+        if (settings.SaveJson != null)
+        {
+            try
+            {
+                File.WriteAllText(settings.SaveJson, ToJson(report) + "\n");
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                return CommandOutput.Fail($"{settings.SaveJson}: cannot write the JSON: {FileErrorText.Reason(settings.SaveJson, e)}", CommandOutput.BadOption);
+            }
         }
 
         if (settings.Json)
