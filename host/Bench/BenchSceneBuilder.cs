@@ -252,6 +252,7 @@ public static class BenchSceneBuilder
     /// <paramref name="scene"/> with the same hardware and oscillators but constant temperature, no targets and no mains,
     /// <paramref name="seconds"/> long, on a seed of its own. Counted signal, Hz.
     /// </summary>
+    /// <exception cref="InvalidOperationException">Fewer than 3 gates closed in <paramref name="seconds"/>.</exception>
     public static double MeasureGateNoiseHz(Scene scene, double seconds, CancellationToken cancellationToken)
     {
         var twin = new Scene
