@@ -159,6 +159,12 @@ public static class Program
                 .WithDescription("Generate a capture from physics (scene file or built-in demo scene) plus a truth file.");
             config.AddCommand<CoilCommand>("coil")
                 .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
+            config.AddBranch("bench", bench =>
+            {
+                bench.SetDescription("Benches that measure the readout on simulated scenes.");
+                bench.AddCommand<BenchQualityCommand>("quality")
+                    .WithDescription("Tracking quality: seeded drift scenes of every kind and mode through the readout and two plain ways; targets found, classified right, false events per hour, peak-shift error.");
+            });
         });
         return app;
     }

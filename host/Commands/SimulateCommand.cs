@@ -50,6 +50,14 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         [Description("Capture length, s, (0, 604800]] (overrides the scene's; default the sweep plan's length).")]
         public double? DurationS { get; set; }
 
+        [CommandOption("--mains-ppm <PPM>")]
+        [Description("Mains pickup: peak frequency deviation of the search oscillator, ppm, [[0, 10000]] (overrides the scene's mains.deviation_ppm).")]
+        public double? MainsPpm { get; set; }
+
+        [CommandOption("--mains-hz <HZ>")]
+        [Description("Mains pickup: modulation frequency, Hz, [[1, 1000]], usually 50 or 60 (overrides the scene's mains.frequency_hz; default 50).")]
+        public double? MainsHz { get; set; }
+
         [CommandOption("--save-scene <FILE>")]
         [Description("Also write the effective scene (after overrides) as JSON; with no --out, only that.")]
         [FilePath]
@@ -197,6 +205,20 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
             }
         }
 
+        if (settings.MainsPpm.HasValue || settings.MainsHz.HasValue)
+        {
+            scene.Mains ??= new SceneMains();
+            if (settings.MainsPpm.HasValue)
+            {
+                scene.Mains.DeviationPpm = settings.MainsPpm.Value;
+            }
+
+            if (settings.MainsHz.HasValue)
+            {
+                scene.Mains.FrequencyHz = settings.MainsHz.Value;
+            }
+        }
+
         string name = settings.Scene ?? "demo scene";
         try
         {
@@ -205,6 +227,11 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         catch (SceneException ex) when (settings.DurationS.HasValue && ex.Message.Contains("duration_s", StringComparison.Ordinal))
         {
             throw SceneException.Usage(ex.Message.Replace("duration_s", "--duration-s"));
+        }
+        catch (SceneException ex) when (ex.Message.Contains("mains.", StringComparison.Ordinal) && (settings.MainsPpm.HasValue || settings.MainsHz.HasValue))
+        {
+            throw new SceneException(ex.Message.Replace("mains.deviation_ppm", settings.MainsPpm.HasValue ? "--mains-ppm" : "mains.deviation_ppm")
+                .Replace("mains.frequency_hz", settings.MainsHz.HasValue ? "--mains-hz" : "mains.frequency_hz"));
         }
 
         return scene;

@@ -473,6 +473,8 @@ public sealed class CaptureSimulator
             WhiteFmAdev1s = s.Oscillator.WhiteFmAdev1s,
             FlickerAdev = s.Oscillator.FlickerAdev,
             DropoutS = s.Faults.DropoutS,
+            MainsDeviationPpm = s.Mains is { DeviationPpm: > 0 } ? s.Mains.DeviationPpm : null,
+            MainsHz = s.Mains is { DeviationPpm: > 0 } ? s.Mains.FrequencyHz : null,
             Parameters = s,
         };
         double tc = m.TempcoPpmPerK * 1e-6;

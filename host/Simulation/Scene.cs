@@ -50,6 +50,9 @@ public sealed class Scene
     /// <summary>Faults to inject.</summary>
     public SceneFaults Faults { get; set; } = new();
 
+    /// <summary>Mains pickup (frequency modulation of the search oscillator), or null (default) for none.</summary>
+    public SceneMains? Mains { get; set; }
+
     /// <summary>JSON options of the scene and truth files: snake_case keys, snake_case enums, comments and trailing commas allowed, unknown keys rejected.</summary>
     public static JsonSerializerOptions JsonOptions { get; } = CreateOptions();
 
@@ -170,6 +173,22 @@ public sealed class Scene
         if (!(s.LeadInS >= 0 && s.LeadInS <= 1e5)) Fail("sweep.lead_in_s", "in [0, 1e5] s", s.LeadInS);
         if (!(s.TailS >= 0 && s.TailS <= 1e5)) Fail("sweep.tail_s", "in [0, 1e5] s", s.TailS);
 
+        if (s.Legs is not null)
+        {
+            double lastEnd = double.NegativeInfinity;
+            for (int i = 0; i < s.Legs.Count; i++)
+            {
+                var leg = s.Legs[i];
+                string p = $"sweep.legs[{i}]";
+                if (leg is null) Fail(p, "an object", null);
+                if (!(leg!.StartS >= 0 && leg.StartS <= 1e6) || !(leg.StartS >= lastEnd)) Fail($"{p}.start_s", "in [0, 1e6] s and at or after the previous leg's end", leg.StartS);
+                if (!(leg.DurationS > 0 && leg.DurationS <= 1e5)) Fail($"{p}.duration_s", "in (0, 1e5] s", leg.DurationS);
+                if (!double.IsFinite(leg.FromM) || !double.IsFinite(leg.ToM) || leg.FromM == leg.ToM) Fail($"{p}.from_m / {p}.to_m", "finite and different", $"{leg.FromM} / {leg.ToM}");
+                if (!(Math.Abs(leg.ToM - leg.FromM) / leg.DurationS <= 20)) Fail($"{p}.duration_s", "long enough for a speed of at most 20 m/s", leg.DurationS);
+                lastEnd = leg.StartS + leg.DurationS;
+            }
+        }
+
         var h = Hardware;
         if (!(h.ClockHz >= 1e3 && h.ClockHz <= 1e10)) Fail("hardware.clock_hz", "in [1e3, 1e10] Hz", h.ClockHz);
         if (!(Math.Abs(h.ClockErrorPpm) <= 1000)) Fail("hardware.clock_error_ppm", "in [-1000, 1000] ppm", h.ClockErrorPpm);
@@ -188,6 +207,14 @@ public sealed class Scene
         if (!(Faults.GlitchesPerS >= 0 && Faults.GlitchesPerS <= 1e4)) Fail("faults.glitches_per_s", "in [0, 1e4] per s", Faults.GlitchesPerS);
         if (!(Faults.DropoutsPerS >= 0 && Faults.DropoutsPerS <= 100)) Fail("faults.dropouts_per_s", "in [0, 100] per s", Faults.DropoutsPerS);
         if (!(Faults.DropoutS > 0 && Faults.DropoutS <= 10)) Fail("faults.dropout_s", "in (0, 10] s", Faults.DropoutS);
+
+        if (Mains is not null)
+        {
+            if (!(Mains.DeviationPpm >= 0 && Mains.DeviationPpm <= 1e4)) Fail("mains.deviation_ppm", "in [0, 10000] ppm", Mains.DeviationPpm);
+            if (!(Mains.FrequencyHz >= 1 && Mains.FrequencyHz <= 1000)) Fail("mains.frequency_hz", "in [1, 1000] Hz", Mains.FrequencyHz);
+            if (!double.IsFinite(Mains.PhaseDeg)) Fail("mains.phase_deg", "a finite number of degrees", Mains.PhaseDeg);
+            if (Mains.DeviationPpm > 0 && !(h.ControlStepS <= 1.0 / (16.0 * Mains.FrequencyHz))) Fail("hardware.control_step_s", $"at most 1 / (16 mains.frequency_hz) = {1.0 / (16.0 * Mains.FrequencyHz):G4} s with mains pickup", h.ControlStepS);
+        }
 
         if (DurationS.HasValue && !(DurationS > 0 && DurationS <= 86400 * 7)) Fail("duration_s", "in (0, 604800] s", DurationS);
     }

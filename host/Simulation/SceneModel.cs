@@ -180,11 +180,15 @@ public sealed class SceneModel
     /// <summary>Drift-free search frequency with the targets' effect at time t: f0 ((1 + dL/L)^(-1/2)), Hz.</summary>
     public double SearchWithoutDriftHz(double timeS) => SearchNominalHz * (1.0 + LcResonance.FractionalShift(InductanceH, InductanceChangeAtH(timeS)));
 
-    /// <summary>Intended search frequency at time t (targets and temperature drift, no noise): f0 (1 + tc (T - T0)) (1 + dL/L)^(-1/2), Hz.</summary>
+    /// <summary>
+    /// Intended search frequency at time t (targets, temperature drift and mains pickup, no noise):
+    /// f0 (1 + tc (T - T0)) (1 + dL/L)^(-1/2) (1 + m sin(2 pi f_mains t + phase)), Hz (m = 0 without <c>mains</c>).
+    /// </summary>
     public double SearchIntendedHz(double timeS)
     {
         double drift = 1.0 + TempcoPpmPerK * 1e-6 * (Scene.Temperature.At(timeS) - Scene.Oscillator.NominalTemperatureC);
-        return drift * SearchWithoutDriftHz(timeS);
+        double mains = Scene.Mains is null ? 1.0 : 1.0 + Scene.Mains.FractionAt(timeS);
+        return drift * mains * SearchWithoutDriftHz(timeS);
     }
 
     /// <summary>Intended reference frequency at time t (its own drift, no noise), Hz; NaN in search mode.</summary>

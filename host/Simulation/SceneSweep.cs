@@ -5,6 +5,8 @@ namespace FreqReadout.Host.Simulation;
 /// makes <see cref="Passes"/> passes at <see cref="SpeedMPerS"/>, pausing <see cref="PauseS"/> between them, then rests for
 /// <see cref="TailS"/>. Alternating passes go back and forth; otherwise the coil is lifted clear during each pause and
 /// carried back to the start (no coupling while lifted).
+/// <para>Instead, <see cref="Legs"/> may list the passes one by one (start time, ends, duration); then start_m, end_m,
+/// speed_m_per_s, passes, pause_s, lead_in_s and alternate are not used, and tail_s follows the last leg.</para>
 /// </summary>
 public sealed class SceneSweep
 {
@@ -34,4 +36,11 @@ public sealed class SceneSweep
 
     /// <summary>Passes alternate direction. Default true.</summary>
     public bool Alternate { get; set; } = true;
+
+    /// <summary>
+    /// Explicit passes in time order, or null (default) for the regular sweep above. Before the first leg the coil rests at
+    /// its start; between legs it rests where the last one ended when the next starts there, and is otherwise lifted clear
+    /// (no coupling) until the next leg starts; after the last it rests at its end.
+    /// </summary>
+    public List<SceneSweepLeg>? Legs { get; set; }
 }

@@ -35,6 +35,12 @@ public sealed class SimulationTruth
     public double WhiteFmAdev1s { get; set; }
     public double FlickerAdev { get; set; }
 
+    /// <summary>Mains pickup: peak deviation of the search oscillator, ppm (null without pickup).</summary>
+    public double? MainsDeviationPpm { get; set; }
+
+    /// <summary>Mains pickup: modulation frequency, Hz (null without pickup).</summary>
+    public double? MainsHz { get; set; }
+
     /// <summary>Data rows written (edges or snapshots).</summary>
     public long Rows { get; set; }
 

@@ -1,6 +1,6 @@
 namespace FreqReadout.Host.Simulation;
 
-/// <summary>The coil's timeline from <see cref="SceneSweep"/>: lead-in rest, passes, pauses, tail rest.</summary>
+/// <summary>The coil's timeline from <see cref="SceneSweep"/>: lead-in rest, passes, pauses, tail rest; or its explicit legs.</summary>
 public sealed class SweepPlan
 {
     private readonly SceneSweep _sweep;
@@ -8,6 +8,20 @@ public sealed class SweepPlan
     public SweepPlan(SceneSweep sweep)
     {
         _sweep = sweep;
+        if (sweep.Legs is { Count: > 0 } legs)
+        {
+            var explicitPasses = new List<SweepPass>();
+            for (int i = 0; i < legs.Count; i++)
+            {
+                var leg = legs[i];
+                explicitPasses.Add(new SweepPass(i, leg.StartS, leg.StartS + leg.DurationS, leg.FromM, leg.ToM));
+            }
+
+            Passes = explicitPasses;
+            PlannedDurationS = explicitPasses[^1].EndTimeS + sweep.TailS;
+            return;
+        }
+
         double passS = Math.Abs(sweep.EndM - sweep.StartM) / sweep.SpeedMPerS;
         var passes = new List<SweepPass>();
         double t = sweep.LeadInS;
