@@ -24,8 +24,11 @@ namespace FreqReadout.Readout
     /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r|; none at k_t: no target.
     /// The pass test runs only while the candidate is younger than 2 lock_check_s: a shift that has not
     /// returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
-    /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to B, M and A together
-    /// leaves every residual below k_t sigma and a mean square below 2 sigma^2: a smooth change, not a pass.
+    /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
+    /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
+    /// below 2 sigma^2, and bends no more than drift can (|c2| &lt;= |c1| / (2 tau_min) + 3 sigma sqrt(v)): a
+    /// smooth change of drift rate, not a pass. The window slides with time, so lock is recovered even when a
+    /// pass came while it was lost (that pass is then not reported).
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -52,6 +55,7 @@ namespace FreqReadout.Readout
         private readonly QuadraticFit sides = new QuadraticFit();
         private readonly QuadraticFit all = new QuadraticFit();
         private double beforeCenterSeconds;
+        private double driftFromSeconds;
 
         /// <summary>Fits a quadratic to the non-excluded readings with from &lt;= t &lt;= to, origin at originSeconds; false when it is not determined.</summary>
         public bool FitRecent(ReadingHistory history, double fromSeconds, double toSeconds, double originSeconds, double sigmaHz, ExcursionVerdict into)
@@ -87,6 +91,7 @@ namespace FreqReadout.Readout
             double fitWindowSeconds,
             bool allowDrift,
             bool allowPass,
+            double driftWindowSeconds,
             ExcursionVerdict into)
         {
             into.Kind = ExcursionVerdict.Pending;
@@ -100,6 +105,11 @@ namespace FreqReadout.Readout
                 return;
             }
 
+            // The drift test looks at the readings since the candidate opened, at most driftWindowSeconds back:
+            // a change of drift rate (a kink) lies before them, and a pass that came while lock was lost
+            // leaves the window again, so lock is still recovered.
+            double driftFrom = ScalarMath.Max(startSeconds, nowSeconds - driftWindowSeconds);
+            driftFromSeconds = driftFrom;
             before.Clear(nowSeconds);
             sides.Clear(nowSeconds);
             all.Clear(nowSeconds);
@@ -107,26 +117,25 @@ namespace FreqReadout.Readout
             for (int i = FirstAtOrAfter(history, beforeFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
-
                 double x = history.ValueAt(i);
+                bool excluded = history.IsExcluded(i);
+                if (t >= driftFrom && !excluded)
+                {
+                    all.Add(t, x);
+                }
+
                 if (t < middleFrom)
                 {
-                    if (!history.IsExcluded(i))
+                    if (!excluded)
                     {
                         before.Add(t, x);
                         sides.Add(t, x);
-                        all.Add(t, x);
                     }
                 }
                 else if (t > afterFrom)
                 {
                     sides.Add(t, x);
-                    all.Add(t, x);
                     afterCount++;
-                }
-                else
-                {
-                    all.Add(t, x);
                 }
             }
 
@@ -141,7 +150,7 @@ namespace FreqReadout.Readout
                 return;
             }
 
-            if (allowDrift && all.TrySolve() && Smooth(history, beforeFrom, sigmaHz, thresholdSigma))
+            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
             {
                 into.Kind = ExcursionVerdict.Drift;
                 Anchor(all, sigmaHz, into);
@@ -211,6 +220,15 @@ namespace FreqReadout.Readout
             double spread = sigmaHz * ScalarMath.Sqrt((1.0 / n) + before.PredictionVarianceFactor(meanTime));
             double allowance = ScalarMath.Abs(before.HalfCurvature) * distance * distance * distance / (3.0 * MinDriftSeconds);
             return ScalarMath.Abs(sumResidual / n) <= (AgreementSigmas * spread) + allowance;
+        }
+
+        // A drift curve bends no faster than a settling with the shortest time constant assumed:
+        // |f''| <= |f'| / tau_min, i.e. |c2| <= |c1| / (2 tau_min), plus 3 sigma of the fit's own c2. A pass seen
+        // for a few seconds fits a parabola with a large c2 and a small slope near its peak.
+        private bool PlausibleDrift(double sigmaHz)
+        {
+            double allowed = (ScalarMath.Abs(all.Slope) / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
+            return ScalarMath.Abs(all.HalfCurvature) <= allowed;
         }
 
         private bool Smooth(ReadingHistory history, double beforeFrom, double sigmaHz, double thresholdSigma)
