@@ -15,10 +15,10 @@ public static class CaptureColumns
     /// <summary>Optional: a mark (free text without commas; <c>rebaseline</c>, <c>hold</c>, <c>release</c> are commands).</summary>
     public const string Mark = "mark";
 
-    /// <summary>Lowest <c>temp_c</c>, degrees C: absolute zero.</summary>
+    /// <summary>Lowest <c>temp_c</c>, deg C: absolute zero.</summary>
     public const double MinTemperatureC = -273.15;
 
-    /// <summary>Highest <c>temp_c</c>, degrees C: far above any working coil (solder melts near 190 C, enamelled wire fails near 200 C); higher is a broken sensor or a wrong unit.</summary>
+    /// <summary>Highest <c>temp_c</c>, deg C: far above any working coil (solder melts near 190 deg C, enamelled wire fails near 200 deg C); higher is a broken sensor or a wrong unit.</summary>
     public const double MaxTemperatureC = 1000;
 
     /// <summary>What is wrong with a temperature sample (the range and the unit), or null when it is a plausible one.</summary>
@@ -26,17 +26,17 @@ public static class CaptureColumns
     {
         if (double.IsNaN(temperatureC) || double.IsInfinity(temperatureC))
         {
-            return "expected temp_c as a finite number of degrees Celsius";
+            return "expected temp_c as a finite number of deg C in [-273.15, 1000]";
         }
 
         if (temperatureC < MinTemperatureC)
         {
-            return "temp_c " + temperatureC.ToString("R", System.Globalization.CultureInfo.InvariantCulture) + " is below absolute zero (-273.15 deg C); expected degrees Celsius in [-273.15, 1000]";
+            return "temp_c " + temperatureC.ToString("R", System.Globalization.CultureInfo.InvariantCulture) + " is below absolute zero (-273.15 deg C); expected a number of deg C in [-273.15, 1000]";
         }
 
         if (temperatureC > MaxTemperatureC)
         {
-            return "temp_c " + temperatureC.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " is above 1000 deg C, not a coil temperature (a broken sensor or another unit?); expected degrees Celsius in [-273.15, 1000]";
+            return "temp_c " + temperatureC.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " is above 1000 deg C, not a coil temperature (a broken sensor or another unit?); expected a number of deg C in [-273.15, 1000]";
         }
 
         return null;

@@ -90,6 +90,18 @@ public class ReadoutCommandSettings : CounterOptionSettings
     [Description("Residuals fed to the tracker are clipped to +-guard sigmas, (0, 100]]. Default 3.")]
     public string? GuardSigma { get; set; }
 
+    [CommandOption("--lock-check-s <SECONDS>")]
+    [Description("A target candidate that has lasted this long and that one smooth local quadratic (drift) explains together with the --fit-window-s before it is taken as drift the tracker failed to follow: no event, the tracker re-anchors on the fit, [[0.5, 600]]. Default 2.5.")]
+    public string? LockCheckSeconds { get; set; }
+
+    [CommandOption("--fit-window-s <SECONDS>")]
+    [Description("Target-free readings before a candidate that its local quadratic baseline is fitted to, [[1, 600]]. Default 8.")]
+    public string? FitWindowSeconds { get; set; }
+
+    [CommandOption("--history-gates <N>")]
+    [Description("Recent readings kept to decide a candidate from both sides of it, an integer in [[64, 16384]]; they should span --fit-window-s + 2 x --lock-check-s + 2 s, so raise it for short gates. Default 256.")]
+    public string? HistoryGates { get; set; }
+
     [CommandOption("--beat-floor-hz <HZ>")]
     [Description("Beat mode: a beat note below this is flagged and its sign unclear, [[0, 1e9]]. Default 50.")]
     public string? BeatFloorHz { get; set; }
@@ -132,6 +144,8 @@ public class ReadoutCommandSettings : CounterOptionSettings
             (TrackerLevelSeconds, "--tracker-level-s", (r, v) => r.TrackerLevelSeconds = v),
             (TrackerSlopeSeconds, "--tracker-slope-s", (r, v) => r.TrackerSlopeSeconds = v),
             (GuardSigma, "--guard-sigma", (r, v) => r.GuardSigma = v),
+            (LockCheckSeconds, "--lock-check-s", (r, v) => r.LockCheckSeconds = v),
+            (FitWindowSeconds, "--fit-window-s", (r, v) => r.FitWindowSeconds = v),
             (BeatFloorHz, "--beat-floor-hz", (r, v) => r.BeatFloorHz = v),
         };
         foreach (var (text, option, set) in numbers)
@@ -147,6 +161,7 @@ public class ReadoutCommandSettings : CounterOptionSettings
             (BaselineMaxGates, "--baseline-max-gates", (r, v) => r.BaselineMaxGates = v),
             (NoiseWindowGates, "--noise-window-gates", (r, v) => r.NoiseWindowGates = v),
             (TrackerDelayGates, "--tracker-delay-gates", (r, v) => r.TrackerDelayGates = v),
+            (HistoryGates, "--history-gates", (r, v) => r.HistoryGates = v),
         };
         foreach (var (text, option, set) in integers)
         {

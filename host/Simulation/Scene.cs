@@ -130,9 +130,6 @@ public sealed class Scene
         if (o.FrequencyHz.HasValue && !(o.FrequencyHz > 100 && o.FrequencyHz <= 20e6)) Fail("oscillator.frequency_hz", "in (100, 2e7] Hz", o.FrequencyHz);
         if (o.TuningCapacitanceNf.HasValue && !(o.TuningCapacitanceNf > 0.001 && o.TuningCapacitanceNf <= 1e6)) Fail("oscillator.tuning_capacitance_nf", "in (0.001, 1e6] nF", o.TuningCapacitanceNf);
         if (o.TempcoPpmPerK.HasValue && !(Math.Abs(o.TempcoPpmPerK.Value) <= 10000)) Fail("oscillator.tempco_ppm_per_k", "in [-10000, 10000] ppm/K", o.TempcoPpmPerK);
-        if (o.CapacitorPpmPerK.HasValue && !(Math.Abs(o.CapacitorPpmPerK.Value) <= 10000)) Fail("oscillator.capacitor_ppm_per_k", "in [-10000, 10000] ppm/K", o.CapacitorPpmPerK);
-        if (!(Math.Abs(o.CoilPpmPerK) <= 10000)) Fail("oscillator.coil_ppm_per_k", "in [-10000, 10000] ppm/K", o.CoilPpmPerK);
-        if (!(o.NominalTemperatureC > -100 && o.NominalTemperatureC < 200)) Fail("oscillator.nominal_temperature_c", "in (-100, 200) C", o.NominalTemperatureC);
         if (!o.TempcoPpmPerK.HasValue && o.Capacitor == CapacitorDielectric.Custom && !o.CapacitorPpmPerK.HasValue) Fail("oscillator.capacitor_ppm_per_k", "given when oscillator.capacitor is custom", null);
         if (o.CapacitorPpmPerK.HasValue && !(Math.Abs(o.CapacitorPpmPerK.Value) <= 10000)) Fail("oscillator.capacitor_ppm_per_k", "in [-10000, 10000] ppm/K", o.CapacitorPpmPerK);
         if (!(Math.Abs(o.CoilPpmPerK) <= 10000)) Fail("oscillator.coil_ppm_per_k", "in [-10000, 10000] ppm/K", o.CoilPpmPerK);

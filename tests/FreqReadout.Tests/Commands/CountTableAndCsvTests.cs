@@ -152,9 +152,12 @@ public sealed class CountTableAndCsvTests : IDisposable
         Assert.True(exit == 0, stderr);
 
         // Contract README: 50 kHz exactly, 200 ticks of 10 MHz per edge, 101 edges: four gates of 25 intervals (26 edges).
-        // error_hz: least-squares period variance 12 sigma_x^2 / (N (N^2 - 1)) (Danielson, Vernotte, Rubiola,
-        // arXiv:1604.01004, eq. 21) with quantisation sigma_x^2 = 1/12 tick^2, as a frequency f sigma_T / T.
-        double error = 50_000.0 * Math.Sqrt(12.0 / 12.0 / (26.0 * (26.0 * 26.0 - 1.0))) / 200.0;
+        // error_hz: the counting merge replaced the white 1/12 tick^2 model by QuantisationErrorModel, which without jitter
+        // and at a whole-tick period gives its rigorous cap: the least-squares slope sum c_i e_i, c_i = (i - mean) / Sxx,
+        // with |e_i| <= 1/2 tick is at most (1/2) sum |c_i| = (1/2) floor(N^2 / 4) / Sxx ticks (triangle inequality; Sxx =
+        // N (N^2 - 1) / 12, Danielson, Vernotte, Rubiola, arXiv:1604.01004, eq. 21), as a frequency f sigma_T / T.
+        double sxx = 26.0 * (26.0 * 26.0 - 1.0) / 12.0;
+        double error = 50_000.0 * (0.5 * Math.Floor(26.0 * 26.0 / 4.0) / sxx) / 200.0;
         string[] lines = csv.Split('\n');
         Assert.Equal(6, lines.Length); // header, four gates, and the empty text after the last line end
         Assert.Equal(CountCommand.CsvHeader, lines[0]);
@@ -162,10 +165,12 @@ public sealed class CountTableAndCsvTests : IDisposable
         string[] ends = { "0.0005", "0.001", "0.0015", "0.002" };
         for (int i = 0; i < 4; i++)
         {
+            // Columns since the counting merge: ..., shift_hz, search_shift_hz (= shift_hz in search mode), edges, error_hz,
+            // estimator, state, glitches, inferred_edges, scatter_hz (empty until two gates, then 0 for equal frequencies).
             string[] f = lines[i + 1].Split(',');
-            Assert.Equal(new[] { ends[i], i == 0 ? "0" : ends[i - 1], "50000", "0", "26" }, f[..5]);
-            Assert.Equal(error, double.Parse(f[5], CultureInfo.InvariantCulture), 1e-9);
-            Assert.Equal(new[] { "regression", "ok", "0" }, f[6..]);
+            Assert.Equal(new[] { ends[i], i == 0 ? "0" : ends[i - 1], "50000", "0", "0", "26" }, f[..6]);
+            Assert.Equal(error, double.Parse(f[6], CultureInfo.InvariantCulture), 1e-9);
+            Assert.Equal(new[] { "regression", "ok", "0", "0", i == 0 ? string.Empty : "0" }, f[7..]);
         }
     }
 
@@ -182,9 +187,11 @@ public sealed class CountTableAndCsvTests : IDisposable
     public void Csv_with_no_gate_prints_the_header_and_says_why_on_stderr()
     {
         var (exit, csv, stderr) = ConsoleCapture.Run("count", Contract("minimal.edges.csv"), "--csv");
-        Assert.Equal(0, exit);
+        // A capture too short for one gate is a data problem (docs/exit-codes.md): exit 1 with an error, not a warning.
+        Assert.Equal(CommandOutput.BadInput, exit);
         Assert.Equal(CountCommand.CsvHeader + "\n", csv);
-        Assert.Contains("warning: no gate closed: the capture is shorter than one gate", stderr);
+        Assert.Contains("error: ", stderr);
+        Assert.Contains("no gate closed: the capture is shorter than one gate", stderr);
     }
 
     [Theory]

@@ -255,6 +255,11 @@ public sealed class ReplayCommandTests : IDisposable
     [InlineData("--search-hz", "fast", "--search-hz must be a number (Hz) in [0, 1e12]")]
     [InlineData("--noise-window-gates", "1.5", "--noise-window-gates must be an integer in [16, 4096], got '1.5'")]
     [InlineData("--tracker-delay-gates", "99999999999", "--tracker-delay-gates must be an integer in [0, 1000], got '99999999999'")]
+    [InlineData("--lock-check-s", "0.1", "lock_check_s must be in [0.5, 600]")]
+    [InlineData("--fit-window-s", "601", "fit_window_s must be in [1, 600]")]
+    [InlineData("--fit-window-s", "long", "--fit-window-s must be a number in [1, 600], got 'long'")]
+    [InlineData("--history-gates", "32", "history_gates must be an integer in [64, 16384], got 32")]
+    [InlineData("--history-gates", "1e3", "--history-gates must be an integer in [64, 16384], got '1e3'")]
     [InlineData("--gate-seconds", "0", "--gate-seconds must be a number of seconds in [1e-6, 86400]")]
     [InlineData("--estimator", "guess", "--estimator must be reciprocal or regression")]
     public void Each_bad_option_gives_its_own_error_naming_the_setting_and_range(string option, string value, string message)
@@ -288,6 +293,19 @@ public sealed class ReplayCommandTests : IDisposable
         var (exit, _, stderr) = ConsoleCapture.Run("replay", PathOf("nope.csv"));
         Assert.Equal(1, exit);
         Assert.Contains("cannot open the capture", stderr);
+    }
+
+    [Fact]
+    public void The_two_sided_decision_settings_are_options_that_reach_the_readout()
+    {
+        var metadata = new FreqReadout.Host.Captures.CaptureMetadata { ClockHz = 1e6 };
+        var defaults = new FreqReadout.Host.Commands.ReplayCommand.Settings().BuildReadoutSettings(metadata, out string? none);
+        Assert.Null(none);
+        Assert.Equal((2.5, 8.0, 256), (defaults!.LockCheckSeconds, defaults.FitWindowSeconds, defaults.HistoryGates));
+        var given = new FreqReadout.Host.Commands.ReplayCommand.Settings { LockCheckSeconds = "4", FitWindowSeconds = "12.5", HistoryGates = "1024" }
+            .BuildReadoutSettings(metadata, out string? error);
+        Assert.Null(error);
+        Assert.Equal((4.0, 12.5, 1024), (given!.LockCheckSeconds, given.FitWindowSeconds, given.HistoryGates));
     }
 
     [Fact]
