@@ -10,7 +10,7 @@ namespace FreqReadout.Host.Bench;
 /// drawn log-uniform in [max(1 mm, 0.03 R), 0.5 R], narrowed by the class it must show: a part that must read ferrous is
 /// carbon steel below <see cref="FerrousRadiusFraction"/> of the radius whose crossover is the operating frequency, carbon
 /// steel that must read non-ferrous is above <see cref="AboveCrossoverRadiusFraction"/> of it (r_x from the estimate
-/// f_x = 1.641 mu_r / (pi mu0 sigma r^2), REFERENCES.md); a draw whose class by the exact polarizability is not the one
+/// f_x = 1.641 mu_r / (pi mu0 sigma r^2), docs/references.md); a draw whose class by the exact polarizability is not the one
 /// wanted is drawn again. The depth that gives the wanted peak |shift| (the largest over the coil's positions along the line)
 /// is found by bisection on log depth (the peak falls monotonically with depth); a draw whose depth falls outside
 /// [max(1.5 r, <see cref="MinDepthRadii"/> R), <see cref="MaxDepthRadii"/> R] is drawn again (up to <see cref="MaxDraws"/>

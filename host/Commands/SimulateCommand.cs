@@ -230,7 +230,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         }
         catch (SceneException ex) when (ex.Message.Contains("mains.", StringComparison.Ordinal) && (settings.MainsPpm.HasValue || settings.MainsHz.HasValue))
         {
-            throw new SceneException(ex.Message.Replace("mains.deviation_ppm", settings.MainsPpm.HasValue ? "--mains-ppm" : "mains.deviation_ppm")
+            throw SceneException.Usage(ex.Message.Replace("mains.deviation_ppm", settings.MainsPpm.HasValue ? "--mains-ppm" : "mains.deviation_ppm")
                 .Replace("mains.frequency_hz", settings.MainsHz.HasValue ? "--mains-hz" : "mains.frequency_hz"));
         }
 

@@ -70,6 +70,12 @@ namespace FreqReadout.Numerics
             get { return curvatureFactor; }
         }
 
+        /// <summary>Var(c1) / sigma^2 of the last solve: the slope at the origin (0 before a successful solve).</summary>
+        public double SlopeVarianceFactor
+        {
+            get { return i11; }
+        }
+
         /// <summary>Forgets the points and sets the time origin.</summary>
         public void Clear(double originSeconds)
         {

@@ -27,7 +27,8 @@ namespace FreqReadout.Readout
     /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
     /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
     /// below 2 sigma^2, and bends no more than drift can (|c2| &lt;= |c1| / (2 tau_min) + 3 sigma sqrt(v)): a
-    /// smooth change of drift rate, not a pass. The window slides with time, so lock is recovered even when a
+    /// smooth change of drift rate, not a pass; and its slope differs from the tracker's by more than 3 sigma
+    /// of the fitted slope (a level shift that stays, a step, keeps the old rate and stays a target). The window slides with time, so lock is recovered even when a
     /// pass came while it was lost (that pass is then not reported).
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
@@ -92,6 +93,7 @@ namespace FreqReadout.Readout
             bool allowDrift,
             bool allowPass,
             double driftWindowSeconds,
+            double trackerSlopeHzPerSecond,
             ExcursionVerdict into)
         {
             into.Kind = ExcursionVerdict.Pending;
@@ -150,7 +152,7 @@ namespace FreqReadout.Readout
                 return;
             }
 
-            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
+            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
             {
                 into.Kind = ExcursionVerdict.Drift;
                 Anchor(all, sigmaHz, into);
@@ -225,10 +227,13 @@ namespace FreqReadout.Readout
         // A drift curve bends no faster than a settling with the shortest time constant assumed:
         // |f''| <= |f'| / tau_min, i.e. |c2| <= |c1| / (2 tau_min), plus 3 sigma of the fit's own c2. A pass seen
         // for a few seconds fits a parabola with a large c2 and a small slope near its peak.
-        private bool PlausibleDrift(double sigmaHz)
+        // And the drift rate must have changed: a shift that stays level (a step: metal left near the coil)
+        // keeps the tracker's slope and is a target, not lost lock (3 sigma of the fitted slope).
+        private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond)
         {
             double allowed = (ScalarMath.Abs(all.Slope) / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
-            return ScalarMath.Abs(all.HalfCurvature) <= allowed;
+            double slopeChange = ScalarMath.Abs(all.Slope - trackerSlopeHzPerSecond);
+            return ScalarMath.Abs(all.HalfCurvature) <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(all.SlopeVarianceFactor);
         }
 
         private bool Smooth(ReadingHistory history, double beforeFrom, double sigmaHz, double thresholdSigma)

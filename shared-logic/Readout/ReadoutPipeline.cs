@@ -460,7 +460,7 @@ namespace FreqReadout.Readout
                 return false;
             }
 
-            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, verdict);
+            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), verdict);
             if (verdict.Kind == ExcursionVerdict.Pending)
             {
                 return false;
