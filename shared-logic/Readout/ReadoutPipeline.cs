@@ -43,7 +43,7 @@ namespace FreqReadout.Readout
 
         private const int MaxRecaptures = 3;
         private const int MinDisturbanceGates = 10;
-        private const double DisturbedNoiseRatio = 2.5;
+        private const double DisturbedNoiseRatio = 1.8;
         private const double CurvedNoiseRatio = 0.7;
 
         private const int PhaseSettling = 0;
