@@ -63,6 +63,11 @@ namespace FreqReadout.Firmware.Device
                 }
             }
 
+            if (reading.BaselineDisturbed)
+            {
+                status += " BASELINE MOVED";
+            }
+
             if (reading.BelowBeatFloor)
             {
                 status += " beat low!";

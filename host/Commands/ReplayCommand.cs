@@ -41,7 +41,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string? EventsFile { get; set; }
 
         [CommandOption("--hold-span <FROM:TO>")]
-        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap. Default: none (only the capture's own hold/release marks).")]
+        [Description("Replay FROM to TO seconds (from the capture's first edge; 0 <= FROM < TO) in hold mode, as a 'hold' mark on the first row at or after FROM and a 'release' mark on the first row at or after TO would: no automatic re-baseline in between. May be repeated for spans that do not overlap. Hold mode is for pinpointing over a still target: the tracker keeps following target-free readings, but a shift that stays is not re-baselined. A capture's mark column can do the same with 'hold' and 'release' marks, and 'rebaseline' asks for a manual re-baseline (marks act from the next gate). Default: none (only the capture's own hold/release marks).")]
         public string[]? HoldSpans { get; set; }
 
         [CommandOption("--unclear-band-sigma <SIGMA>")]

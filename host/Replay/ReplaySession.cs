@@ -358,6 +358,18 @@ public sealed class ReplaySession
                 _rebaselines.Add(new ReplayRebaseline(n.RequestedSeconds, n.CompletedSeconds, n.Reason, n.ShiftHz, n.HasPpm ? n.ShiftPpm : null));
             }
 
+            if (n.Recaptures > 0)
+            {
+                _warnings.Add(n.Disturbed
+                    ? $"the baseline ready at {F(n.CompletedSeconds)} s is the best of {n.Recaptures + 1} disturbed captures (a step or outliers in each: metal or the coil moved while it was taken); re-baseline when the coil is still and clear of metal"
+                    : $"the baseline ready at {F(n.CompletedSeconds)} s was captured again {n.Recaptures} time(s): the earlier capture was disturbed (a step or outliers: metal or the coil moved)");
+            }
+
+            if (n.OverMetalHint)
+            {
+                _warnings.Add($"the lasting shift absorbed at {F(n.CompletedSeconds)} s is opposite in sign to the disturbance seen in an earlier baseline capture: that baseline may have been taken with metal near the coil");
+            }
+
             if (n.Outliers > 0)
             {
                 _warnings.Add($"the baseline capture ending at {F(n.CompletedSeconds)} s rejected {n.Outliers} of {n.Gates} gates as outliers (something moved during settling?)");
