@@ -133,7 +133,7 @@ public sealed class CountCommand : Command<CountCommand.Settings>
 
     /// <summary>The search oscillator's shift from a shift of the counted signal: the beat's sign flips when the search oscillator is below the reference.</summary>
     public static double SearchShiftHz(double countedShiftHz, CaptureMetadata metadata) =>
-        metadata.Signal == SignalKind.Beat && metadata.BeatSide == BeatSide.Below ? -countedShiftHz : countedShiftHz;
+        metadata.Signal == SignalKind.Beat && metadata.BeatSide == BeatSide.Below ? 0.0 - countedShiftHz : countedShiftHz; // 0 - x, not -x: no "-0" for an unchanged gate
 
     private static long WriteJson(CaptureGateSource source, CancellationToken cancellationToken)
     {

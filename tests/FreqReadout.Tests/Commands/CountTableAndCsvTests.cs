@@ -202,4 +202,17 @@ public sealed class CountTableAndCsvTests : IDisposable
     {
         Assert.Equal(expected, CountCommand.CsvText(text));
     }
+
+    [Fact]
+    public void Beat_below_search_shift_of_an_unchanged_gate_is_0_not_minus_0()
+    {
+        // beat-with-temp.edges.csv (contract sample): beat_side = below, a steady 400 Hz beat; the search shift is
+        // the counted shift with its sign flipped, and 0 flipped must print as 0.
+        var (exit, csv, stderr) = ConsoleCapture.Run("count", Contract("beat-with-temp.edges.csv"), "--csv");
+        Assert.True(exit == 0, stderr);
+        string[] header = csv.Split('\n')[0].Split(',');
+        int column = Array.IndexOf(header, "search_shift_hz");
+        Assert.True(column > 0);
+        Assert.All(csv.Split('\n', StringSplitOptions.RemoveEmptyEntries).Skip(1), row => Assert.NotEqual("-0", row.Split(',')[column]));
+    }
 }
