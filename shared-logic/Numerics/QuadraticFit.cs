@@ -34,11 +34,6 @@ namespace FreqReadout.Numerics
         private double i11;
         private double i12;
 
-        /// <summary>Time origin of u, s.</summary>
-        public double OriginSeconds
-        {
-            get { return origin; }
-        }
 
         /// <summary>Points added since the last <see cref="Clear"/>.</summary>
         public int Count
@@ -174,13 +169,6 @@ namespace FreqReadout.Numerics
             double u = timeSeconds - origin;
             double u2 = u * u;
             return i00 + (2.0 * u * i01) + (u2 * ((2.0 * i02) + i11)) + (2.0 * u2 * u * i12) + (u2 * u2 * curvatureFactor);
-        }
-
-        /// <summary>The fitted slope at a time, c1 + 2 c2 u (per second).</summary>
-        public double SlopeAt(double timeSeconds)
-        {
-            double u = timeSeconds - origin;
-            return c1 + (2.0 * c2 * u);
         }
     }
 }

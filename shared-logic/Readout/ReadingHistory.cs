@@ -2,14 +2,13 @@ namespace FreqReadout.Readout
 {
     /// <summary>
     /// The recent readings the pipeline keeps for deciding an excursion afterwards: a fixed ring
-    /// (allocated once) of gate end time, gate span and the compensated frequency relative to the
-    /// pipeline's origin, plus a mark for readings that belong to a reported event (never used as
+    /// (allocated once) of gate end time and the compensated frequency relative to the pipeline's
+    /// origin, plus a mark for readings that belong to a reported event (never used as
     /// baseline again). When full, the oldest reading is overwritten.
     /// </summary>
     internal sealed class ReadingHistory
     {
         private readonly double[] times;
-        private readonly double[] spans;
         private readonly double[] values;
         private readonly bool[] excluded;
         private int head;
@@ -18,7 +17,6 @@ namespace FreqReadout.Readout
         public ReadingHistory(int capacity)
         {
             times = new double[capacity];
-            spans = new double[capacity];
             values = new double[capacity];
             excluded = new bool[capacity];
         }
@@ -35,7 +33,7 @@ namespace FreqReadout.Readout
             count = 0;
         }
 
-        public void Add(double timeSeconds, double spanSeconds, double value)
+        public void Add(double timeSeconds, double value)
         {
             int slot;
             if (count == times.Length)
@@ -50,20 +48,10 @@ namespace FreqReadout.Readout
             }
 
             times[slot] = timeSeconds;
-            spans[slot] = spanSeconds;
             values[slot] = value;
             excluded[slot] = false;
         }
 
-        /// <summary>Moves every value by -offset (after the pipeline moves its origin by +offset).</summary>
-        public void Shift(double offset)
-        {
-            for (int i = 0; i < count; i++)
-            {
-                int slot = (head + i) % times.Length;
-                values[slot] -= offset;
-            }
-        }
 
         /// <summary>Time of the i-th oldest reading (0 = oldest).</summary>
         public double TimeAt(int i)
@@ -71,10 +59,6 @@ namespace FreqReadout.Readout
             return times[(head + i) % times.Length];
         }
 
-        public double SpanAt(int i)
-        {
-            return spans[(head + i) % times.Length];
-        }
 
         public double ValueAt(int i)
         {

@@ -367,7 +367,7 @@ namespace FreqReadout.Readout
             double shift = sideSign * (relative - predictedRelative);
             double sigma = Sigma(gate.ErrorHz);
             double ppmReference = PpmReferenceHz(originHz + predictedRelative);
-            history.Add(t, span, relative);
+            history.Add(t, relative);
             bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, events.NextSlot());
             bool anchored = false;
             if (ended)
@@ -758,7 +758,7 @@ namespace FreqReadout.Readout
             {
                 for (int i = 0; i < capture.Count; i++)
                 {
-                    history.Add(capture.TimeSecondsAt(i), 0.0, capture.ValueHzAt(i) - originHz);
+                    history.Add(capture.TimeSecondsAt(i), capture.ValueHzAt(i) - originHz);
                 }
             }
 
