@@ -6,7 +6,7 @@ namespace FreqReadout.Host.Output;
 /// (not the temporary file's), and never closes the file itself — disposing it only flushes, and
 /// the <see cref="OutputFileSet"/> decides whether the file is moved into place or deleted.
 /// </summary>
-internal sealed class GuardedOutputStream : Stream
+internal sealed class GuardedOutputStream : WriteOnlyStream
 {
     private readonly OutputFile _file;
     private readonly Stream _inner;
@@ -18,24 +18,8 @@ internal sealed class GuardedOutputStream : Stream
         _inner = inner;
     }
 
-    /// <summary>Bytes written through this stream.</summary>
-    public long BytesWritten => _written;
-
-    public override bool CanRead => false;
-
-    public override bool CanSeek => false;
-
-    public override bool CanWrite => true;
-
-    public override long Length => throw new NotSupportedException();
-
-    public override long Position
-    {
-        get => _written;
-        set => throw new NotSupportedException();
-    }
-
-    public override void Write(byte[] buffer, int offset, int count) => Write(buffer.AsSpan(offset, count));
+    /// <inheritdoc/>
+    public override long BytesWritten => _written;
 
     public override void Write(ReadOnlySpan<byte> buffer)
     {
@@ -68,12 +52,6 @@ internal sealed class GuardedOutputStream : Stream
             throw _file.WriteFailure(e);
         }
     }
-
-    public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-
-    public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-
-    public override void SetLength(long value) => throw new NotSupportedException();
 
     protected override void Dispose(bool disposing)
     {

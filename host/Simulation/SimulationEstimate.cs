@@ -152,35 +152,17 @@ public sealed class SimulationEstimate
     }
 
     /// <summary>A write-only stream that keeps only the count of bytes written.</summary>
-    private sealed class ByteCountingStream : Stream
+    private sealed class ByteCountingStream : FreqReadout.Host.Output.WriteOnlyStream
     {
         public long Bytes { get; private set; }
 
-        public override bool CanRead => false;
-
-        public override bool CanSeek => false;
-
-        public override bool CanWrite => true;
+        public override long BytesWritten => Bytes;
 
         public override long Length => Bytes;
-
-        public override long Position
-        {
-            get => Bytes;
-            set => throw new NotSupportedException();
-        }
 
         public override void Flush()
         {
         }
-
-        public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-
-        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-
-        public override void SetLength(long value) => throw new NotSupportedException();
-
-        public override void Write(byte[] buffer, int offset, int count) => Bytes += count;
 
         public override void Write(ReadOnlySpan<byte> buffer) => Bytes += buffer.Length;
     }

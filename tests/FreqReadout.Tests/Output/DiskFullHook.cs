@@ -31,7 +31,7 @@ internal sealed class DiskFullHook : IOutputStreamHook
     public static IOException DiskFull() =>
         new("No space left on device (injected by the test)", OperatingSystem.IsWindows() ? unchecked((int)0x80070070) : 28);
 
-    private sealed class FullStream : Stream
+    private sealed class FullStream : WriteOnlyStream
     {
         private readonly DiskFullHook _hook;
         private readonly string _label;
@@ -45,21 +45,7 @@ internal sealed class DiskFullHook : IOutputStreamHook
             _inner = inner;
         }
 
-        public override bool CanRead => false;
-
-        public override bool CanSeek => false;
-
-        public override bool CanWrite => true;
-
-        public override long Length => throw new NotSupportedException();
-
-        public override long Position
-        {
-            get => _written;
-            set => throw new NotSupportedException();
-        }
-
-        public override void Write(byte[] buffer, int offset, int count) => Write(buffer.AsSpan(offset, count));
+        public override long BytesWritten => _written;
 
         public override void Write(ReadOnlySpan<byte> buffer)
         {
@@ -84,12 +70,6 @@ internal sealed class DiskFullHook : IOutputStreamHook
 
             _inner.Flush();
         }
-
-        public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-
-        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-
-        public override void SetLength(long value) => throw new NotSupportedException();
 
         private void Fail()
         {
