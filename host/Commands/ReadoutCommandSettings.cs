@@ -74,13 +74,9 @@ public class ReadoutCommandSettings : CounterOptionSettings
     [Description("Least noise sigma used, (0, 1e6]]. Default 0.001.")]
     public string? NoiseFloorHz { get; set; }
 
-    [CommandOption("--tracker-level-s <SECONDS>")]
-    [Description("Drift tracker (Holt) level time constant, (0, 3600]]. Default 2.")]
-    public string? TrackerLevelSeconds { get; set; }
-
-    [CommandOption("--tracker-slope-s <SECONDS>")]
-    [Description("Drift tracker (Holt) slope time constant, (0, 36000]]. Default 10.")]
-    public string? TrackerSlopeSeconds { get; set; }
+    [CommandOption("--tracker-memory-s <SECONDS>")]
+    [Description("Memory the drift tracker starts from after a baseline (it then adapts to the drift), [[0.4, 120]]. Default 5.")]
+    public string? TrackerMemorySeconds { get; set; }
 
     [CommandOption("--tracker-delay-gates <N>")]
     [Description("Readings reach the tracker this many gates late, [[0, 1000]]. Default 5.")]
@@ -141,8 +137,7 @@ public class ReadoutCommandSettings : CounterOptionSettings
             (BaselineSeconds, "--baseline-s", (r, v) => r.BaselineSeconds = v),
             (OutlierSigma, "--outlier-sigma", (r, v) => r.OutlierSigma = v),
             (NoiseFloorHz, "--noise-floor-hz", (r, v) => r.NoiseFloorHz = v),
-            (TrackerLevelSeconds, "--tracker-level-s", (r, v) => r.TrackerLevelSeconds = v),
-            (TrackerSlopeSeconds, "--tracker-slope-s", (r, v) => r.TrackerSlopeSeconds = v),
+            (TrackerMemorySeconds, "--tracker-memory-s", (r, v) => r.TrackerMemorySeconds = v),
             (GuardSigma, "--guard-sigma", (r, v) => r.GuardSigma = v),
             (LockCheckSeconds, "--lock-check-s", (r, v) => r.LockCheckSeconds = v),
             (FitWindowSeconds, "--fit-window-s", (r, v) => r.FitWindowSeconds = v),

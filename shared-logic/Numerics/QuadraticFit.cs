@@ -65,6 +65,12 @@ namespace FreqReadout.Numerics
             get { return curvatureFactor; }
         }
 
+        /// <summary>Var(c0) / sigma^2 of the last solve: the value at the origin (0 before a successful solve).</summary>
+        public double ValueVarianceFactor
+        {
+            get { return i00; }
+        }
+
         /// <summary>Var(c1) / sigma^2 of the last solve: the slope at the origin (0 before a successful solve).</summary>
         public double SlopeVarianceFactor
         {

@@ -26,7 +26,10 @@ namespace FreqReadout.Readout
     /// returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
     /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
     /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
-    /// below 2 sigma^2, and bends no more than drift can (|c2| &lt;= |c1| / (2 tau_min) + 3 sigma sqrt(v)): a
+    /// below 2 sigma^2, and its curvature differs from the tracker's by no more than a change of drift rate can bring
+    /// (|c2 - a_T / 2| &lt;= |c1 - b_T| / (2 tau_min) + 3 sigma sqrt(v); b_T, a_T the tracker's rate and acceleration: a
+    /// new settling of time constant tau bends by its rate over 2 tau, while the rising or falling edge of a pass bends
+    /// far more than its slope over a minute): a
     /// smooth change of drift rate, not a pass; and its slope differs from the tracker's by more than 3 sigma
     /// of the fitted slope (a level shift that stays, a step, keeps the old rate and stays a target). The window slides with time, so lock is recovered even when a
     /// pass came while it was lost (that pass is then not reported).
@@ -94,6 +97,7 @@ namespace FreqReadout.Readout
             bool allowPass,
             double driftWindowSeconds,
             double trackerSlopeHzPerSecond,
+            double trackerAccelerationHzPerSecond2,
             ExcursionVerdict into)
         {
             into.Kind = ExcursionVerdict.Pending;
@@ -152,7 +156,7 @@ namespace FreqReadout.Readout
                 return;
             }
 
-            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
+            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
             {
                 into.Kind = ExcursionVerdict.Drift;
                 Anchor(all, sigmaHz, into);
@@ -177,6 +181,8 @@ namespace FreqReadout.Readout
             into.SlopeHzPerSecond = fit.Slope;
             into.AccelerationHzPerSecond2 = 2.0 * fit.HalfCurvature;
             into.AccelerationSigmaHzPerSecond2 = 2.0 * sigmaHz * ScalarMath.Sqrt(fit.CurvatureVarianceFactor);
+            into.LevelSigmaHz = sigmaHz * ScalarMath.Sqrt(fit.ValueVarianceFactor);
+            into.SlopeSigmaHzPerSecond = sigmaHz * ScalarMath.Sqrt(fit.SlopeVarianceFactor);
         }
 
         private bool SidesAgree(ReadingHistory history, double afterFrom, double sigmaHz, double releaseSigma)
@@ -229,11 +235,12 @@ namespace FreqReadout.Readout
         // for a few seconds fits a parabola with a large c2 and a small slope near its peak.
         // And the drift rate must have changed: a shift that stays level (a step: metal left near the coil)
         // keeps the tracker's slope and is a target, not lost lock (3 sigma of the fitted slope).
-        private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond)
+        private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
         {
-            double allowed = (ScalarMath.Abs(all.Slope) / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
             double slopeChange = ScalarMath.Abs(all.Slope - trackerSlopeHzPerSecond);
-            return ScalarMath.Abs(all.HalfCurvature) <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(all.SlopeVarianceFactor);
+            double curvatureChange = ScalarMath.Abs(all.HalfCurvature - (0.5 * trackerAccelerationHzPerSecond2));
+            double allowed = (slopeChange / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
+            return curvatureChange <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(all.SlopeVarianceFactor);
         }
 
         private bool Smooth(ReadingHistory history, double beforeFrom, double sigmaHz, double thresholdSigma)

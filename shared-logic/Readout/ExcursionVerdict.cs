@@ -20,7 +20,13 @@ namespace FreqReadout.Readout
         /// <summary>Baseline second derivative at the decision time, Hz/s^2.</summary>
         public double AccelerationHzPerSecond2;
 
-        /// <summary>1-sigma uncertainty of <see cref="AccelerationHzPerSecond2"/> from the fit, Hz/s^2 (the pipeline keeps only a significant acceleration).</summary>
+        /// <summary>1-sigma uncertainty of <see cref="LevelHz"/> from the fit, Hz.</summary>
+        public double LevelSigmaHz;
+
+        /// <summary>1-sigma uncertainty of <see cref="SlopeHzPerSecond"/> from the fit, Hz/s.</summary>
+        public double SlopeSigmaHzPerSecond;
+
+        /// <summary>1-sigma uncertainty of <see cref="AccelerationHzPerSecond2"/> from the fit, Hz/s^2.</summary>
         public double AccelerationSigmaHzPerSecond2;
 
         /// <summary>Pass: first reading at or above the threshold, s.</summary>

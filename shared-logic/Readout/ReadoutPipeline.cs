@@ -14,22 +14,22 @@ namespace FreqReadout.Readout
     /// (2) settling: after start, a re-baseline request, an automatic re-baseline or the return of the
     /// signal, wait settling_s, then capture baseline_s of gates (<see cref="BaselineCapture"/>:
     /// resistant line, MAD noise, Hampel outlier rejection); readings say Settling meanwhile;
-    /// (3) tracking: residual r = x - P(t) from the <see cref="DriftTracker"/> (Holt level and slope),
-    /// search shift = s r, z = |shift| / sigma with sigma = max(running MAD noise, noise_floor_hz, the
-    /// gate's predicted error); (4) detection (<see cref="TargetDetector"/>): threshold, hysteresis,
-    /// minimum duration, sign rule; (5) target-free readings reach the tracker tracker_delay_gates late
-    /// through a delay line, which is emptied when a target opens and refilled only after as many
-    /// gates past its end, so neither edge of a target is absorbed; fed residuals are clipped to
-    /// +-guard_sigma sigma; the running noise is 1.482602218505602 x the median |r| of the last
-    /// noise_window_gates fed residuals; (6) an event lasting persistent_shift_s outside hold mode is
-    /// dropped and re-baselined automatically (reason Auto, with the shift it absorbed).
+    /// (3) tracking: residual r = x - P(t) from the <see cref="DriftTracker"/> (Kalman level, rate and acceleration
+    /// with adaptive jerk density), search shift = s r, z = |shift| / sigma with sigma = max(sqrt(noise^2 + V),
+    /// forecast-miss noise), noise = max(third-difference noise, noise_floor_hz, the gate's predicted error), V the
+    /// forecast variance at most (delay + 1) gates ahead; (4) detection (<see cref="TargetDetector"/>): threshold,
+    /// hysteresis, minimum duration, sign rule; (5) target-free readings reach the tracker tracker_delay_gates late
+    /// through a delay line, which is emptied when a target opens (the tracker also returns to its snapshot from
+    /// 1.5 s before the target) and refilled only after as long past its end, so neither flank of a target is
+    /// learnt; fed residuals are clipped to +-guard_sigma sigma; (6) an open candidate is decided from both sides
+    /// (<see cref="ExcursionResolver"/>); an event lasting persistent_shift_s outside hold mode is reported and its
+    /// level re-acquired as the baseline (reason Auto, with the shift it absorbed). Formulas: Readout/README.md.
     /// </para>
     /// <para>
     /// The tracker runs on offsets from the last captured baseline (and the capture on offsets from
     /// its first gate), so its sums work on small numbers rather than differences of ~1e5 Hz values
     /// (the device's double is IEEE double, done in software on ESP32; only System.Math is single precision).
-    /// The first baseline takes the capture's own slope; later ones keep the tracked slope (filtered
-    /// over tracker_slope_s, better than a few seconds of capture). Nothing here allocates after the
+    /// The tracker starts from the capture's fit with that fit's uncertainty. Nothing here allocates after the
     /// constructor, and no struct is made or copied (results are caller-owned objects filled in place);
     /// Process, the setters and the TryTake methods are safe for a device loop. Per gate the work is
     /// O(log noise_window_gates); the gate that completes a capture adds O(baseline_max_gates) expected.
@@ -45,6 +45,16 @@ namespace FreqReadout.Readout
         private const int MinDisturbanceGates = 10;
         private const double DisturbedNoiseRatio = 1.8;
         private const double CurvedNoiseRatio = 0.7;
+        private const int MinForecastSamples = 20;
+
+        // A pass rises below the threshold before it is seen: when a candidate opens, the tracker returns to its
+        // state from EdgeRewindSeconds before the candidate's first reading (snapshots after every fed reading,
+        // SnapshotCount at most), and after an event as long is skipped, so neither flank of a slow pass is learnt.
+        private const double EdgeRewindSeconds = 1.5;
+        private const int SnapshotCount = 32;
+
+        // 1 / sqrt 20: a third difference of white noise has variance 20 sigma^2.
+        private const double ThirdDifferenceScale = 0.22360679774997896;
 
         private const int PhaseSettling = 0;
         private const int PhaseCapturing = 1;
@@ -53,8 +63,10 @@ namespace FreqReadout.Readout
         private readonly ReadoutSettings settings;
         private readonly double sideSign;
         private readonly DriftTracker tracker;
+        private readonly DriftTracker[] snapshots;
         private readonly BaselineCapture capture;
         private readonly MedianWindow noiseWindow;
+        private readonly MedianWindow forecastWindow;
         private readonly TargetDetector detector;
         private readonly DetectionEventQueue events;
         private readonly RebaselineNoticeQueue notices;
@@ -62,6 +74,10 @@ namespace FreqReadout.Readout
         private readonly double[] delayValues;
         private readonly double[] delaySpans;
         private readonly bool[] delayValid;
+        private readonly double[] delayForecasts;
+        private readonly double[] delayVariances;
+        private readonly double[] delayNoises;
+        private readonly bool[] delayRegular;
         private readonly int delayGates;
 
         private readonly BaselineEstimate estimate;
@@ -86,6 +102,8 @@ namespace FreqReadout.Readout
         private int delayHead;
         private int delayCount;
         private int blankRemaining;
+        private int snapshotHead;
+        private int snapshotCount;
         private int phase;
         private bool started;
         private bool noSignal;
@@ -101,6 +119,7 @@ namespace FreqReadout.Readout
         private double oldTimeSeconds;
         private bool everBaselined;
         private double runningNoiseHz;
+        private double forecastNoiseHz;
         private bool manualRequested;
         private bool hold;
         private bool hasTemperature;
@@ -108,6 +127,12 @@ namespace FreqReadout.Readout
         private bool hasReferenceTemperature;
         private double referenceTemperatureC;
         private double lastTimeSeconds;
+        private double lastSpanSeconds;
+        private int fedRun;
+        private double fedTimeSeconds;
+        private double fed1;
+        private double fed2;
+        private double fed3;
         private ReadoutState state;
         private bool hasFirstBaseline;
         private double firstBaselineHz;
@@ -129,9 +154,16 @@ namespace FreqReadout.Readout
 
             this.settings = settings.Clone();
             sideSign = SignRule.SearchSignPerCounted(settings.Signal, settings.BeatSide);
-            tracker = new DriftTracker(settings.TrackerLevelSeconds, settings.TrackerSlopeSeconds);
+            tracker = new DriftTracker(settings.TrackerMemorySeconds);
+            snapshots = new DriftTracker[SnapshotCount];
+            for (int i = 0; i < SnapshotCount; i++)
+            {
+                snapshots[i] = new DriftTracker(settings.TrackerMemorySeconds);
+            }
+
             capture = new BaselineCapture(settings.BaselineMaxGates);
             noiseWindow = new MedianWindow(settings.NoiseWindowGates);
+            forecastWindow = new MedianWindow(settings.NoiseWindowGates);
             detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.ReleaseSeconds, settings.UnclearBandSigma, settings.Polarity));
             events = new DetectionEventQueue(QueueCapacity);
             notices = new RebaselineNoticeQueue(QueueCapacity);
@@ -140,6 +172,10 @@ namespace FreqReadout.Readout
             delayValues = new double[delayGates + 1];
             delaySpans = new double[delayGates + 1];
             delayValid = new bool[delayGates + 1];
+            delayForecasts = new double[delayGates + 1];
+            delayVariances = new double[delayGates + 1];
+            delayNoises = new double[delayGates + 1];
+            delayRegular = new bool[delayGates + 1];
             estimate = new BaselineEstimate();
             history = new ReadingHistory(settings.HistoryGates);
             resolver = new ExcursionResolver();
@@ -330,6 +366,11 @@ namespace FreqReadout.Readout
             }
 
             lastTimeSeconds = t;
+            if (span > 0)
+            {
+                lastSpanSeconds = span;
+            }
+
             double frequency = gate.FrequencyHz;
             double correction = TemperatureCorrectionHz(frequency);
             double x = frequency - correction;
@@ -364,8 +405,11 @@ namespace FreqReadout.Readout
 
             double relative = x - originHz;
             double predictedRelative = tracker.Predict(t);
+            double forecastVariance = tracker.PredictVariance(t);
             double shift = sideSign * (relative - predictedRelative);
-            double sigma = Sigma(gate.ErrorHz);
+            double noise = Sigma(gate.ErrorHz);
+            double sigma = DetectionSigma(noise, t);
+            double forecast = predictedRelative;
             double ppmReference = PpmReferenceHz(originHz + predictedRelative);
             history.Add(t, relative);
             bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, events.NextSlot());
@@ -374,23 +418,24 @@ namespace FreqReadout.Readout
             {
                 events.Commit();
                 history.Exclude(detector.StartSeconds - ExcursionResolver.EdgeMarginSeconds, t);
-                blankRemaining = delayGates;
+                blankRemaining = BlankGates(span);
             }
 
             if (detector.JustStarted)
             {
+                Rewind(detector.StartSeconds - EdgeRewindSeconds);
                 InvalidateDelayLine();
                 lastCheckSeconds = t;
             }
             else if (detector.TargetPresent && !hold && t - lastCheckSeconds + TimeEpsilonSeconds >= ExcursionResolver.CheckIntervalSeconds)
             {
                 lastCheckSeconds = t;
-                anchored = Decide(t, sigma, belowFloor);
+                anchored = Decide(t, noise, belowFloor);
             }
 
             if (detector.EventOpen && !hold && t - detector.PersistSinceSeconds + TimeEpsilonSeconds >= settings.PersistentShiftSeconds)
             {
-                if (!AbsorbPersistentShift(t, sigma))
+                if (!AbsorbPersistentShift(t, noise))
                 {
                     SettlingReading(t, span, frequency, correction, belowFloor, reading);
                     return false;
@@ -403,6 +448,7 @@ namespace FreqReadout.Readout
             {
                 predictedRelative = tracker.Predict(t);
                 shift = sideSign * (relative - predictedRelative);
+                sigma = DetectionSigma(noise, t);
             }
 
             double predicted = originHz + predictedRelative;
@@ -413,7 +459,7 @@ namespace FreqReadout.Readout
                 blankRemaining--;
             }
 
-            PushDelayLine(t, span, relative, valid);
+            PushDelayLine(t, span, relative, valid, forecast, forecastVariance, noise);
 
             TargetClass live = TargetClass.None;
             if (present)
@@ -460,7 +506,7 @@ namespace FreqReadout.Readout
                 return false;
             }
 
-            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), verdict);
+            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, verdict);
             if (verdict.Kind == ExcursionVerdict.Pending)
             {
                 return false;
@@ -549,13 +595,7 @@ namespace FreqReadout.Readout
         // noisy acceleration integrates into a slope error of a tau_a.
         private void Reanchor(double t)
         {
-            double acceleration = verdict.AccelerationHzPerSecond2;
-            if (ScalarMath.Abs(acceleration) < 3.0 * verdict.AccelerationSigmaHzPerSecond2)
-            {
-                acceleration = 0.0;
-            }
-
-            tracker.Reset(verdict.LevelHz, verdict.SlopeHzPerSecond, acceleration, t);
+            tracker.Reset(verdict.LevelHz, verdict.SlopeHzPerSecond, verdict.AccelerationHzPerSecond2, t, verdict.LevelSigmaHz, verdict.SlopeSigmaHzPerSecond, verdict.AccelerationSigmaHzPerSecond2, Sigma(0), lastSpanSeconds);
             ClearDelayLine();
             blankRemaining = 0;
         }
@@ -564,6 +604,25 @@ namespace FreqReadout.Readout
         {
             state = ReadoutState.Settling;
             reading.Set(ReadoutState.Settling, t, span, true, frequency, false, 0, 0, false, 0, 0, 0, 0, correction, false, hold, belowFloor, TargetClass.None, disturbed);
+        }
+
+        // The tracker's forecast variance at t, but no further ahead than the delay line's horizon ((delay + 1) gates):
+        // across a held target the forecast is judged afterwards from both sides (ExcursionResolver), and a sigma
+        // that grew with the gap would end a long pass in the middle.
+        private double DetectionVariance(double t)
+        {
+            double horizon = tracker.TimeSeconds + ((delayGates + 1) * lastSpanSeconds);
+            return tracker.PredictVariance(t < horizon ? t : horizon);
+        }
+
+        // Detection sigma: the larger of what the tracker expects of its forecast (sqrt(noise^2 + V)) and what its
+        // forecasts of target-free readings really missed by (1.4826 median |x - forecast| over the noise window,
+        // once it holds MinForecastSamples): noise that wanders between gates is not white, and the third
+        // differences do not see all of it.
+        private double DetectionSigma(double noise, double t)
+        {
+            double expected = ScalarMath.Sqrt((noise * noise) + DetectionVariance(t));
+            return forecastWindow.Count >= MinForecastSamples ? ScalarMath.Max(expected, forecastNoiseHz) : expected;
         }
 
         private double Sigma(double gateErrorHz)
@@ -701,18 +760,12 @@ namespace FreqReadout.Readout
             }
 
             noiseWindow.Clear();
-            if (keptDisturbed || curved)
-            {
-                capture.CopyAbsoluteDifferences(noiseWindow);
-                runningNoiseHz = keptDisturbed ? noise : RobustStatistics.MadToSigma * noiseWindow.Median();
-            }
-            else
-            {
-                capture.CopyAbsoluteResiduals(noiseWindow);
-                runningNoiseHz = noise;
-            }
+            forecastWindow.Clear();
+            fedRun = 0;
+            capture.CopyAbsoluteThirdDifferences(noiseWindow, ThirdDifferenceScale);
+            runningNoiseHz = noiseWindow.Count >= MinCaptureGates ? RobustStatistics.MadToSigma * noiseWindow.Median() : noise;
 
-            double sigma = ScalarMath.Max(ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), captureMaxErrorHz);
+            double sigma = ScalarMath.Max(ScalarMath.Max(noise, settings.NoiseFloorHz), captureMaxErrorHz);
             double ppmReference = PpmReferenceHz(levelHz);
             bool hasPpm = ppmReference > 0;
             double shift = 0;
@@ -739,13 +792,19 @@ namespace FreqReadout.Readout
                 false);
             notices.Commit();
 
-            if (hasOld && !curved)
-            {
-                slope = oldSlopeHzPerSecond;
-            }
-
+            // The tracker starts from the capture's fit with the uncertainty of a fit of that many gates over that
+            // span (line: level 2 sigma / sqrt n at its end, slope sigma sqrt(12 / n) / T); the acceleration, when
+            // the capture did not determine it, with a prior of |slope| / MinDriftSeconds (thermal settling).
+            double captureSeconds = capture.Count > 1 ? capture.TimeSecondsAt(capture.Count - 1) - capture.TimeSecondsAt(0) : 0.0;
+            double n = gates > 1 ? gates : 1;
+            double fitNoise = ScalarMath.Max(noise, sigma);
+            double levelSigma = 2.0 * fitNoise / ScalarMath.Sqrt(n);
+            double slopeSigma = captureSeconds > 0 ? fitNoise * ScalarMath.Sqrt(12.0 / n) / captureSeconds : fitNoise;
+            double accelerationSigma = curved
+                ? 2.0 * fitNoise * ScalarMath.Sqrt(curveFit.CurvatureVarianceFactor)
+                : (ScalarMath.Abs(slope) + slopeSigma) / ExcursionResolver.MinDriftSeconds;
             originHz = levelHz;
-            tracker.Reset(0.0, slope, acceleration, time);
+            tracker.Reset(0.0, slope, acceleration, time, levelSigma, slopeSigma, accelerationSigma, ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), lastSpanSeconds);
             detector.Discard();
             ClearDelayLine();
             blankRemaining = 0;
@@ -769,8 +828,54 @@ namespace FreqReadout.Readout
             }
         }
 
+        private int BlankGates(double span)
+        {
+            int gates = span > 0 ? (int)((EdgeRewindSeconds / span) + 0.5) : 0;
+            return gates > delayGates ? gates : delayGates;
+        }
+
+        // Returns the tracker to the newest snapshot taken at or before a time (the oldest one held if none is that old).
+        private void Rewind(double timeSeconds)
+        {
+            if (snapshotCount == 0)
+            {
+                return;
+            }
+
+            int k = 0;
+            int slot = (snapshotHead + snapshotCount - 1) % SnapshotCount;
+            while (k < snapshotCount - 1 && snapshots[slot].TimeSeconds > timeSeconds)
+            {
+                slot = slot == 0 ? SnapshotCount - 1 : slot - 1;
+                k++;
+            }
+
+            if (snapshots[slot].TimeSeconds < tracker.TimeSeconds)
+            {
+                tracker.CopyFrom(snapshots[slot]);
+            }
+
+            snapshotCount -= k;
+        }
+
+        private void TakeSnapshot()
+        {
+            int slot = (snapshotHead + snapshotCount) % SnapshotCount;
+            if (snapshotCount == SnapshotCount)
+            {
+                snapshotHead = (snapshotHead + 1) % SnapshotCount;
+            }
+            else
+            {
+                snapshotCount++;
+            }
+
+            snapshots[slot].CopyFrom(tracker);
+        }
+
         private void ClearDelayLine()
         {
+            snapshotCount = 0;
             delayHead = 0;
             delayCount = 0;
         }
@@ -783,13 +888,15 @@ namespace FreqReadout.Readout
             }
         }
 
-        private void PushDelayLine(double t, double span, double x, bool valid)
+        private void PushDelayLine(double t, double span, double x, bool valid, double forecast, double forecastVariance, double noise)
         {
+            // A forecast across a gap (a held target) is not a sample of the regular forecast error.
+            bool regular = t <= tracker.TimeSeconds + ((delayGates + 1.5) * span);
             if (delayGates == 0)
             {
                 if (valid)
                 {
-                    Feed(t, span, x);
+                    Feed(t, span, x, forecast, forecastVariance, noise, regular);
                 }
 
                 return;
@@ -800,31 +907,66 @@ namespace FreqReadout.Readout
             delayValues[slot] = x;
             delaySpans[slot] = span;
             delayValid[slot] = valid;
+            delayForecasts[slot] = forecast;
+            delayVariances[slot] = forecastVariance;
+            delayNoises[slot] = noise;
+            delayRegular[slot] = regular;
             delayCount++;
             if (delayCount > delayGates)
             {
-                double ot = delayTimes[delayHead];
-                double ox = delayValues[delayHead];
-                double os = delaySpans[delayHead];
-                bool ov = delayValid[delayHead];
+                int head = delayHead;
                 delayHead = (delayHead + 1) % delayTimes.Length;
                 delayCount--;
-                if (ov)
+                if (delayValid[head])
                 {
-                    Feed(ot, os, ox);
+                    Feed(delayTimes[head], delaySpans[head], delayValues[head], delayForecasts[head], delayVariances[head], delayNoises[head], delayRegular[head]);
                 }
             }
         }
 
-        // x is relative to originHz, as the tracker's level is.
-        private void Feed(double t, double span, double x)
+        // x is relative to originHz, as the tracker's level is; forecast and forecastVariance are what the tracker
+        // predicted for this reading when it arrived, noise the measurement sigma then.
+        private void Feed(double t, double span, double x, double forecast, double forecastVariance, double noise, bool regular)
         {
+            tracker.Learn(x - forecast, forecastVariance + (noise * noise), noise, span);
+            if (regular)
+            {
+                forecastWindow.Add(ScalarMath.Abs(x - forecast));
+                forecastNoiseHz = RobustStatistics.MadToSigma * forecastWindow.Median();
+            }
             double predicted = tracker.Predict(t);
             double r = x - predicted;
-            double limit = settings.GuardSigma * Sigma(0);
-            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit), span);
-            noiseWindow.Add(ScalarMath.Abs(r));
-            runningNoiseHz = RobustStatistics.MadToSigma * noiseWindow.Median();
+            double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(t));
+            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit), noise);
+            TakeSnapshot();
+            AddNoiseSample(t, span, x);
+        }
+
+        // Running measurement noise from third differences of consecutive fed readings: d = x_k - 3 x_(k-1) +
+        // 3 x_(k-2) - x_(k-3) cancels any quadratic drift and has variance 20 sigma^2 for white noise, so
+        // sigma = 1.4826 median |d| / sqrt 20 (d's over the last noise_window_gates). A gap restarts the run.
+        private void AddNoiseSample(double t, double span, double x)
+        {
+            if (fedRun > 0 && !(t - fedTimeSeconds <= 1.5 * span))
+            {
+                fedRun = 0;
+            }
+
+            if (fedRun >= 3)
+            {
+                double d = x - (3.0 * fed1) + (3.0 * fed2) - fed3;
+                noiseWindow.Add(ScalarMath.Abs(d) * ThirdDifferenceScale);
+                runningNoiseHz = RobustStatistics.MadToSigma * noiseWindow.Median();
+            }
+
+            fed3 = fed2;
+            fed2 = fed1;
+            fed1 = x;
+            fedTimeSeconds = t;
+            if (fedRun < 3)
+            {
+                fedRun++;
+            }
         }
     }
 }

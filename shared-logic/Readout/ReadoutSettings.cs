@@ -37,11 +37,8 @@ namespace FreqReadout.Readout
         /// <summary>noise_floor_hz: least noise sigma used (the gate's predicted error is a floor too), (0, 1e6]. Default 0.001 Hz.</summary>
         public double NoiseFloorHz { get; set; } = 0.001;
 
-        /// <summary>tracker_level_s: Holt level time constant tau_L, (0, 3600]. Default 2 s.</summary>
-        public double TrackerLevelSeconds { get; set; } = 2.0;
-
-        /// <summary>tracker_slope_s: Holt slope time constant tau_b, (0, 36000]. Default 10 s.</summary>
-        public double TrackerSlopeSeconds { get; set; } = 10.0;
+        /// <summary>tracker_memory_s: memory the drift tracker (Kalman level, rate and acceleration) starts from after a baseline; it then adapts within [0.4, 120] s, [0.4, 120]. Default 5 s.</summary>
+        public double TrackerMemorySeconds { get; set; } = 5.0;
 
         /// <summary>tracker_delay_gates: readings reach the tracker this many gates late, so the rising edge of a target found later is never absorbed (and as many after an event are skipped), [0, 1000]. Default 5.</summary>
         public int TrackerDelayGates { get; set; } = 5;
@@ -145,14 +142,9 @@ namespace FreqReadout.Readout
                 return Bad(out error, "noise_floor_hz", "(0, 1e6]", NoiseFloorHz);
             }
 
-            if (!InRange(TrackerLevelSeconds, 0, 3600) || TrackerLevelSeconds == 0)
+            if (!InRange(TrackerMemorySeconds, 0.4, 120))
             {
-                return Bad(out error, "tracker_level_s", "(0, 3600]", TrackerLevelSeconds);
-            }
-
-            if (!InRange(TrackerSlopeSeconds, 0, 36000) || TrackerSlopeSeconds == 0)
-            {
-                return Bad(out error, "tracker_slope_s", "(0, 36000]", TrackerSlopeSeconds);
+                return Bad(out error, "tracker_memory_s", "[0.4, 120]", TrackerMemorySeconds);
             }
 
             if (TrackerDelayGates < 0 || TrackerDelayGates > 1000)
@@ -248,8 +240,7 @@ namespace FreqReadout.Readout
             c.OutlierSigma = OutlierSigma;
             c.NoiseWindowGates = NoiseWindowGates;
             c.NoiseFloorHz = NoiseFloorHz;
-            c.TrackerLevelSeconds = TrackerLevelSeconds;
-            c.TrackerSlopeSeconds = TrackerSlopeSeconds;
+            c.TrackerMemorySeconds = TrackerMemorySeconds;
             c.TrackerDelayGates = TrackerDelayGates;
             c.GuardSigma = GuardSigma;
             c.ThresholdSigma = ThresholdSigma;

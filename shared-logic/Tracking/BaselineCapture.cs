@@ -275,25 +275,15 @@ namespace FreqReadout.Tracking
             return (last - first) - (slopeHzPerSecond * (lastTime - firstTime));
         }
 
-        /// <summary>Copies |x_i - x_(i-1)| / sqrt 2 of the gates held into a running window (to seed the running noise from a disturbed capture).</summary>
-        public void CopyAbsoluteDifferences(MedianWindow window)
-        {
-            double scale = 1.0 / ScalarMath.Sqrt(2.0);
-            for (int i = 1; i < count; i++)
-            {
-                window.Add(ScalarMath.Abs(values[i] - values[i - 1]) * scale);
-            }
-        }
-
         /// <summary>
-        /// Copies |r_i| of the kept points of the last estimate into a running window (to seed the
-        /// running noise estimate).
+        /// Copies scale * |x_i - 3 x_(i-1) + 3 x_(i-2) - x_(i-3)| of the gates held into a running window (third
+        /// differences cancel a quadratic drift; scale = 1 / sqrt 20 makes them white-noise sigmas). Nothing for fewer than 4 gates.
         /// </summary>
-        public void CopyAbsoluteResiduals(MedianWindow window)
+        public void CopyAbsoluteThirdDifferences(MedianWindow window, double scale)
         {
-            for (int i = 0; i < keptCount; i++)
+            for (int i = 3; i < count; i++)
             {
-                window.Add(ScalarMath.Abs(keptValues[i] - fitA - (fitB * keptTimes[i])));
+                window.Add(ScalarMath.Abs(values[i] - (3.0 * values[i - 1]) + (3.0 * values[i - 2]) - values[i - 3]) * scale);
             }
         }
 

@@ -75,7 +75,10 @@ public class TargetPassTests
                 rise = !rise;
             }
 
-            Assert.True((rise ? TargetClass.NonFerrous : TargetClass.Ferrous) == e.Class, what);
+            // The documented rule (README.md sign rule): unclear when the peak is under threshold + unclear band (5 + 1)
+            // in the event's own sigma; an 8-sigma pass that a gate's noise pulls under that is unclear, never wrong.
+            bool weak = e.PeakSigma < 6.0;
+            Assert.True((rise ? TargetClass.NonFerrous : TargetClass.Ferrous) == e.Class || (weak && e.Class == TargetClass.Unclear), what);
             Assert.True(e.HasPpm, what);
             Assert.Equal(e.PeakShiftHz / F0 * 1e6, e.PeakShiftPpm, 0.05);
         }

@@ -31,6 +31,7 @@ internal static class DeviceLoopBounds
         new("DeviceLoop.StepEdges", 0, "MaxEdgesPerStep (DeviceSettings; default 256, no upper limit)", 256, null),
 
         new("ReadoutPipeline.InvalidateDelayLine", 0, "TrackerDelayGates + 1 (ReadoutSettings tracker_delay_gates, default 5, at most 1000)", 6, 1001),
+        new("ReadoutPipeline.Rewind", 0, "snapshotCount - 1 < SnapshotCount (32 tracker snapshots)", 32, 32),
         new("ReadoutPipeline.CompleteCapture", 0, "capture.Count <= BaselineMaxGates (the capture's gates copied into the reading history)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
         // Running noise median: two indexed heaps of at most NoiseWindowGates slots; a sift moves one level per pass.
@@ -41,8 +42,7 @@ internal static class DeviceLoopBounds
 
         new("BaselineCapture.TryEstimate", 0, "count <= BaselineMaxGates (ReadoutSettings baseline_max_gates, default 512, at most 8192)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.TryEstimate", 1, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
-        new("BaselineCapture.CopyAbsoluteResiduals", 0, "keptCount <= count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
-        new("BaselineCapture.CopyAbsoluteDifferences", 0, "count - 1 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("BaselineCapture.CopyAbsoluteThirdDifferences", 0, "count - 3 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.DifferenceNoiseHz", 0, "count - 1 < BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.FitQuadratic", 0, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
         new("BaselineCapture.FitQuadratic", 1, "count <= BaselineMaxGates", BaselineMaxGatesDefault, BaselineMaxGatesLimit),

@@ -19,8 +19,8 @@ public class ReadoutSettingsTests
         yield return Case("outlier_sigma", "[2, 20]", s => s.OutlierSigma = 1);
         yield return Case("noise_window_gates", "[16, 4096]", s => s.NoiseWindowGates = 10_000);
         yield return Case("noise_floor_hz", "(0, 1e6]", s => s.NoiseFloorHz = 0);
-        yield return Case("tracker_level_s", "(0, 3600]", s => s.TrackerLevelSeconds = double.NaN);
-        yield return Case("tracker_slope_s", "(0, 36000]", s => s.TrackerSlopeSeconds = -3);
+        yield return Case("tracker_memory_s", "[0.4, 120]", s => s.TrackerMemorySeconds = double.NaN);
+        yield return Case("tracker_memory_s", "[0.4, 120]", s => s.TrackerMemorySeconds = 0.3);
         yield return Case("tracker_delay_gates", "[0, 1000]", s => s.TrackerDelayGates = -1);
         yield return Case("guard_sigma", "(0, 100]", s => s.GuardSigma = 0);
         yield return Case("threshold_sigma", "[1, 1000]", s => s.ThresholdSigma = 0.5);

@@ -126,7 +126,9 @@ public class RebaselineAndHoldTests
         Assert.InRange(manual[0].RequestedSeconds, 49.95, 50.05);
         Assert.InRange(manual[0].ShiftHz, -0.1, 0.1);
         Assert.InRange(manual[1].RequestedSeconds, 69.95, 70.05);
-        Assert.InRange(manual[1].ShiftHz, 1.4, 1.6); // the baseline taken on the target absorbed it, and says so
+        // The baseline taken on the target absorbed it, and says so: 1.5 Hz, within the old tracker's extrapolation
+        // over the 6 s of settling and capture (its slope uncertainty times 6 s, about 0.1 Hz here, measured).
+        Assert.InRange(manual[1].ShiftHz, 1.35, 1.65);
 
         // The event open at 70 s was closed by the request; the target's removal at 80 s then reads as a
         // -1.5 Hz event against the new baseline, still open when the run ends at 100 s (closed there).
