@@ -10,11 +10,12 @@ public static class QualityBenchDefinition
     public const long TuneMasterSeed = 1;
 
     /// <summary>
-    /// Master seed of the report set (<c>--seeds report</c>, the default): drawn from the operating system's random source
-    /// when the bench was written and never used for tuning. Report only on this set, once the design is frozen; if it has
+    /// Master seed of the report set (<c>--seeds report</c>, the default): drawn afresh from the operating system's random
+    /// source when the Kalman tracker's design was frozen (the first report set had been run for the earlier tracker) and
+    /// never used for tuning. Report only on this set, once the design is frozen; if it has
     /// been looked at while tuning, draw a fresh one (any 63-bit number) before reporting and say so.
     /// </summary>
-    public const long ReportMasterSeed = 6_329_780_918_733_097_735;
+    public const long ReportMasterSeed = 8_298_105_450_165_621_964;
 
     /// <summary>Rest before the first pass (the readout's and the plain ways' baselines), s; the first leg starts up to <see cref="FirstLegJitterSeconds"/> later.</summary>
     public const double LeadInSeconds = 10.0;
