@@ -12,6 +12,11 @@ public static class Program
         // Numbers in messages and output use '.' whatever the machine's culture (the capture contract's rule).
         System.Globalization.CultureInfo.DefaultThreadCurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
         System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
+        if (Environment.GetEnvironmentVariable("FREQREADOUT_ROW_READER") == "1")
+        {
+            CaptureFile.RowByRowReading = true; // the line-based oracle of the fast reading path (DEVELOPERS.md)
+        }
+
         if (args.Length == 0)
         {
             // No command: the help, and the usage exit code (nothing was done).
