@@ -9,6 +9,24 @@ public static class Program
 {
     public static int Main(string[] args)
     {
+        if (args.Length == 2 && args[0] == Bench.RawRead.Argument)
+        {
+            return Bench.RawRead.Run(args[1]); // the speed bench's yardstick: nothing else loaded (host/Bench/README.md)
+        }
+
+        int exit = Run(args);
+        if (Environment.GetEnvironmentVariable(Bench.SpeedBench.PeakMemoryVariable) is { Length: > 0 } peakFile)
+        {
+            // The speed bench reads each child's peak working set here (a process's own figure is gone once it exits).
+            File.WriteAllText(peakFile, Environment.WorkingSet.ToString(System.Globalization.CultureInfo.InvariantCulture) + " " +
+                System.Diagnostics.Process.GetCurrentProcess().PeakWorkingSet64.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        }
+
+        return exit;
+    }
+
+    private static int Run(string[] args)
+    {
         // Numbers in messages and output use '.' whatever the machine's culture (the capture contract's rule).
         System.Globalization.CultureInfo.DefaultThreadCurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
         System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
@@ -169,6 +187,8 @@ public static class Program
                 bench.SetDescription("Benches that measure the readout on simulated scenes.");
                 bench.AddCommand<BenchQualityCommand>("quality")
                     .WithDescription("Tracking quality: seeded drift scenes of every kind and mode through the readout and two plain ways; targets found, classified right, false events per hour, peak-shift error.");
+                bench.AddCommand<BenchSpeedCommand>("speed")
+                    .WithDescription("Speed: times raw read, text and binary replay, start-up and simulate as whole processes, interleaved, and prints medians and ratios to the raw read.");
             });
         });
         return app;
