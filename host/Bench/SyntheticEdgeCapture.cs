@@ -24,7 +24,7 @@ public static class SyntheticEdgeCapture
         Prescale = prescale,
         TimerBits = 32,
         SearchHz = SearchHz,
-        Note = "invented synthetic capture for the speed bench (drift, a target pass every 40 s)",
+        Note = "invented synthetic capture for the speed bench (drift, a target pass every 10 s)",
     };
 
     /// <summary>Writes <paramref name="edges"/> recorded edges to <paramref name="path"/> (replacing it).</summary>

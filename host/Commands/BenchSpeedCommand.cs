@@ -74,6 +74,11 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
         {
             return CommandOutput.Fail($"{directory}: {e.Message}", CommandOutput.BadInput);
         }
+        catch (InvalidOperationException e)
+        {
+            // A timed process failed: its command line and stderr are in the message.
+            return CommandOutput.Fail(e.Message, CommandOutput.BadInput);
+        }
         finally
         {
             if (remove && Directory.Exists(directory))
