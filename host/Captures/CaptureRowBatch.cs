@@ -7,8 +7,8 @@ namespace FreqReadout.Host.Captures;
 /// </summary>
 public sealed class CaptureRowBatch
 {
-    /// <summary>Rows a batch holds unless told otherwise (about 1.3 MiB of arrays).</summary>
-    public const int DefaultCapacity = 32768;
+    /// <summary>Rows a batch holds unless told otherwise (320 KiB of arrays).</summary>
+    public const int DefaultCapacity = 8192;
 
     /// <summary>Makes an empty batch.</summary>
     /// <param name="capacity">Most rows per batch, at least 1.</param>

@@ -465,6 +465,19 @@ public sealed class CaptureGateSource
         }
 
         reused ??= new CaptureRowBatch();
+        if (_reader is TextCaptureReader && BatchReadAhead.Pays)
+        {
+            // Text: parse the next batches on a second thread while this one counts.
+            using var ahead = new BatchReadAhead(_batches!, reused);
+            CaptureRowBatch? next;
+            while ((next = ahead.Next()) != null)
+            {
+                yield return next;
+            }
+
+            yield break;
+        }
+
         while (_batches!.ReadBatch(reused))
         {
             yield return reused;
