@@ -166,7 +166,10 @@ public sealed class SpeedBench
         foreach (SpeedCaseResult r in results)
         {
             double median = r.MedianSeconds;
-            string rate = r.Case.Edges > 0 ? FormattableString.Invariant($"{r.Case.Edges / median / 1e6:0.0} M") : string.Empty;
+            double perSecond = r.Case.Edges / median;
+            string rate = r.Case.Edges == 0 ? string.Empty
+                : perSecond >= 1e6 ? FormattableString.Invariant($"{perSecond / 1e6:0.0} M")
+                : FormattableString.Invariant($"{perSecond / 1e3:0} k");
             string peak = r.PeakMiB > 0 ? FormattableString.Invariant($"{r.PeakMiB:0}") : "-";
             text.Append(FormattableString.Invariant(
                 $"| {r.Case.Name} | {r.Case.What} | {median:0.000} | {r.Seconds.Min():0.000} | {r.Seconds.Max():0.000} | {median / raw:0.0} | {rate} | {peak} |\n"));

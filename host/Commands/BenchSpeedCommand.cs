@@ -18,7 +18,7 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
         public bool Quick { get; set; }
 
         [CommandOption("--edges <N>")]
-        [Description("Edges of the large capture, [1000, 100000000]. Default 10000000 (200000 with --quick).")]
+        [Description("Edges of the large capture, [100000, 100000000] (100 000 edges are 1 s of the synthetic capture). Default 10000000 (200000 with --quick).")]
         public long? Edges { get; set; }
 
         [CommandOption("--runs <N>")]
@@ -36,9 +36,9 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
         SpeedBenchSize size = settings.Quick ? SpeedBenchSize.Quick() : SpeedBenchSize.Full();
         if (settings.Edges is long edges)
         {
-            if (edges < 1000 || edges > 100_000_000)
+            if (edges < 100_000 || edges > 100_000_000)
             {
-                return CommandOutput.Fail($"--edges must be a whole number from 1000 to 100000000, got {edges}", CommandOutput.BadOption);
+                return CommandOutput.Fail($"--edges must be a whole number from 100000 to 100000000, got {edges}", CommandOutput.BadOption);
             }
 
             size.Edges = edges;
