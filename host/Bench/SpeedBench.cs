@@ -34,7 +34,7 @@ public sealed class SpeedBench
     public Action<string>? Progress { get; set; }
 
     /// <summary>The program and the arguments before a command's own, for the <c>freqreadout</c> being run.</summary>
-    public static (string FileName, IReadOnlyList<string> Prefix) SelfCommand()
+    internal static (string FileName, IReadOnlyList<string> Prefix) SelfCommand()
     {
         string? process = Environment.ProcessPath;
         if (process != null && Path.GetFileNameWithoutExtension(process) == "freqreadout")
