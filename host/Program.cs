@@ -9,9 +9,32 @@ public static class Program
 {
     public static int Main(string[] args)
     {
+        if (args.Length == 2 && args[0] == Bench.RawRead.Argument)
+        {
+            return Bench.RawRead.Run(args[1]); // the speed bench's yardstick: nothing else loaded (host/Bench/README.md)
+        }
+
+        int exit = Run(args);
+        if (Environment.GetEnvironmentVariable(Bench.SpeedBench.PeakMemoryVariable) is { Length: > 0 } peakFile)
+        {
+            // The speed bench reads each child's peak working set here (a process's own figure is gone once it exits).
+            File.WriteAllText(peakFile, Environment.WorkingSet.ToString(System.Globalization.CultureInfo.InvariantCulture) + " " +
+                System.Diagnostics.Process.GetCurrentProcess().PeakWorkingSet64.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        }
+
+        return exit;
+    }
+
+    private static int Run(string[] args)
+    {
         // Numbers in messages and output use '.' whatever the machine's culture (the capture contract's rule).
         System.Globalization.CultureInfo.DefaultThreadCurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
         System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
+        if (Environment.GetEnvironmentVariable("FREQREADOUT_ROW_READER") == "1")
+        {
+            CaptureFile.RowByRowReading = true; // the line-based oracle of the fast reading path (DEVELOPERS.md)
+        }
+
         if (args.Length == 0)
         {
             // No command: the help, and the usage exit code (nothing was done).
@@ -132,12 +155,20 @@ public static class Program
         return $"{option} must be {kind}, got {TextExcerpt.Quote(value)}";
     }
 
+    /// <summary>The top-level command names (commands and branches) in the order they are registered.</summary>
+    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "bench" };
+
     /// <summary>The command tree; tests run commands through this too.</summary>
     public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
 
     /// <summary>The command tree for the command line <paramref name="args"/> (checked for options given without their value).</summary>
     public static CommandApp BuildApp(string[] args)
     {
+        // Start-up: Spectre builds its model of every registered command (reflection over each settings type) before
+        // it runs one. When the first argument names a command, only that command is registered: the same parsing,
+        // help and errors for it, in less time. Anything else (no command, --help, a misspelt name) gets them all.
+        string? only = args.Length > 0 && Array.IndexOf(CommandNames, args[0]) >= 0 ? args[0] : null;
+        bool Wanted(string name) => only == null || only == name;
         var app = new CommandApp();
         app.Configure(config =>
         {
@@ -145,26 +176,59 @@ public static class Program
             config.SetInterceptor(new MissingValueInterceptor(args));
             config.PropagateExceptions();
             config.UseStrictParsing(); // an unknown or misspelt option is an error, never silently ignored
-            config.AddCommand<DemoCommand>("demo")
-                .WithDescription("Run the whole pipeline on a built-in invented scenario.");
-            config.AddCommand<CountCommand>("count")
-                .WithDescription("Count a capture gate by gate: frequency, shift from the first gate, edges, error, state.");
-            config.AddCommand<ReplayCommand>("replay")
-                .WithDescription("Replay a capture through the device's readout pipeline: baseline, noise, drift, re-baselines and events (ferrous / non-ferrous / unclear).");
-            config.AddCommand<CalibrateCommand>("calibrate")
-                .WithDescription("Fit the search oscillator's tempco (ppm/K with its standard error) from the target-free stretches of a capture with temp_c.");
-            config.AddCommand<ConvertCommand>("convert")
-                .WithDescription("Convert a capture between the text and binary formats, losslessly, optionally trimmed to a time range.");
-            config.AddCommand<SimulateCommand>("simulate")
-                .WithDescription("Generate a capture from physics (scene file or built-in demo scene) plus a truth file.");
-            config.AddCommand<CoilCommand>("coil")
-                .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
-            config.AddBranch("bench", bench =>
+            if (Wanted("demo"))
             {
-                bench.SetDescription("Benches that measure the readout on simulated scenes.");
-                bench.AddCommand<BenchQualityCommand>("quality")
-                    .WithDescription("Tracking quality: seeded drift scenes of every kind and mode through the readout and two plain ways; targets found, classified right, false events per hour, peak-shift error.");
-            });
+                config.AddCommand<DemoCommand>("demo")
+                    .WithDescription("Run the whole pipeline on a built-in invented scenario.");
+            }
+
+            if (Wanted("count"))
+            {
+                config.AddCommand<CountCommand>("count")
+                    .WithDescription("Count a capture gate by gate: frequency, shift from the first gate, edges, error, state.");
+            }
+
+            if (Wanted("replay"))
+            {
+                config.AddCommand<ReplayCommand>("replay")
+                    .WithDescription("Replay a capture through the device's readout pipeline: baseline, noise, drift, re-baselines and events (ferrous / non-ferrous / unclear).");
+            }
+
+            if (Wanted("calibrate"))
+            {
+                config.AddCommand<CalibrateCommand>("calibrate")
+                    .WithDescription("Fit the search oscillator's tempco (ppm/K with its standard error) from the target-free stretches of a capture with temp_c.");
+            }
+
+            if (Wanted("convert"))
+            {
+                config.AddCommand<ConvertCommand>("convert")
+                    .WithDescription("Convert a capture between the text and binary formats, losslessly, optionally trimmed to a time range.");
+            }
+
+            if (Wanted("simulate"))
+            {
+                config.AddCommand<SimulateCommand>("simulate")
+                    .WithDescription("Generate a capture from physics (scene file or built-in demo scene) plus a truth file.");
+            }
+
+            if (Wanted("coil"))
+            {
+                config.AddCommand<CoilCommand>("coil")
+                    .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
+            }
+
+            if (Wanted("bench"))
+            {
+                config.AddBranch("bench", bench =>
+                {
+                    bench.SetDescription("Benches: tracking quality on simulated scenes, and speed.");
+                    bench.AddCommand<BenchQualityCommand>("quality")
+                        .WithDescription("Tracking quality: seeded drift scenes of every kind and mode through the readout and two plain ways; targets found, classified right, false events per hour, peak-shift error.");
+                    bench.AddCommand<BenchSpeedCommand>("speed")
+                        .WithDescription("Speed: times raw read, text and binary replay, start-up and simulate as whole processes, interleaved, and prints medians and ratios to the raw read.");
+                });
+            }
         });
         return app;
     }

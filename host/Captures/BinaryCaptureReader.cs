@@ -11,7 +11,7 @@ namespace FreqReadout.Host.Captures;
 /// data blocks from 1) and whose text names the block and how many rows before it are readable
 /// (those rows have already been returned).
 /// </summary>
-public sealed class BinaryCaptureReader : ICaptureReader
+public sealed class BinaryCaptureReader : ICaptureBatchReader
 {
     private readonly Stream _stream;
     private readonly bool _leaveOpen;
@@ -25,6 +25,18 @@ public sealed class BinaryCaptureReader : ICaptureReader
     private long _blockNumber;
     private long _rowsRead;
     private bool _started;
+    private CaptureRowOrder? _batchOrder;
+    private bool _rowsEnded;
+    private bool _inBlock;
+    private int _blockLength;
+    private int _blockPos;
+    private ulong _blockRows;
+    private ulong _blockRow;
+    private ulong _blockTick;
+    private ulong _blockTickStep;
+    private ulong _blockCount;
+    private ulong _blockCountStep;
+    private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _pendingError;
 
     /// <summary>Reads a binary capture from a stream positioned at its magic.</summary>
     /// <param name="stream">The capture bytes (need not be seekable).</param>
@@ -211,6 +223,199 @@ public sealed class BinaryCaptureReader : ICaptureReader
             {
                 throw Malformed($"its length ({length - pos} bytes left after {rowCount} rows)");
             }
+        }
+    }
+
+    /// <inheritdoc/>
+    public bool ReadBatch(CaptureRowBatch batch)
+    {
+        batch.Clear();
+        if (!_started)
+        {
+            _started = true;
+            _batchOrder = new CaptureRowOrder(Metadata);
+        }
+
+        if (_pendingError != null)
+        {
+            var error = _pendingError;
+            _pendingError = null;
+            error.Throw();
+        }
+
+        if (_rowsEnded)
+        {
+            return false;
+        }
+
+        try
+        {
+            FillBatch(batch);
+        }
+        catch (Exception e) when (batch.Count > 0 && e is CaptureFormatException or IOException)
+        {
+            // The rows before the bad one go first; the error comes with the next call, as ReadRows would raise it.
+            _pendingError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
+        }
+
+        return batch.Count > 0;
+    }
+
+    /// <summary>
+    /// Decodes rows straight into the batch, resuming inside a block where the last batch stopped. The checks and
+    /// messages are those of the row-by-row decoder (<see cref="Rows"/>, kept as the oracle), in the same order.
+    /// </summary>
+    private void FillBatch(CaptureRowBatch batch)
+    {
+        CaptureRowOrder order = _batchOrder!;
+        bool checkOrder = order.ChecksOrder;
+        while (!batch.IsFull)
+        {
+            if (_blockRow == _blockRows)
+            {
+                if (_inBlock)
+                {
+                    _inBlock = false;
+                    if (_blockPos != _blockLength)
+                    {
+                        throw Malformed($"its length ({_blockLength - _blockPos} bytes left after {_blockRows} rows)");
+                    }
+                }
+
+                _blockNumber++;
+                if (!TryReadBlock(out byte tag, out int length))
+                {
+                    throw Error(_blockNumber, $"the file ends after block {_blockNumber - 1} without the end block: the capture is truncated (its writer did not complete); all {_rowsRead} rows before it are readable");
+                }
+
+                if (tag == BinaryCaptureFormat.EndTag)
+                {
+                    ReadEnd(length);
+                    _rowsEnded = true;
+                    return;
+                }
+
+                if (tag != BinaryCaptureFormat.DataTag)
+                {
+                    throw Error(_blockNumber, $"block {_blockNumber} has the unknown tag 0x{tag:X2}, expected a data block ('D') or the end block ('E'); {ReadableBefore()}");
+                }
+
+                int start = 0;
+                if (!BinaryCaptureFormat.TryReadUVarint(_buffer.AsSpan(0, length), ref start, out ulong rowCount) || rowCount == 0)
+                {
+                    throw Malformed("its row count");
+                }
+
+                _inBlock = true;
+                _blockLength = length;
+                _blockPos = start;
+                _blockRows = rowCount;
+                _blockRow = 0;
+                _blockTick = 0;
+                _blockTickStep = 0;
+                _blockCount = 0;
+                _blockCountStep = 0;
+            }
+
+            var data = new ReadOnlySpan<byte>(_buffer, 0, _blockLength);
+            int pos = _blockPos;
+            ulong tick = _blockTick;
+            ulong tickStep = _blockTickStep;
+            ulong count = _blockCount;
+            ulong countStep = _blockCountStep;
+            ulong tickMask = _tickMask;
+            while (_blockRow < _blockRows && !batch.IsFull)
+            {
+                ulong i = _blockRow;
+                if (!BinaryCaptureFormat.TryReadUVarint(data, ref pos, out ulong tickDelta))
+                {
+                    throw Malformed($"the tick of its row {i + 1}");
+                }
+
+                tickStep = (tickStep + (ulong)BinaryCaptureFormat.UnZigZag(tickDelta)) & tickMask;
+                tick = (tick + tickStep) & tickMask;
+                if (_snapshots)
+                {
+                    if (!BinaryCaptureFormat.TryReadUVarint(data, ref pos, out ulong countDelta))
+                    {
+                        throw Malformed($"the count of its row {i + 1}");
+                    }
+
+                    countStep = (countStep + (ulong)BinaryCaptureFormat.UnZigZag(countDelta)) & _countMask;
+                    count = (count + countStep) & _countMask;
+                }
+
+                double? temperature = null;
+                string? mark = null;
+                if (_hasFlags)
+                {
+                    if (pos >= _blockLength)
+                    {
+                        throw Malformed($"the flags of its row {i + 1}");
+                    }
+
+                    byte flags = data[pos++];
+                    if ((flags & ~(BinaryCaptureFormat.TemperatureFlag | BinaryCaptureFormat.MarkFlag)) != 0
+                        || ((flags & BinaryCaptureFormat.TemperatureFlag) != 0 && !Metadata.HasTemperatureColumn)
+                        || ((flags & BinaryCaptureFormat.MarkFlag) != 0 && !Metadata.HasMarkColumn))
+                    {
+                        throw Malformed($"the flags of its row {i + 1} (0x{flags:X2})");
+                    }
+
+                    if ((flags & BinaryCaptureFormat.TemperatureFlag) != 0)
+                    {
+                        if (pos + 8 > _blockLength)
+                        {
+                            throw Malformed($"the temperature of its row {i + 1}");
+                        }
+
+                        temperature = BinaryPrimitives.ReadDoubleLittleEndian(data.Slice(pos, 8));
+                        if (CaptureColumns.TemperatureProblem(temperature.Value) is string range)
+                        {
+                            throw Error(_blockNumber, $"block {_blockNumber}, row {_rowsRead + 1}: {range}");
+                        }
+
+                        pos += 8;
+                    }
+
+                    if ((flags & BinaryCaptureFormat.MarkFlag) != 0)
+                    {
+                        if (!BinaryCaptureFormat.TryReadString(data, ref pos, out string text) || text.Length == 0 || text.Contains(','))
+                        {
+                            throw Malformed($"the mark of its row {i + 1}");
+                        }
+
+                        mark = text;
+                    }
+                }
+
+                long line = _rowsRead + 1;
+                if (checkOrder)
+                {
+                    string? orderProblem = order.Check(new CaptureRow(line, tick, count, null, null), "row");
+                    if (orderProblem != null)
+                    {
+                        throw Error(_blockNumber, $"block {_blockNumber}, row {line}: {orderProblem}");
+                    }
+                }
+
+                _rowsRead = line;
+                _blockRow = i + 1;
+                if (temperature == null && mark == null)
+                {
+                    batch.AddTick(tick, count, line);
+                }
+                else
+                {
+                    batch.Add(new CaptureRow(line, tick, count, temperature, mark));
+                }
+            }
+
+            _blockPos = pos;
+            _blockTick = tick;
+            _blockTickStep = tickStep;
+            _blockCount = count;
+            _blockCountStep = countStep;
         }
     }
 

@@ -20,6 +20,9 @@ internal sealed class CaptureRowOrder
         _monotonicCounts = md.Kind == CaptureKind.Snapshots && md.CountBits == 64;
     }
 
+    /// <summary>True when <see cref="Check"/> can refuse a row (a 64-bit timer, or a 64-bit counter of snapshots).</summary>
+    public bool ChecksOrder => _strictTicks || _monotonicCounts;
+
     /// <summary>Checks the next row; returns the problem (what was expected) or null, and remembers the row when it is good.</summary>
     /// <param name="row">The row.</param>
     /// <param name="where">"line" (text) or "row" (binary ordinal), for the message.</param>

@@ -18,7 +18,7 @@ namespace FreqReadout.Host.Captures;
 /// see <c>CaptureGateSource</c>); with <c>count_bits = 64</c> it rejects a count that decreases.
 /// Every error is a <see cref="CaptureFormatException"/> naming the line and what was expected.
 /// </remarks>
-public sealed class TextCaptureReader : ICaptureReader
+public sealed class TextCaptureReader : ICaptureBatchReader
 {
     /// <summary>The first line of every text capture.</summary>
     public const string MagicLine = "# freqreadout capture 1";
@@ -31,17 +31,45 @@ public sealed class TextCaptureReader : ICaptureReader
     private readonly List<KeyValuePair<string, string>> _trailer = new();
     private readonly ColumnKind[] _columns;
     private readonly string _headerText;
+    private readonly Dictionary<string, long> _trailerKeys = new(StringComparer.Ordinal);
+    private readonly Utf8LineReader? _lines;
     private long _lineNumber;
     private bool _started;
+    private bool _rowsEnded;
+    private bool _inTrailer;
+    private long _firstTrailerLine;
+    private ulong _tickLimit;
+    private ulong _countLimit;
+    private CaptureRowOrder? _order;
+    private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _pendingError;
 
-    /// <summary>Reads a text capture from a stream (UTF-8, an optional BOM is skipped).</summary>
+    /// <summary>
+    /// Reads a text capture from a stream (UTF-8, an optional BOM is skipped), in 1 MiB blocks, with the fast path for
+    /// digits-only rows in <see cref="ReadBatch"/>.
+    /// </summary>
     /// <param name="stream">The capture bytes.</param>
     /// <param name="sourceName">Name used in messages (usually the file path).</param>
     /// <param name="leaveOpen">True to leave <paramref name="stream"/> open on dispose.</param>
     public TextCaptureReader(Stream stream, string sourceName, bool leaveOpen = false)
-        : this(new StreamReader(stream, new UTF8Encoding(false, false), detectEncodingFromByteOrderMarks: false, bufferSize: 65536, leaveOpen: leaveOpen), sourceName, leaveOpen: false)
+        : this(new Utf8LineReader(stream, leaveOpen), sourceName, leaveOpen: false)
     {
     }
+
+    /// <summary>The fast reader with a byte buffer of <paramref name="bufferBytes"/> (tests cross buffer boundaries with small ones).</summary>
+    internal TextCaptureReader(Stream stream, string sourceName, int bufferBytes)
+        : this(new Utf8LineReader(stream, leaveOpen: false, bufferBytes), sourceName, leaveOpen: false)
+    {
+    }
+
+    /// <summary>
+    /// The line-based reader kept as the fast path's oracle: a <see cref="StreamReader"/>, one string per line, every
+    /// row through the per-line parser (tests compare the two; <c>FREQREADOUT_ROW_READER=1</c> selects it in the CLI).
+    /// </summary>
+    /// <param name="stream">The capture bytes.</param>
+    /// <param name="sourceName">Name used in messages (usually the file path).</param>
+    /// <param name="leaveOpen">True to leave <paramref name="stream"/> open on dispose.</param>
+    public static TextCaptureReader OpenLineBased(Stream stream, string sourceName, bool leaveOpen = false) =>
+        new(new StreamReader(stream, new UTF8Encoding(false, false), detectEncodingFromByteOrderMarks: false, bufferSize: 65536, leaveOpen: leaveOpen), sourceName, leaveOpen: false);
 
     /// <summary>Reads a text capture from a text reader (a leading U+FEFF is skipped).</summary>
     /// <param name="reader">The capture text.</param>
@@ -50,6 +78,7 @@ public sealed class TextCaptureReader : ICaptureReader
     public TextCaptureReader(TextReader reader, string sourceName, bool leaveOpen = false)
     {
         _reader = reader;
+        _lines = reader as Utf8LineReader;
         _leaveOpen = leaveOpen;
         SourceName = sourceName;
         try
@@ -94,6 +123,9 @@ public sealed class TextCaptureReader : ICaptureReader
     /// <inheritdoc/>
     public IReadOnlyList<KeyValuePair<string, string>> Trailer => _trailer;
 
+    /// <summary>Rows <see cref="ReadBatch"/> read on the fast path (digits-only rows straight from the bytes), for tests.</summary>
+    internal long FastRows { get; private set; }
+
     /// <summary>The column header row as read (for messages).</summary>
     public string ColumnHeader => _headerText;
 
@@ -120,107 +152,257 @@ public sealed class TextCaptureReader : ICaptureReader
 
     private IEnumerable<CaptureRow> Rows()
     {
-        var md = Metadata;
-        ulong tickLimit = MaxValue(md.TimerBits);
-        ulong countLimit = MaxValue(md.CountBits);
-        var order = new CaptureRowOrder(md);
-        bool inTrailer = false;
-        long firstTrailerLine = 0;
-        var trailerKeys = new Dictionary<string, long>(StringComparer.Ordinal);
+        StartRows();
         string? line;
         while ((line = NextLine()) != null)
         {
-            if (string.IsNullOrWhiteSpace(line))
+            if (TryParseLine(line, out CaptureRow row))
             {
-                continue;
+                yield return row;
             }
-
-            ReadOnlySpan<char> span = line.AsSpan().Trim();
-            if (span[0] == '#')
-            {
-                if (!inTrailer)
-                {
-                    inTrailer = true;
-                    firstTrailerLine = _lineNumber;
-                }
-
-                ReadTrailerLine(line.TrimStart().Substring(1), trailerKeys);
-                continue;
-            }
-
-            if (inTrailer)
-            {
-                throw Error(_lineNumber, $"expected only trailer lines '# key = value' after the first trailer line (line {firstTrailerLine}), found a data row; nothing else may follow the trailer");
-            }
-
-            int fields = CountFields(span);
-            if (fields != _columns.Length)
-            {
-                throw Error(_lineNumber, $"expected {_columns.Length} comma-separated field{(_columns.Length == 1 ? "" : "s")} ({_headerText}), found {fields}");
-            }
-
-            ulong tick = 0;
-            ulong count = 0;
-            double? temperature = null;
-            string? mark = null;
-            int field = 0;
-            int start = 0;
-            while (true)
-            {
-                int comma = span.Slice(start).IndexOf(',');
-                ReadOnlySpan<char> text = (comma < 0 ? span.Slice(start) : span.Slice(start, comma)).Trim();
-                switch (_columns[field])
-                {
-                    case ColumnKind.Tick:
-                        tick = ParseUnsigned(text, "tick", md.TimerBits, tickLimit, "timer_bits");
-                        break;
-                    case ColumnKind.Count:
-                        count = ParseUnsigned(text, "count", md.CountBits, countLimit, "count_bits");
-                        break;
-                    case ColumnKind.TemperatureC:
-                        if (!text.IsEmpty)
-                        {
-                            if (!CaptureMetadataParser.TryParseDouble(text, out double t))
-                            {
-                                throw Error(_lineNumber, $"expected temp_c as a number of deg C in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found {TextExcerpt.Quote(text)}");
-                            }
-
-                            if (CaptureColumns.TemperatureProblem(t) is string range)
-                            {
-                                throw Error(_lineNumber, range);
-                            }
-
-                            temperature = t;
-                        }
-
-                        break;
-                    case ColumnKind.Mark:
-                        if (!text.IsEmpty)
-                        {
-                            mark = text.ToString();
-                        }
-
-                        break;
-                }
-
-                field++;
-                if (comma < 0)
-                {
-                    break;
-                }
-
-                start += comma + 1;
-            }
-
-            var row = new CaptureRow(_lineNumber, tick, count, temperature, mark);
-            string? orderProblem = order.Check(row, "line");
-            if (orderProblem != null)
-            {
-                throw Error(_lineNumber, orderProblem);
-            }
-
-            yield return row;
         }
+    }
+
+    /// <inheritdoc/>
+    public bool ReadBatch(CaptureRowBatch batch)
+    {
+        batch.Clear();
+        if (!_started)
+        {
+            _started = true;
+            StartRows();
+        }
+
+        if (_pendingError != null)
+        {
+            var error = _pendingError;
+            _pendingError = null;
+            error.Throw();
+        }
+
+        if (_rowsEnded)
+        {
+            return false;
+        }
+
+        try
+        {
+            FillBatch(batch);
+        }
+        catch (Exception e) when (batch.Count > 0 && e is CaptureFormatException or IOException)
+        {
+            // The rows before the bad one go first; the error comes with the next call, as ReadRows would raise it.
+            _pendingError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
+        }
+
+        return batch.Count > 0;
+    }
+
+    /// <summary>
+    /// Fills the batch: digits-only rows of a one-column capture straight from the bytes, every other line (blank,
+    /// comment, trailer, CRLF, extra columns, a bad value, more than 19 digits) through <see cref="TryParseLine"/>, the
+    /// line-based parser, so every row, message and line number is that parser's.
+    /// </summary>
+    private void FillBatch(CaptureRowBatch batch)
+    {
+        Utf8LineReader? bytes = _lines;
+        bool fast = bytes != null && _columns.Length == 1;
+        bool checkOrder = _order!.ChecksOrder;
+        while (!batch.IsFull)
+        {
+            if (fast && !_inTrailer && bytes!.AtLineStart && _lineNumber > 0)
+            {
+                if (bytes.End - bytes.Start < FastRowMaxBytes)
+                {
+                    bytes.Fill(FastRowMaxBytes);
+                }
+
+                byte[] b = bytes.Bytes;
+                int p = bytes.Start;
+                int end = bytes.End;
+                long line = _lineNumber;
+                ulong limit = _tickLimit;
+                int before = batch.Count;
+                while (!batch.IsFull && end - p >= FastRowMaxBytes)
+                {
+                    // A row is 1-19 digits then "\n" or "\r\n": no overflow, no other character, no blank line.
+                    int i = p;
+                    ulong value = 0;
+                    uint digit;
+                    while ((digit = (uint)(b[i] - '0')) <= 9 && i - p < 19)
+                    {
+                        value = (value * 10) + digit;
+                        i++;
+                    }
+
+                    int next;
+                    if (b[i] == '\n')
+                    {
+                        next = i + 1;
+                    }
+                    else if (b[i] == '\r' && b[i + 1] == '\n')
+                    {
+                        next = i + 2;
+                    }
+                    else
+                    {
+                        break;
+                    }
+
+                    if (i == p || value > limit)
+                    {
+                        break;
+                    }
+
+                    line++;
+                    if (checkOrder)
+                    {
+                        string? orderProblem = _order.Check(new CaptureRow(line, value, 0, null, null), "line");
+                        if (orderProblem != null)
+                        {
+                            _lineNumber = line;
+                            bytes.Advance(next - bytes.Start);
+                            throw Error(line, orderProblem);
+                        }
+                    }
+
+                    batch.AddTick(value, 0, line);
+                    p = next;
+                }
+
+                bytes.Advance(p - bytes.Start);
+                bool progressed = line != _lineNumber;
+                FastRows += batch.Count - before;
+                _lineNumber = line;
+                if (progressed || batch.IsFull)
+                {
+                    continue;
+                }
+            }
+
+            string? text = NextLine();
+            if (text == null)
+            {
+                _rowsEnded = true;
+                return;
+            }
+
+            if (TryParseLine(text, out CaptureRow row))
+            {
+                batch.Add(row);
+            }
+        }
+    }
+
+    /// <summary>Bytes the fast path wants buffered before it reads a row (the longest fast row, 19 digits and CRLF, plus one).</summary>
+    private const int FastRowMaxBytes = 22;
+
+    private void StartRows()
+    {
+        var md = Metadata;
+        _tickLimit = MaxValue(md.TimerBits);
+        _countLimit = MaxValue(md.CountBits);
+        _order = new CaptureRowOrder(md);
+    }
+
+    /// <summary>
+    /// Parses one line after the column header: a data row (true, with <paramref name="row"/>), or a blank or trailer
+    /// line (false). Throws <see cref="CaptureFormatException"/> naming the line for anything else.
+    /// </summary>
+    private bool TryParseLine(string line, out CaptureRow row)
+    {
+        row = default;
+        var md = Metadata;
+        if (string.IsNullOrWhiteSpace(line))
+        {
+            return false;
+        }
+
+        ReadOnlySpan<char> span = line.AsSpan().Trim();
+        if (span[0] == '#')
+        {
+            if (!_inTrailer)
+            {
+                _inTrailer = true;
+                _firstTrailerLine = _lineNumber;
+            }
+
+            ReadTrailerLine(line.TrimStart().Substring(1), _trailerKeys);
+            return false;
+        }
+
+        if (_inTrailer)
+        {
+            throw Error(_lineNumber, $"expected only trailer lines '# key = value' after the first trailer line (line {_firstTrailerLine}), found a data row; nothing else may follow the trailer");
+        }
+
+        int fields = CountFields(span);
+        if (fields != _columns.Length)
+        {
+            throw Error(_lineNumber, $"expected {_columns.Length} comma-separated field{(_columns.Length == 1 ? "" : "s")} ({_headerText}), found {fields}");
+        }
+
+        ulong tick = 0;
+        ulong count = 0;
+        double? temperature = null;
+        string? mark = null;
+        int field = 0;
+        int start = 0;
+        while (true)
+        {
+            int comma = span.Slice(start).IndexOf(',');
+            ReadOnlySpan<char> text = (comma < 0 ? span.Slice(start) : span.Slice(start, comma)).Trim();
+            switch (_columns[field])
+            {
+                case ColumnKind.Tick:
+                    tick = ParseUnsigned(text, "tick", md.TimerBits, _tickLimit, "timer_bits");
+                    break;
+                case ColumnKind.Count:
+                    count = ParseUnsigned(text, "count", md.CountBits, _countLimit, "count_bits");
+                    break;
+                case ColumnKind.TemperatureC:
+                    if (!text.IsEmpty)
+                    {
+                        if (!CaptureMetadataParser.TryParseDouble(text, out double t))
+                        {
+                            throw Error(_lineNumber, $"expected temp_c as a number of deg C in [-273.15, 1000] with '.' as decimal separator (or blank for no new sample), found {TextExcerpt.Quote(text)}");
+                        }
+
+                        if (CaptureColumns.TemperatureProblem(t) is string range)
+                        {
+                            throw Error(_lineNumber, range);
+                        }
+
+                        temperature = t;
+                    }
+
+                    break;
+                case ColumnKind.Mark:
+                    if (!text.IsEmpty)
+                    {
+                        mark = text.ToString();
+                    }
+
+                    break;
+            }
+
+            field++;
+            if (comma < 0)
+            {
+                break;
+            }
+
+            start += comma + 1;
+        }
+
+        row = new CaptureRow(_lineNumber, tick, count, temperature, mark);
+        string? orderProblem = _order!.Check(row, "line");
+        if (orderProblem != null)
+        {
+            throw Error(_lineNumber, orderProblem);
+        }
+
+        return true;
     }
 
     private static int CountFields(ReadOnlySpan<char> span)

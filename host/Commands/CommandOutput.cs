@@ -118,5 +118,6 @@ public static class CommandOutput
 
     /// <summary>The format of an opened capture.</summary>
     public static CaptureFileFormat FormatOf(ICaptureReader reader) =>
-        reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
+        reader is RowByRowCaptureReader wrapped ? FormatOf(wrapped.Inner)
+        : reader is BinaryCaptureReader ? CaptureFileFormat.Binary : CaptureFileFormat.Text;
 }

@@ -44,7 +44,9 @@ public sealed class CaptureGateSource
     private readonly List<string> _warnings = new();
     private readonly List<string> _unassignedMarks = new();
     private readonly List<CaptureRow> _head = new();
-    private readonly IEnumerator<CaptureRow> _rows;
+    private readonly IEnumerator<CaptureRow>? _rows;
+    private readonly ICaptureBatchReader? _batches;
+    private readonly List<CaptureRowBatch> _headBatches = new();
     private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _headError;
     private bool _rowsEnded;
     private double _headIntervalTicks;
@@ -93,8 +95,17 @@ public sealed class CaptureGateSource
                 $"--no-signal-seconds must be below {4e18 / clock:G6} s for this capture (4e18 ticks of clock_hz = {clock:R}), got {Settings.NoSignalSeconds:G6}"));
         }
 
-        _rows = reader.ReadRows().GetEnumerator();
-        ReadAhead();
+        if (reader is ICaptureBatchReader batches)
+        {
+            _batches = batches;
+            ReadAheadBatches();
+        }
+        else
+        {
+            _rows = reader.ReadRows().GetEnumerator();
+            ReadAhead();
+        }
+
         CheckNoSignalTimeout(noSignalSecondsGiven);
         CheckAliasing(searchHz ?? reader.Metadata.SearchHz);
     }
@@ -125,7 +136,7 @@ public sealed class CaptureGateSource
         long lastCount = 0;
         try
         {
-            while (_head.Count < LookaheadRows && _rows.MoveNext())
+            while (_head.Count < LookaheadRows && _rows!.MoveNext())
             {
                 CaptureRow row = _rows.Current;
                 _head.Add(row);
@@ -159,6 +170,73 @@ public sealed class CaptureGateSource
             _rowsEnded = true;
         }
 
+        MeasureHead(intervals, steps);
+    }
+
+    /// <summary>
+    /// <see cref="ReadAhead"/> for a batch reader: the same rows (the first <see cref="LookaheadRows"/>), the same
+    /// measurement and the same deferred error; the batches read are kept and replayed first.
+    /// </summary>
+    private void ReadAheadBatches()
+    {
+        var md = Metadata;
+        var ticks = new TimerUnwrapper(md.TimerBits);
+        var counts = new TimerUnwrapper(md.Kind == CaptureKind.Snapshots ? md.CountBits : 64, true);
+        var intervals = new List<double>();
+        var steps = new List<double>();
+        bool have = false;
+        long lastTick = 0;
+        long lastCount = 0;
+        int seen = 0;
+        try
+        {
+            while (seen < LookaheadRows)
+            {
+                var batch = new CaptureRowBatch();
+                if (!_batches!.ReadBatch(batch))
+                {
+                    _rowsEnded = true;
+                    break;
+                }
+
+                _headBatches.Add(batch);
+                for (int i = 0; i < batch.Count && seen < LookaheadRows; i++, seen++)
+                {
+                    if (!ticks.TryUnwrap(batch.Ticks[i], out long tick))
+                    {
+                        continue;
+                    }
+
+                    long count = 0;
+                    if (md.Kind == CaptureKind.Snapshots && !counts.TryUnwrap(batch.Counts[i], out count))
+                    {
+                        continue;
+                    }
+
+                    if (have)
+                    {
+                        intervals.Add(tick - lastTick);
+                        steps.Add(count - lastCount);
+                    }
+
+                    have = true;
+                    lastTick = tick;
+                    lastCount = count;
+                }
+            }
+        }
+        catch (Exception e) when (e is CaptureFormatException or IOException)
+        {
+            _headError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
+            _rowsEnded = true;
+        }
+
+        MeasureHead(intervals, steps);
+    }
+
+    private void MeasureHead(List<double> intervals, List<double> steps)
+    {
+        var md = Metadata;
         if (intervals.Count == 0)
         {
             return;
@@ -364,9 +442,57 @@ public sealed class CaptureGateSource
             yield break;
         }
 
-        while (_rows.MoveNext())
+        while (_rows!.MoveNext())
         {
             yield return _rows.Current;
+        }
+    }
+
+    /// <summary>The batches read ahead, then the rest of the capture in one reused batch; a read-ahead error is raised where it occurred.</summary>
+    private IEnumerable<CaptureRowBatch> Batches()
+    {
+        foreach (CaptureRowBatch batch in _headBatches)
+        {
+            yield return batch;
+        }
+
+        CaptureRowBatch? reused = _headBatches.Count > 0 ? _headBatches[^1] : null;
+        _headBatches.Clear();
+        _headError?.Throw();
+        if (_rowsEnded)
+        {
+            yield break;
+        }
+
+        reused ??= new CaptureRowBatch();
+        if (_reader is TextCaptureReader && BatchReadAhead.Pays)
+        {
+            // Text: parse the next batches on a second thread while this one counts.
+            using var ahead = new BatchReadAhead(_batches!, reused);
+            CaptureRowBatch? next;
+            while ((next = ahead.Next()) != null)
+            {
+                yield return next;
+            }
+
+            yield break;
+        }
+
+        while (_batches!.ReadBatch(reused))
+        {
+            yield return reused;
+        }
+    }
+
+    /// <summary>The rows of <see cref="Batches"/> one by one (the snapshot path reads them so).</summary>
+    private IEnumerable<CaptureRow> RowsOfBatches()
+    {
+        foreach (CaptureRowBatch batch in Batches())
+        {
+            for (int i = 0; i < batch.Count; i++)
+            {
+                yield return batch.RowAt(i);
+            }
         }
     }
 
@@ -437,7 +563,12 @@ public sealed class CaptureGateSource
         }
 
         _started = true;
-        return Metadata.Kind == CaptureKind.Snapshots ? SnapshotGates() : EdgeGates();
+        if (Metadata.Kind == CaptureKind.Snapshots)
+        {
+            return SnapshotGates(_batches != null ? RowsOfBatches() : Rows());
+        }
+
+        return _batches != null ? EdgeGatesOfBatches() : EdgeGates();
     }
 
     private IEnumerable<CaptureGate> EdgeGates()
@@ -504,7 +635,143 @@ public sealed class CaptureGateSource
         AddFlagSummary();
     }
 
-    private IEnumerable<CaptureGate> SnapshotGates()
+    /// <summary>
+    /// <see cref="EdgeGates"/> over batches: the same steps in the same order for every row (unwrap, flag, no-signal
+    /// polls, the counter, the running period, the wrap warning), without an iterator or a row object per edge. The
+    /// gates a batch closes are yielded after it; a reader error comes after the gates of the rows before it.
+    /// </summary>
+    private IEnumerable<CaptureGate> EdgeGatesOfBatches()
+    {
+        var state = new EdgeFeed(this);
+        var closed = new List<CaptureGate>();
+        foreach (CaptureRowBatch batch in Batches())
+        {
+            FeedEdges(state, batch, closed);
+            foreach (CaptureGate gate in closed)
+            {
+                yield return gate;
+            }
+
+            closed.Clear();
+        }
+
+        _unassignedMarks.AddRange(state.Pending.Marks);
+        AddFlagSummary();
+    }
+
+    private void FeedEdges(EdgeFeed state, CaptureRowBatch batch, List<CaptureGate> closedGates)
+    {
+        var md = Metadata;
+        TimerUnwrapper unwrapper = state.Unwrapper;
+        EdgeCounter counter = state.Counter;
+        GateResult scratch = state.Scratch;
+        Pending pending = state.Pending;
+        long timeoutTicks = state.TimeoutTicks;
+        bool haveLast = state.HaveLast;
+        long lastTick = state.LastTick;
+        bool wrapChecked = state.WrapChecked;
+        bool extras = batch.HasExtras;
+        ulong[] ticks = batch.Ticks;
+        long[] lines = batch.LineNumbers;
+        int n = batch.Count;
+        long fed = 0;
+        for (int i = 0; i < n; i++)
+        {
+            if (!unwrapper.TryUnwrap(ticks[i], out long tick))
+            {
+                CaptureRow row = batch.RowAt(i);
+                Flag(row, "tick", md.TimerBits, "timer_bits", unwrapper, state.LastFedLine, "recorded-edge periods");
+                if (extras)
+                {
+                    pending.Add(row);
+                }
+
+                continue;
+            }
+
+            fed++;
+            long line = lines[i];
+            state.LastFedLine = line;
+            if (haveLast && tick - lastTick > timeoutTicks)
+            {
+                long polls = 0;
+                for (long at = lastTick + timeoutTicks; at < tick && polls < MaxPollsPerGap; at += timeoutTicks, polls++)
+                {
+                    if (counter.Poll(at, scratch))
+                    {
+                        closedGates.Add(pending.Take(scratch, line));
+                    }
+                }
+            }
+
+            if (extras)
+            {
+                pending.Add(batch.TemperaturesC[i], batch.Marks[i]);
+            }
+
+            haveLast = true;
+            lastTick = tick;
+            bool closed = counter.AddEdge(tick, scratch);
+            if (counter.HasRunningPeriod)
+            {
+                unwrapper.ExpectedIntervalTicks = counter.RunningPeriodTicks;
+            }
+
+            if (!wrapChecked && counter.HasRunningPeriod && counter.GatesTotal > 0)
+            {
+                wrapChecked = true;
+                if (unwrapper.TryGetWrapWarning(counter.RunningPeriodTicks, out string warning))
+                {
+                    _warnings.Add($"{_reader.SourceName}: {warning}");
+                }
+            }
+
+            if (closed)
+            {
+                closedGates.Add(pending.Take(scratch, line));
+            }
+        }
+
+        RowsRead += n;
+        RowsFed += fed;
+        state.HaveLast = haveLast;
+        state.LastTick = lastTick;
+        state.WrapChecked = wrapChecked;
+    }
+
+    /// <summary>The state of <see cref="EdgeGatesOfBatches"/> between batches.</summary>
+    private sealed class EdgeFeed
+    {
+        public EdgeFeed(CaptureGateSource source)
+        {
+            var md = source.Metadata;
+            Unwrapper = new TimerUnwrapper(md.TimerBits) { ExpectedIntervalTicks = source._headIntervalTicks };
+            Counter = new EdgeCounter(source.Settings);
+            TimeoutTicks = Math.Max(1, (long)Math.Ceiling(source.Settings.NoSignalSeconds * source.Settings.ClockHz));
+            Pending = new Pending(source._scatter);
+            WrapChecked = md.TimerBits >= 64;
+        }
+
+        public TimerUnwrapper Unwrapper { get; }
+
+        public EdgeCounter Counter { get; }
+
+        public GateResult Scratch { get; } = new();
+
+        public Pending Pending { get; }
+
+        public long TimeoutTicks { get; }
+
+        public long LastFedLine { get; set; }
+
+        public bool HaveLast { get; set; }
+
+        public long LastTick { get; set; }
+
+        public bool WrapChecked { get; set; }
+    }
+
+    private IEnumerable<CaptureGate> SnapshotGates(IEnumerable<CaptureRow> rows)
     {
         var md = Metadata;
         var ticks = new TimerUnwrapper(md.TimerBits) { ExpectedIntervalTicks = _headIntervalTicks };
@@ -514,7 +781,7 @@ public sealed class CaptureGateSource
         long lastFedLine = 0;
         var pending = new Pending(_scatter);
         bool wrapChecked = md.TimerBits >= 64 && md.CountBits >= 64;
-        foreach (var row in Rows())
+        foreach (var row in rows)
         {
             RowsRead++;
             if (!ticks.TryUnwrap(row.Tick, out long tick))
@@ -624,6 +891,21 @@ public sealed class CaptureGateSource
         }
 
         public List<string> Marks { get; private set; } = new();
+
+        public void Add(double temperatureC, string? mark)
+        {
+            if (!double.IsNaN(temperatureC))
+            {
+                _sum += temperatureC;
+                _n++;
+                _latest = temperatureC;
+            }
+
+            if (mark != null)
+            {
+                Marks.Add(mark);
+            }
+        }
 
         public void Add(in CaptureRow row)
         {

@@ -71,4 +71,51 @@ public class CaptureReadingBenchmarks
 
         return sum;
     }
+
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong TextRowsReadLineBased()
+    {
+        using var reader = TextCaptureReader.OpenLineBased(new MemoryStream(_text), "bench.csv");
+        ulong sum = 0;
+        foreach (var row in reader.ReadRows())
+        {
+            sum += row.Tick;
+        }
+
+        return sum;
+    }
+
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong TextBatchesRead()
+    {
+        using var reader = new TextCaptureReader(new MemoryStream(_text), "bench.csv");
+        var batch = new CaptureRowBatch();
+        ulong sum = 0;
+        while (reader.ReadBatch(batch))
+        {
+            for (int i = 0; i < batch.Count; i++)
+            {
+                sum += batch.Ticks[i];
+            }
+        }
+
+        return sum;
+    }
+
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong BinaryBatchesRead()
+    {
+        using var reader = new BinaryCaptureReader(new MemoryStream(_binary), "bench.frcap");
+        var batch = new CaptureRowBatch();
+        ulong sum = 0;
+        while (reader.ReadBatch(batch))
+        {
+            for (int i = 0; i < batch.Count; i++)
+            {
+                sum += batch.Ticks[i];
+            }
+        }
+
+        return sum;
+    }
 }

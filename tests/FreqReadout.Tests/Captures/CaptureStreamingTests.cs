@@ -7,8 +7,8 @@ public sealed class CaptureStreamingTests
 {
     private const long Rows = 3_000_000;
 
-    /// <summary>Read-ahead a reader may hold beyond the current row (its decode buffers), bytes.</summary>
-    private const long ReadAheadBytes = 512 * 1024;
+    /// <summary>Read-ahead a reader may hold beyond the current row (its decode buffers: the text reader reads 1 MiB blocks), bytes.</summary>
+    private const long ReadAheadBytes = Utf8LineReader.BufferBytes + (512 * 1024);
 
     [Fact]
     public void Text_reader_streams_a_multi_million_row_capture_produced_lazily()
