@@ -597,6 +597,7 @@ public sealed class CaptureSimulator
     private sealed class ControlTrack
     {
         private readonly SceneModel _model;
+        private readonly InductanceChangeTable _coupling;
         private readonly FlickerNoise _searchFlicker;
         private readonly FlickerNoise? _referenceFlicker;
         private readonly double _step;
@@ -608,6 +609,7 @@ public sealed class CaptureSimulator
         public ControlTrack(SceneModel model, SimulationRandom searchRandom, SimulationRandom referenceRandom)
         {
             _model = model;
+            _coupling = new InductanceChangeTable(model);
             _step = model.Scene.Hardware.ControlStepS;
             _searchFlicker = new FlickerNoise(model.Scene.Oscillator.FlickerAdev, _step, searchRandom);
             if (model.Scene.Reference is not null)
@@ -669,7 +671,8 @@ public sealed class CaptureSimulator
 
         private double Counted(double timeS, out double sigmaAbs)
         {
-            double s = _model.SearchIntendedHz(timeS) * (1.0 + _searchFlicker.Step());
+            double inductanceChangeH = _model.Plan.TryGetPosition(timeS, out double positionM) ? _coupling.AtPositionH(positionM) : 0.0;
+            double s = _model.SearchIntendedHz(timeS, inductanceChangeH) * (1.0 + _searchFlicker.Step());
             double ws = s * _model.Scene.Oscillator.WhiteFmAdev1s;
             if (_model.Scene.Reference is null)
             {
