@@ -10,8 +10,9 @@ namespace FreqReadout.Host.Simulation;
 /// <para>Edges: time is integrated period by period in true-clock ticks as a long integer plus a double fraction (no
 /// precision loss over hours). The counted frequency is the intended frequency (targets, drift) times the flicker-like noise,
 /// evaluated every control step and linear in between (the targets' coupling from an <see cref="InductanceChangeTable"/> of
-/// the coil position, which changes on the sweep's time scale, not the oscillator's); white FM is drawn per recorded edge as the mean frequency offset over
-/// that interval (std sigma_abs / sqrt(T), sigma_abs = f ADEV(1 s), both oscillators in beat mode). Each recorded tick is
+/// the coil position, which changes on the sweep's time scale, not the oscillator's); white FM is drawn per recorded edge as
+/// the mean frequency offset over that interval (std sigma_abs / sqrt(T), sigma_abs = f ADEV(1 s), both oscillators in beat
+/// mode). Each recorded tick is
 /// floor(true time + jitter) in ticks, offset by a random timer start and wrapped to timer_bits. Rows go to the writer in
 /// batches (<see cref="IEdgeBatchWriter"/> where the writer takes them). Per recorded edge nothing is allocated.</para>
 /// <para>Snapshots: the counted phase is integrated over each read interval (trapezoid on the linear frequency, plus white-FM
