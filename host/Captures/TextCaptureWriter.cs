@@ -1,5 +1,6 @@
 using System.Buffers.Text;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using System.Text;
 
 namespace FreqReadout.Host.Captures;
@@ -162,6 +163,7 @@ public sealed class TextCaptureWriter : ICaptureWriter, IEdgeBatchWriter
 
     /// <inheritdoc/>
     /// <exception cref="ArgumentException">A value the format cannot hold (as <see cref="WriteRow"/>), or the spans differ in length.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void WriteEdges(ReadOnlySpan<ulong> ticks, ReadOnlySpan<double> temperaturesC, long firstRowNumber)
     {
         if (_completed)

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using FreqReadout.Counting;
 using FreqReadout.Host.Captures;
 
@@ -14,7 +15,9 @@ namespace FreqReadout.Host.Simulation;
 /// the mean frequency offset over that interval (std sigma_abs / sqrt(T), sigma_abs = f ADEV(1 s), both oscillators in beat
 /// mode). Each recorded tick is
 /// floor(true time + jitter) in ticks, offset by a random timer start and wrapped to timer_bits. Rows go to the writer in
-/// batches (<see cref="IEdgeBatchWriter"/> where the writer takes them). Per recorded edge nothing is allocated.</para>
+/// batches (<see cref="IEdgeBatchWriter"/> where the writer takes them). Per recorded edge nothing is allocated. The per-edge
+/// and per-step methods are compiled fully optimised at once (AggressiveOptimization), so a short run, and the size and time
+/// trial of <see cref="SimulationEstimate"/>, do not spend their first fraction of a second in unoptimised code.</para>
 /// <para>Snapshots: the counted phase is integrated over each read interval (trapezoid on the linear frequency, plus white-FM
 /// phase noise of variance sigma_abs^2 dt cycles^2); the count is its floor, read at a slightly irregular schedule, stamped
 /// with the read jitter and quantised to the clock; the count wraps at count_bits.</para>
@@ -101,6 +104,7 @@ public sealed class CaptureSimulator
 
     private static string Sanitise(string s) => s.Replace('\r', ' ').Replace('\n', ' ').Trim();
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void RunEdges(ICaptureWriter writer, SimulationTruth truth, IProgress<double>? progress, CancellationToken ct)
     {
         var h = _scene.Hardware;
@@ -227,6 +231,7 @@ public sealed class CaptureSimulator
         truth.JitterClamps = clamps;
         truth.TimerWraps = bits == 64 ? 0 : (long)(((ulong)lastRecorded + tickOffset) >> bits);
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         void Emit(long w, double fr)
         {
             double jitter = jitterTicks > 0 ? jitterTicks * rngJitter.NextGaussian() : 0.0;
@@ -261,6 +266,7 @@ public sealed class CaptureSimulator
     /// <paramref name="fa"/> now, <paramref name="fb"/> at its end <paramref name="endS"/>). Steps where the beat is below
     /// MinCountedHz count as locked oscillators: time passes, no cycles. False when the capture's end is reached first.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool Advance(ControlTrack control, EdgeClock clock, SimulationTruth truth, double cycles, double fa, double fb, double endS, double trueClock, double duration)
     {
         bool first = true;
@@ -320,6 +326,7 @@ public sealed class CaptureSimulator
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void RunSnapshots(ICaptureWriter writer, SimulationTruth truth, IProgress<double>? progress, CancellationToken ct)
     {
         var h = _scene.Hardware;
@@ -679,6 +686,7 @@ public sealed class CaptureSimulator
         /// The control step holding t (t never decreasing between calls): frequency at t, at the step's end, and the end time.
         /// A t within 1e-12 relative of a boundary belongs to the next step.
         /// </summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Segment(double timeS, out double frequencyAtHz, out double endFrequencyHz, out double endS)
         {
             long i = (long)Math.Floor(timeS / _step);
@@ -708,6 +716,7 @@ public sealed class CaptureSimulator
             return f;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private double Counted(double timeS, out double sigmaAbs)
         {
             double inductanceChangeH = _model.Plan.TryGetPosition(timeS, out double positionM) ? _coupling.AtPositionH(positionM) : 0.0;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using FreqReadout.Host.Captures;
 
 namespace FreqReadout.Host.Simulation;
@@ -27,6 +28,7 @@ internal sealed class EdgeRowBatch
     }
 
     /// <summary>Adds a row: its tick and a temperature sample (NaN for none).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Add(ulong tick, double temperatureC)
     {
         _ticks[_count] = tick;
@@ -38,6 +40,7 @@ internal sealed class EdgeRowBatch
     }
 
     /// <summary>Hands the rows held to the writer.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Flush()
     {
         if (_count == 0)

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace FreqReadout.Host.Simulation;
 
 /// <summary>
@@ -81,6 +83,7 @@ public sealed class InductanceChangeTable
     /// Total inductance change with the coil centre at <paramref name="positionM"/>, H: the cubic through the four nearest
     /// nodes; exact when not tabulated or outside the table; 0 without targets.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double AtPositionH(double positionM)
     {
         if (_values is null)
