@@ -1,4 +1,6 @@
+using System.Buffers.Text;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using System.Text;
 
 namespace FreqReadout.Host.Captures;
@@ -9,11 +11,19 @@ namespace FreqReadout.Host.Captures;
 /// the column header, one line per row, and the trailer on <see cref="Complete"/>. Numbers are
 /// written in the shortest invariant form that reads back to the same value, so a capture read by
 /// <see cref="TextCaptureReader"/> and written again is byte-identical (blank lines and spacing
-/// around '=' aside).
+/// around '=' aside). Edge rows may also come in batches (<see cref="WriteEdges"/>): on a writer made for a stream they are
+/// formatted straight into a byte buffer, with the same text and checks as row by row.
 /// </summary>
-public sealed class TextCaptureWriter : ICaptureWriter
+public sealed class TextCaptureWriter : ICaptureWriter, IEdgeBatchWriter
 {
+    /// <summary>Most bytes one batched row can take: a 20-digit tick, and per optional column a comma and a temperature (at most 24 characters in the "R" form).</summary>
+    private const int MaxBatchRowBytes = 20 + 1 + (2 * 25);
+
     private readonly TextWriter _writer;
+    private readonly Stream? _stream;
+    private readonly bool[] _columnIsTemperature;
+    private byte[]? _bytes;
+    private bool _charsPending;
     private readonly bool _leaveOpen;
     private readonly CaptureMetadata _metadata;
     private readonly bool _hasTemperature;
@@ -29,6 +39,7 @@ public sealed class TextCaptureWriter : ICaptureWriter
     public TextCaptureWriter(Stream stream, CaptureMetadata metadata, bool leaveOpen = false)
         : this(new StreamWriter(stream, new UTF8Encoding(false), 65536, leaveOpen), metadata, leaveOpen: false)
     {
+        _stream = stream;
     }
 
     /// <summary>Writes a text capture to a text writer. The header is written at once.</summary>
@@ -45,6 +56,13 @@ public sealed class TextCaptureWriter : ICaptureWriter
         _tickMax = metadata.TimerBits >= 64 ? ulong.MaxValue : (1UL << metadata.TimerBits) - 1;
         _countMax = metadata.CountBits >= 64 ? ulong.MaxValue : (1UL << metadata.CountBits) - 1;
         _order = new CaptureRowOrder(metadata);
+        _columnIsTemperature = new bool[metadata.ExtraColumns.Count];
+        for (int i = 0; i < _columnIsTemperature.Length; i++)
+        {
+            _columnIsTemperature[i] = metadata.ExtraColumns[i] == CaptureColumns.TemperatureC;
+        }
+
+        _charsPending = true;
         _writer.NewLine = "\n";
         _writer.Write(TextCaptureReader.MagicLine);
         _writer.Write('\n');
@@ -113,6 +131,7 @@ public sealed class TextCaptureWriter : ICaptureWriter
             throw new ArgumentException(orderProblem, nameof(row));
         }
 
+        _charsPending = true;
         Span<char> buffer = stackalloc char[24];
         row.Tick.TryFormat(buffer, out int n, default, CultureInfo.InvariantCulture);
         _writer.Write(buffer.Slice(0, n));
@@ -140,6 +159,84 @@ public sealed class TextCaptureWriter : ICaptureWriter
         }
 
         _writer.Write('\n');
+    }
+
+    /// <inheritdoc/>
+    /// <exception cref="ArgumentException">A value the format cannot hold (as <see cref="WriteRow"/>), or the spans differ in length.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void WriteEdges(ReadOnlySpan<ulong> ticks, ReadOnlySpan<double> temperaturesC, long firstRowNumber)
+    {
+        if (_completed)
+        {
+            throw new InvalidOperationException("the capture is complete; no rows may follow the trailer");
+        }
+
+        if (ticks.Length != temperaturesC.Length)
+        {
+            throw new ArgumentException($"{ticks.Length} ticks but {temperaturesC.Length} temperature entries: one entry per row (NaN for none)", nameof(temperaturesC));
+        }
+
+        if (_stream is null || _snapshots)
+        {
+            for (int i = 0; i < ticks.Length; i++)
+            {
+                double t = temperaturesC[i];
+                WriteRow(new CaptureRow(firstRowNumber + i, ticks[i], 0, double.IsNaN(t) ? null : t, null));
+            }
+
+            return;
+        }
+
+        if (_charsPending)
+        {
+            _writer.Flush();
+            _charsPending = false;
+        }
+
+        byte[] bytes = _bytes ??= new byte[65536];
+        int used = 0;
+        try
+        {
+            for (int i = 0; i < ticks.Length; i++)
+            {
+                if (used > bytes.Length - MaxBatchRowBytes)
+                {
+                    _stream.Write(bytes, 0, used);
+                    used = 0;
+                }
+
+                ulong tick = ticks[i];
+                double temperatureC = temperaturesC[i];
+                var row = new CaptureRow(firstRowNumber + i, tick, 0, double.IsNaN(temperatureC) ? null : temperatureC, null);
+                CheckRow(row, _metadata, _tickMax, _countMax);
+                string? orderProblem = _order.Check(row, "row");
+                if (orderProblem != null)
+                {
+                    throw new ArgumentException(orderProblem, nameof(ticks));
+                }
+
+                Utf8Formatter.TryFormat(tick, bytes.AsSpan(used), out int n);
+                used += n;
+                for (int c = 0; c < _columnIsTemperature.Length; c++)
+                {
+                    bytes[used++] = (byte)',';
+                    if (_columnIsTemperature[c] && !double.IsNaN(temperatureC))
+                    {
+                        used += Encoding.ASCII.GetBytes(CaptureMetadataFormatter.FormatDouble(temperatureC), bytes.AsSpan(used));
+                    }
+                }
+
+                bytes[used++] = (byte)'\n';
+            }
+        }
+        catch (ArgumentException)
+        {
+            // The rows before the bad one are written, as row by row.
+            _stream.Write(bytes, 0, used);
+            throw;
+        }
+
+        _stream.Write(bytes, 0, used);
     }
 
     /// <inheritdoc/>

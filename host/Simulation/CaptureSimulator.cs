@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using FreqReadout.Counting;
 using FreqReadout.Host.Captures;
 
@@ -9,9 +10,14 @@ namespace FreqReadout.Host.Simulation;
 /// memory: an hour at 100 kHz is 360 M edges), and returns the truth.
 /// <para>Edges: time is integrated period by period in true-clock ticks as a long integer plus a double fraction (no
 /// precision loss over hours). The counted frequency is the intended frequency (targets, drift) times the flicker-like noise,
-/// evaluated every control step and linear in between; white FM is drawn per recorded edge as the mean frequency offset over
-/// that interval (std sigma_abs / sqrt(T), sigma_abs = f ADEV(1 s), both oscillators in beat mode). Each recorded tick is
-/// floor(true time + jitter) in ticks, offset by a random timer start and wrapped to timer_bits.</para>
+/// evaluated every control step and linear in between (the targets' coupling from an <see cref="InductanceChangeTable"/> of
+/// the coil position, which changes on the sweep's time scale, not the oscillator's); white FM is drawn per recorded edge as
+/// the mean frequency offset over that interval (std sigma_abs / sqrt(T), sigma_abs = f ADEV(1 s), both oscillators in beat
+/// mode). Each recorded tick is
+/// floor(true time + jitter) in ticks, offset by a random timer start and wrapped to timer_bits. Rows go to the writer in
+/// batches (<see cref="IEdgeBatchWriter"/> where the writer takes them). Per recorded edge nothing is allocated. The per-edge
+/// and per-step methods are compiled fully optimised at once (AggressiveOptimization), so a short run, and the size and time
+/// trial of <see cref="SimulationEstimate"/>, do not spend their first fraction of a second in unoptimised code.</para>
 /// <para>Snapshots: the counted phase is integrated over each read interval (trapezoid on the linear frequency, plus white-FM
 /// phase noise of variance sigma_abs^2 dt cycles^2); the count is its floor, read at a slightly irregular schedule, stamped
 /// with the read jitter and quantised to the clock; the count wraps at count_bits.</para>
@@ -43,9 +49,16 @@ public sealed class CaptureSimulator
     /// Streams the capture to <paramref name="writer"/> (Complete is called at the end) and returns the truth.
     /// <paramref name="progress"/> receives the fraction of simulated time done, now and then.
     /// </summary>
-    public SimulationTruth Run(ICaptureWriter writer, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
+    public SimulationTruth Run(ICaptureWriter writer, IProgress<double>? progress = null, CancellationToken cancellationToken = default) =>
+        Run(writer, progress, cancellationToken, targetTruth: true);
+
+    /// <summary>
+    /// <see cref="Run(ICaptureWriter, IProgress{double}, CancellationToken)"/>; with <paramref name="targetTruth"/> false the
+    /// truth has no per-target entries (their exact peak search is a fixed cost a timing trial must not count).
+    /// </summary>
+    internal SimulationTruth Run(ICaptureWriter writer, IProgress<double>? progress, CancellationToken cancellationToken, bool targetTruth)
     {
-        var truth = BuildTruth();
+        var truth = BuildTruth(targetTruth);
         if (_scene.Hardware.Kind == CaptureKind.Snapshots)
         {
             RunSnapshots(writer, truth, progress, cancellationToken);
@@ -91,6 +104,7 @@ public sealed class CaptureSimulator
 
     private static string Sanitise(string s) => s.Replace('\r', ' ').Replace('\n', ' ').Trim();
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void RunEdges(ICaptureWriter writer, SimulationTruth truth, IProgress<double>? progress, CancellationToken ct)
     {
         var h = _scene.Hardware;
@@ -110,40 +124,43 @@ public sealed class CaptureSimulator
         var control = new ControlTrack(_model, rngSearch, rngReference);
         double jitterTicks = _model.JitterS * trueClock;
         double tempRes = h.TempResolutionC;
+        int tempEveryRows = h.TempEveryRows;
+        int rowsToTemperature = 0;
+        var faults = _scene.Faults;
+        var output = new EdgeRowBatch(writer);
 
         // Time of the current recorded edge in true-clock ticks: whole + fraction.
         double f0 = Math.Max(MinCountedHz, control.FrequencyAt(0.0));
-        long whole = 0;
-        double frac = rngStart.NextDouble() * prescale / f0 * trueClock;
-        Normalise(ref whole, ref frac);
+        var clock = new EdgeClock { Frac = rngStart.NextDouble() * prescale / f0 * trueClock };
+        Normalise(ref clock.Whole, ref clock.Frac);
 
-        double nextGlitch = rngFaults.NextExponential(1.0 / _scene.Faults.GlitchesPerS);
-        double dropStart = rngFaults.NextExponential(1.0 / _scene.Faults.DropoutsPerS);
-        double dropEnd = dropStart + _scene.Faults.DropoutS;
+        double nextGlitch = rngFaults.NextExponential(1.0 / faults.GlitchesPerS);
+        double dropStart = rngFaults.NextExponential(1.0 / faults.DropoutsPerS);
+        double dropEnd = dropStart + faults.DropoutS;
         bool dropListed = false;
 
         long lastRecorded = long.MinValue;
-        bool locked = false;
         long rows = 0;
         long clamps = 0;
-        long progressCounter = 0;
+        int progressCounter = 0;
         double nextProgress = 0.0;
 
         while (true)
         {
-            double t = (whole + frac) / trueClock;
+            double t = (clock.Whole + clock.Frac) / trueClock;
             if (t >= duration)
             {
                 break;
             }
 
-            double f = control.FrequencyAt(t);
+            // The control step holding t: the frequency now, at the step's end, and the end (Advance starts from it).
+            control.Segment(t, out double f, out double fEnd, out double endS);
 
             // Dropout bookkeeping.
             while (t >= dropEnd)
             {
-                dropStart = dropEnd + rngFaults.NextExponential(1.0 / _scene.Faults.DropoutsPerS);
-                dropEnd = dropStart + _scene.Faults.DropoutS;
+                dropStart = dropEnd + rngFaults.NextExponential(1.0 / faults.DropoutsPerS);
+                dropEnd = dropStart + faults.DropoutS;
                 dropListed = false;
             }
 
@@ -161,12 +178,12 @@ public sealed class CaptureSimulator
 
             if (!dropped)
             {
-                Emit(whole, frac);
+                Emit(clock.Whole, clock.Frac);
                 if (t >= nextGlitch)
                 {
                     double u = 0.05 + 0.2 * rngFaults.NextDouble();
-                    double gFrac = frac + u * prescale / Math.Max(f, MinCountedHz) * trueClock;
-                    long gWhole = whole;
+                    double gFrac = clock.Frac + u * prescale / Math.Max(f, MinCountedHz) * trueClock;
+                    long gWhole = clock.Whole;
                     Normalise(ref gWhole, ref gFrac);
                     Emit(gWhole, gFrac);
                     truth.GlitchCount++;
@@ -179,7 +196,7 @@ public sealed class CaptureSimulator
 
             while (t >= nextGlitch)
             {
-                nextGlitch += rngFaults.NextExponential(1.0 / _scene.Faults.GlitchesPerS);
+                nextGlitch += rngFaults.NextExponential(1.0 / faults.GlitchesPerS);
             }
 
             // Cycles of the deterministic (linear-in-step) frequency until the next recorded edge: P, scaled so that the
@@ -192,7 +209,7 @@ public sealed class CaptureSimulator
                 needed = prescale / Math.Max(0.05, 1.0 + delta / f);
             }
 
-            if (!Advance(needed))
+            if (!Advance(control, clock, truth, needed, f, fEnd, endS, trueClock, duration))
             {
                 break;
             }
@@ -209,66 +226,12 @@ public sealed class CaptureSimulator
             }
         }
 
+        output.Flush();
         truth.Rows = rows;
         truth.JitterClamps = clamps;
         truth.TimerWraps = bits == 64 ? 0 : (long)(((ulong)lastRecorded + tickOffset) >> bits);
 
-        // Moves (whole, frac) on by the given number of cycles, integrating the frequency exactly where it is linear within
-        // each control step (fa dt + k dt^2 / 2 = cycles). Steps where the beat is below MinCountedHz count as locked
-        // oscillators: time passes, no cycles. False when the capture's end is reached first.
-        bool Advance(double cycles)
-        {
-            while (true)
-            {
-                double tS = (whole + frac) / trueClock;
-                if (tS >= duration)
-                {
-                    return false;
-                }
-
-                control.Segment(tS, out double fa, out double fb, out double endS);
-                double spanTicks = (endS * trueClock - whole) - frac;
-                if (!(spanTicks > 0))
-                {
-                    spanTicks = 1e-6;
-                }
-
-                double spanS = spanTicks / trueClock;
-                if (fa < MinCountedHz && fb < MinCountedHz)
-                {
-                    if (!locked)
-                    {
-                        locked = true;
-                        truth.LockedCount++;
-                        if (truth.LockedStartTimesS.Count < MaxListed)
-                        {
-                            truth.LockedStartTimesS.Add(tS);
-                        }
-                    }
-
-                    frac += spanTicks;
-                    Normalise(ref whole, ref frac);
-                    continue;
-                }
-
-                locked = false;
-                double available = 0.5 * (fa + fb) * spanS;
-                if (available >= cycles)
-                {
-                    double k = (fb - fa) / spanS;
-                    double disc = Math.Max(0.0, fa * fa + 2.0 * k * cycles);
-                    double dt = 2.0 * cycles / (fa + Math.Sqrt(disc));
-                    frac += Math.Min(dt * trueClock, spanTicks);
-                    Normalise(ref whole, ref frac);
-                    return true;
-                }
-
-                cycles -= available;
-                frac += spanTicks;
-                Normalise(ref whole, ref frac);
-            }
-        }
-
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         void Emit(long w, double fr)
         {
             double jitter = jitterTicks > 0 ? jitterTicks * rngJitter.NextGaussian() : 0.0;
@@ -280,18 +243,90 @@ public sealed class CaptureSimulator
             }
 
             lastRecorded = recorded;
-            ulong tick = ((ulong)recorded + tickOffset) & mask;
-            double? temp = null;
-            if (h.TempEveryRows > 0 && rows % h.TempEveryRows == 0)
+            double temperatureC = double.NaN;
+            if (tempEveryRows > 0)
             {
-                temp = Quantise(_scene.Temperature.At(recorded / trueClock), tempRes);
+                if (rowsToTemperature == 0)
+                {
+                    temperatureC = Quantise(_scene.Temperature.At(recorded / trueClock), tempRes);
+                    rowsToTemperature = tempEveryRows;
+                }
+
+                rowsToTemperature--;
             }
 
             rows++;
-            writer.WriteRow(new CaptureRow(rows, tick, 0, temp, null));
+            output.Add(((ulong)recorded + tickOffset) & mask, temperatureC);
         }
     }
 
+    /// <summary>
+    /// Moves the clock on by the given number of cycles, integrating the frequency exactly where it is linear within each
+    /// control step (fa dt + k dt^2 / 2 = cycles), starting in the step the caller has already looked up (frequency
+    /// <paramref name="fa"/> now, <paramref name="fb"/> at its end <paramref name="endS"/>). Steps where the beat is below
+    /// MinCountedHz count as locked oscillators: time passes, no cycles. False when the capture's end is reached first.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static bool Advance(ControlTrack control, EdgeClock clock, SimulationTruth truth, double cycles, double fa, double fb, double endS, double trueClock, double duration)
+    {
+        bool first = true;
+        while (true)
+        {
+            double tS = (clock.Whole + clock.Frac) / trueClock;
+            if (!first)
+            {
+                if (tS >= duration)
+                {
+                    return false;
+                }
+
+                control.Segment(tS, out fa, out fb, out endS);
+            }
+
+            first = false;
+            double spanTicks = (endS * trueClock - clock.Whole) - clock.Frac;
+            if (!(spanTicks > 0))
+            {
+                spanTicks = 1e-6;
+            }
+
+            double spanS = spanTicks / trueClock;
+            if (fa < MinCountedHz && fb < MinCountedHz)
+            {
+                if (!clock.Locked)
+                {
+                    clock.Locked = true;
+                    truth.LockedCount++;
+                    if (truth.LockedStartTimesS.Count < MaxListed)
+                    {
+                        truth.LockedStartTimesS.Add(tS);
+                    }
+                }
+
+                clock.Frac += spanTicks;
+                Normalise(ref clock.Whole, ref clock.Frac);
+                continue;
+            }
+
+            clock.Locked = false;
+            double available = 0.5 * (fa + fb) * spanS;
+            if (available >= cycles)
+            {
+                double k = (fb - fa) / spanS;
+                double disc = Math.Max(0.0, fa * fa + 2.0 * k * cycles);
+                double dt = 2.0 * cycles / (fa + Math.Sqrt(disc));
+                clock.Frac += Math.Min(dt * trueClock, spanTicks);
+                Normalise(ref clock.Whole, ref clock.Frac);
+                return true;
+            }
+
+            cycles -= available;
+            clock.Frac += spanTicks;
+            Normalise(ref clock.Whole, ref clock.Frac);
+        }
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void RunSnapshots(ICaptureWriter writer, SimulationTruth truth, IProgress<double>? progress, CancellationToken ct)
     {
         var h = _scene.Hardware;
@@ -442,7 +477,7 @@ public sealed class CaptureSimulator
         frac -= w;
     }
 
-    private SimulationTruth BuildTruth()
+    private SimulationTruth BuildTruth(bool targetTruth)
     {
         var s = _scene;
         var m = _model;
@@ -501,7 +536,10 @@ public sealed class CaptureSimulator
 
         foreach (var t in m.Targets)
         {
-            truth.Targets.Add(TargetTruthFor(t, truth.Warnings));
+            if (targetTruth)
+            {
+                truth.Targets.Add(TargetTruthFor(t, truth.Warnings));
+            }
         }
 
         return truth;
@@ -590,6 +628,14 @@ public sealed class CaptureSimulator
         return $"ferrous, below its crossover {fx / 1e3:F1} kHz: the iron concentrates flux, L rises, the search frequency falls";
     }
 
+    /// <summary>Time of the current recorded edge in true-clock ticks (whole + fraction: no precision loss over hours), and whether the oscillators are locked.</summary>
+    private sealed class EdgeClock
+    {
+        public long Whole;
+        public double Frac;
+        public bool Locked;
+    }
+
     /// <summary>
     /// The slow part of the counted frequency: intended frequency and flicker noise at control steps, linear in between.
     /// Steps are evaluated in order (the flicker processes advance once per step).
@@ -597,6 +643,7 @@ public sealed class CaptureSimulator
     private sealed class ControlTrack
     {
         private readonly SceneModel _model;
+        private readonly InductanceChangeTable _coupling;
         private readonly FlickerNoise _searchFlicker;
         private readonly FlickerNoise? _referenceFlicker;
         private readonly double _step;
@@ -608,6 +655,7 @@ public sealed class CaptureSimulator
         public ControlTrack(SceneModel model, SimulationRandom searchRandom, SimulationRandom referenceRandom)
         {
             _model = model;
+            _coupling = new InductanceChangeTable(model);
             _step = model.Scene.Hardware.ControlStepS;
             _searchFlicker = new FlickerNoise(model.Scene.Oscillator.FlickerAdev, _step, searchRandom);
             if (model.Scene.Reference is not null)
@@ -638,6 +686,7 @@ public sealed class CaptureSimulator
         /// The control step holding t (t never decreasing between calls): frequency at t, at the step's end, and the end time.
         /// A t within 1e-12 relative of a boundary belongs to the next step.
         /// </summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Segment(double timeS, out double frequencyAtHz, out double endFrequencyHz, out double endS)
         {
             long i = (long)Math.Floor(timeS / _step);
@@ -667,9 +716,11 @@ public sealed class CaptureSimulator
             return f;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private double Counted(double timeS, out double sigmaAbs)
         {
-            double s = _model.SearchIntendedHz(timeS) * (1.0 + _searchFlicker.Step());
+            double inductanceChangeH = _model.Plan.TryGetPosition(timeS, out double positionM) ? _coupling.AtPositionH(positionM) : 0.0;
+            double s = _model.SearchIntendedHz(timeS, inductanceChangeH) * (1.0 + _searchFlicker.Step());
             double ws = s * _model.Scene.Oscillator.WhiteFmAdev1s;
             if (_model.Scene.Reference is null)
             {

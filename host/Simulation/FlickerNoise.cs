@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace FreqReadout.Host.Simulation;
 
 /// <summary>
@@ -32,6 +34,7 @@ public sealed class FlickerNoise
     public bool Enabled { get; }
 
     /// <summary>Advances one step (exact OU discretisation x = x e^(-dt/tau) + sigma sqrt(1 - e^(-2 dt/tau)) N) and returns the fractional frequency.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double Step()
     {
         if (!Enabled)

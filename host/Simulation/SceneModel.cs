@@ -168,10 +168,16 @@ public sealed class SceneModel
             return 0.0;
         }
 
+        return InductanceChangeAtPositionH(x);
+    }
+
+    /// <summary>Total inductance change from all targets with the coil centre at <paramref name="positionM"/> on the line (at the sweep height), H: the exact coupling of every dipole point.</summary>
+    public double InductanceChangeAtPositionH(double positionM)
+    {
         double sum = 0;
-        foreach (var t in Targets)
+        for (int i = 0; i < Targets.Count; i++)
         {
-            sum += t.InductanceChangeH(Coil, x, Plan.HeightM);
+            sum += Targets[i].InductanceChangeH(Coil, positionM, Plan.HeightM);
         }
 
         return sum;
@@ -184,11 +190,17 @@ public sealed class SceneModel
     /// Intended search frequency at time t (targets, temperature drift and mains pickup, no noise):
     /// f0 (1 + tc (T - T0)) (1 + dL/L)^(-1/2) (1 + m sin(2 pi f_mains t + phase)), Hz (m = 0 without <c>mains</c>).
     /// </summary>
-    public double SearchIntendedHz(double timeS)
+    public double SearchIntendedHz(double timeS) => SearchIntendedHz(timeS, InductanceChangeAtH(timeS));
+
+    /// <summary>
+    /// <see cref="SearchIntendedHz(double)"/> with the targets' inductance change at t given (exact, or from an
+    /// <see cref="InductanceChangeTable"/>): f0 (1 + tc (T - T0)) (1 + dL/L)^(-1/2) (1 + m sin(2 pi f_mains t + phase)), Hz.
+    /// </summary>
+    public double SearchIntendedHz(double timeS, double inductanceChangeH)
     {
         double drift = 1.0 + TempcoPpmPerK * 1e-6 * (Scene.Temperature.At(timeS) - Scene.Oscillator.NominalTemperatureC);
         double mains = Scene.Mains is null ? 1.0 : 1.0 + Scene.Mains.FractionAt(timeS);
-        return drift * mains * SearchWithoutDriftHz(timeS);
+        return drift * mains * (SearchNominalHz * (1.0 + LcResonance.FractionalShift(InductanceH, inductanceChangeH)));
     }
 
     /// <summary>Intended reference frequency at time t (its own drift, no noise), Hz; NaN in search mode.</summary>

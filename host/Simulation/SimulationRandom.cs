@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace FreqReadout.Host.Simulation;
 
 /// <summary>
@@ -22,6 +24,7 @@ public sealed class SimulationRandom
     }
 
     /// <summary>Next 64 random bits.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public ulong NextUInt64()
     {
         ulong result = RotateLeft(_s1 * 5, 7) * 9;
@@ -39,6 +42,7 @@ public sealed class SimulationRandom
     public double NextDouble() => (NextUInt64() >> 11) * (1.0 / 9007199254740992.0);
 
     /// <summary>Standard normal deviate (mean 0, variance 1).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double NextGaussian()
     {
         if (_haveSpare)
