@@ -27,13 +27,22 @@ public class AllocationTests
         // Warm up on a first pipeline over the very same sequence, so that every path (targets,
         // re-baselines, hold, no signal) is jitted and its one-time type loading done before measuring;
         // then measure a second, fresh pipeline (built before the measurement starts).
+        // The run is measured three times, each on a fresh pipeline, and the least count must be 0: an allocation per
+        // reading shows in every run (thousands of bytes each time), while the runtime's own one-off work on this
+        // thread under a busy full test run (tiered re-compilation, seen once in CI as 6 kB in one run) does not repeat.
         Drive(new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 }), gates, silent, new Outputs(), out _, out _);
-        var pipeline = new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 });
-        var outputs = new Outputs(); // caller-owned result objects, made once as a device loop makes them
-        long before = GC.GetAllocatedBytesForCurrentThread();
-        Drive(pipeline, gates, silent, outputs, out int events, out int notices);
-        long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
-        Assert.Equal(0, allocated);
+        var counts = new long[3];
+        int events = 0, notices = 0;
+        for (int run = 0; run < counts.Length; run++)
+        {
+            var pipeline = new ReadoutPipeline(new ReadoutSettings { TempcoPpmPerK = -5 });
+            var outputs = new Outputs(); // caller-owned result objects, made once as a device loop makes them
+            long before = GC.GetAllocatedBytesForCurrentThread();
+            Drive(pipeline, gates, silent, outputs, out events, out notices);
+            counts[run] = GC.GetAllocatedBytesForCurrentThread() - before;
+        }
+
+        Assert.True(counts.Min() == 0, "bytes allocated per run: " + string.Join(", ", counts));
 
         // The loop went through targets, re-baselines and no-signal (it exercised the paths it claims to).
         Assert.True(events > 50, "events " + events);
