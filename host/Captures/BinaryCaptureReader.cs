@@ -36,7 +36,8 @@ public sealed class BinaryCaptureReader : ICaptureBatchReader
     private ulong _blockTickStep;
     private ulong _blockCount;
     private ulong _blockCountStep;
-    private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _pendingError;
+    private readonly BatchErrorHold _errors = new();
+    private Action<CaptureRowBatch>? _fillBatch;
 
     /// <summary>Reads a binary capture from a stream positioned at its magic.</summary>
     /// <param name="stream">The capture bytes (need not be seekable).</param>
@@ -236,29 +237,13 @@ public sealed class BinaryCaptureReader : ICaptureBatchReader
             _batchOrder = new CaptureRowOrder(Metadata);
         }
 
-        if (_pendingError != null)
-        {
-            var error = _pendingError;
-            _pendingError = null;
-            error.Throw();
-        }
-
+        _errors.ThrowIfHeld();
         if (_rowsEnded)
         {
             return false;
         }
 
-        try
-        {
-            FillBatch(batch);
-        }
-        catch (Exception e) when (batch.Count > 0 && e is CaptureFormatException or IOException)
-        {
-            // The rows before the bad one go first; the error comes with the next call, as ReadRows would raise it.
-            _pendingError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
-        }
-
-        return batch.Count > 0;
+        return _errors.Fill(batch, _fillBatch ??= FillBatch);
     }
 
     /// <summary>

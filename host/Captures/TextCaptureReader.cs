@@ -41,7 +41,8 @@ public sealed class TextCaptureReader : ICaptureBatchReader
     private ulong _tickLimit;
     private ulong _countLimit;
     private CaptureRowOrder? _order;
-    private System.Runtime.ExceptionServices.ExceptionDispatchInfo? _pendingError;
+    private readonly BatchErrorHold _errors = new();
+    private Action<CaptureRowBatch>? _fillBatch;
 
     /// <summary>
     /// Reads a text capture from a stream (UTF-8, an optional BOM is skipped), in 1 MiB blocks, with the fast path for
@@ -173,29 +174,13 @@ public sealed class TextCaptureReader : ICaptureBatchReader
             StartRows();
         }
 
-        if (_pendingError != null)
-        {
-            var error = _pendingError;
-            _pendingError = null;
-            error.Throw();
-        }
-
+        _errors.ThrowIfHeld();
         if (_rowsEnded)
         {
             return false;
         }
 
-        try
-        {
-            FillBatch(batch);
-        }
-        catch (Exception e) when (batch.Count > 0 && e is CaptureFormatException or IOException)
-        {
-            // The rows before the bad one go first; the error comes with the next call, as ReadRows would raise it.
-            _pendingError = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
-        }
-
-        return batch.Count > 0;
+        return _errors.Fill(batch, _fillBatch ??= FillBatch);
     }
 
     /// <summary>
