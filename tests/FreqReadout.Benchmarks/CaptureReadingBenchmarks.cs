@@ -89,23 +89,18 @@ public class CaptureReadingBenchmarks
     public ulong TextBatchesRead()
     {
         using var reader = new TextCaptureReader(new MemoryStream(_text), "bench.csv");
-        var batch = new CaptureRowBatch();
-        ulong sum = 0;
-        while (reader.ReadBatch(batch))
-        {
-            for (int i = 0; i < batch.Count; i++)
-            {
-                sum += batch.Ticks[i];
-            }
-        }
-
-        return sum;
+        return SumBatches(reader);
     }
 
     [Benchmark(OperationsPerInvoke = Rows)]
     public ulong BinaryBatchesRead()
     {
         using var reader = new BinaryCaptureReader(new MemoryStream(_binary), "bench.frcap");
+        return SumBatches(reader);
+    }
+
+    private static ulong SumBatches(ICaptureBatchReader reader)
+    {
         var batch = new CaptureRowBatch();
         ulong sum = 0;
         while (reader.ReadBatch(batch))
