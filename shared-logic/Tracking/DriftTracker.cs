@@ -23,7 +23,7 @@ namespace FreqReadout.Tracking
     /// normalised squared error of the forecast it made for that reading when the reading arrived,
     /// e = (y - P)^2 / (V + R), clipped to <see cref="MaxNormalisedError"/>. A running mean m over about
     /// <see cref="LearnReadings"/> readings (m = 1 when the model fits) steers q: q *= clamp(1 + gamma (m - 1),
-    /// 0.95, 2) per reading, gamma = <see cref="LearnGain"/>, within the memory bounds: the filter's memory is about
+    /// 0.95, 1.25) per reading, gamma = <see cref="LearnGain"/>, within the memory bounds: the filter's memory is about
     /// tau = (R w / q)^(1/6) (w the gate span; the bandwidth of a white-jerk tracker scales as the sixth
     /// root of the ratio of process to measurement noise density), kept in [<see cref="MinMemorySeconds"/>,
     /// <see cref="MaxMemorySeconds"/>]. Fast thermal settling (forecasts lag: m &gt;&gt; 1) shortens the
