@@ -99,12 +99,6 @@ namespace FreqReadout.Tracking
             get { return meanError; }
         }
 
-        /// <summary>True once <see cref="Reset"/> gave it a starting point.</summary>
-        public bool IsInitialised
-        {
-            get { return initialised; }
-        }
-
         /// <summary>Level at <see cref="TimeSeconds"/>, Hz.</summary>
         public double LevelHz
         {
@@ -166,17 +160,6 @@ namespace FreqReadout.Tracking
             jerkDensity = other.jerkDensity;
             meanError = other.meanError;
             initialised = other.initialised;
-        }
-
-        /// <summary>Forgets the state.</summary>
-        public void Clear()
-        {
-            levelHz = 0;
-            slopeHzPerSecond = 0;
-            accelerationHzPerSecond2 = 0;
-            timeSeconds = 0;
-            p00 = p01 = p02 = p11 = p12 = p22 = 0;
-            initialised = false;
         }
 
         /// <summary>P(t) = L + b dt + a dt^2 / 2, dt = t - t_L, Hz. Returns 0 before <see cref="Reset"/>.</summary>
