@@ -230,9 +230,9 @@ namespace FreqReadout.Readout
             return ScalarMath.Abs(sumResidual / n) <= (AgreementSigmas * spread) + allowance;
         }
 
-        // A drift curve bends no faster than a settling with the shortest time constant assumed:
-        // |f''| <= |f'| / tau_min, i.e. |c2| <= |c1| / (2 tau_min), plus 3 sigma of the fit's own c2. A pass seen
-        // for a few seconds fits a parabola with a large c2 and a small slope near its peak.
+        // A change of drift rate bends the curve no more than a new settling with the shortest time constant assumed:
+        // |c2 - a_T / 2| <= |c1 - b_T| / (2 tau_min), plus 3 sigma of the fit's own c2 (b_T, a_T the tracker's rate and
+        // acceleration). A pass's flank seen for a few seconds bends far more than its slope change over a minute.
         // And the drift rate must have changed: a shift that stays level (a step: metal left near the coil)
         // keeps the tracker's slope and is a target, not lost lock (3 sigma of the fitted slope).
         private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)

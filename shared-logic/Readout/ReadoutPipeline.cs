@@ -611,8 +611,14 @@ namespace FreqReadout.Readout
         // that grew with the gap would end a long pass in the middle.
         private double DetectionVariance(double t)
         {
-            double horizon = tracker.TimeSeconds + ((delayGates + 1) * lastSpanSeconds);
+            double horizon = HorizonEndSeconds(lastSpanSeconds);
             return tracker.PredictVariance(t < horizon ? t : horizon);
+        }
+
+        // The latest time a regular forecast reaches: (delay + 1) gates after the tracker's last reading.
+        private double HorizonEndSeconds(double span)
+        {
+            return tracker.TimeSeconds + ((delayGates + 1) * span);
         }
 
         // Detection sigma: the larger of what the tracker expects of its forecast (sqrt(noise^2 + V)) and what its
@@ -891,7 +897,7 @@ namespace FreqReadout.Readout
         private void PushDelayLine(double t, double span, double x, bool valid, double forecast, double forecastVariance, double noise)
         {
             // A forecast across a gap (a held target) is not a sample of the regular forecast error.
-            bool regular = t <= tracker.TimeSeconds + ((delayGates + 1.5) * span);
+            bool regular = t <= HorizonEndSeconds(span) + (0.5 * span);
             if (delayGates == 0)
             {
                 if (valid)

@@ -202,20 +202,19 @@ namespace FreqReadout.Tracking
                 return;
             }
 
-            // Propagate: x = F x; P = F P F^T + Q.
+            // Propagate: x = F x; P = F P F^T + Q (its first element is the forecast variance).
             double dt2 = dt * dt;
             double half = 0.5 * dt2;
+            double n00 = PredictVariance(timeSeconds);
             levelHz += (slopeHzPerSecond * dt) + (accelerationHzPerSecond2 * half);
             slopeHzPerSecond += accelerationHzPerSecond2 * dt;
 
-            double n00 = p00 + (2.0 * dt * p01) + (dt2 * (p02 + p11)) + (dt2 * dt * p12) + (0.25 * dt2 * dt2 * p22);
             double n01 = p01 + (dt * (p02 + p11)) + (1.5 * dt2 * p12) + (0.5 * dt2 * dt * p22);
             double n02 = p02 + (dt * p12) + (half * p22);
             double n11 = p11 + (2.0 * dt * p12) + (dt2 * p22);
             double n12 = p12 + (dt * p22);
             double n22 = p22;
             double q = jerkDensity;
-            n00 += q * dt2 * dt2 * dt / 20.0;
             n01 += q * dt2 * dt2 / 8.0;
             n02 += q * dt2 * dt / 6.0;
             n11 += q * dt2 * dt / 3.0;
