@@ -178,13 +178,14 @@ public sealed class ReplaySession
         _finished = true;
         ClosePoint();
         var open = new DetectionEvent();
-        if (_pipeline.TryCloseOpenEvent(open))
+        bool closed = _pipeline.TryCloseOpenEvent(open);
+        Drain();
+        if (closed)
         {
             AddEvent(open);
             _warnings.Add($"an event still open at the end (from {F(open.StartSeconds)} s) was closed at the last gate ({F(open.EndSeconds)} s)");
         }
 
-        Drain();
         if (_rebaselineMarkPending)
         {
             _warnings.Add($"the rebaseline mark in the last gate ({F(_lastTime)} s) had no effect: marks act from the next gate, and none followed");

@@ -21,7 +21,8 @@ namespace FreqReadout.Readout
     /// shift that stayed takes a large change), and the mean of A lies within 3 sigma sqrt(1/n_A + v(t_A)) +
     /// |c2_b| d^3 / (3 tau_min) of Q_b extrapolated (v the prediction variance factor, d the distance from the
     /// middle of B, tau_min = <see cref="MinDriftSeconds"/>: the third-order term of a settling drift). Then the middle's residuals r = x - Q(t) give the event:
-    /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r|; none at k_t: no target.
+    /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r| (readings of an event already
+    /// reported are skipped); none at k_t: no target.
     /// The pass test runs only while the candidate is younger than 2 lock_check_s: a shift that has not
     /// returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
     /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
@@ -159,6 +160,7 @@ namespace FreqReadout.Readout
             if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
             {
                 into.Kind = ExcursionVerdict.Drift;
+                into.StartSeconds = driftFrom;
                 Anchor(all, sigmaHz, into);
             }
         }
@@ -281,7 +283,7 @@ namespace FreqReadout.Readout
             for (int i = FirstAtOrAfter(history, middleFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
-                if (t > afterFrom)
+                if (t > afterFrom || history.IsExcluded(i))
                 {
                     continue;
                 }

@@ -29,7 +29,7 @@ namespace FreqReadout.Readout
         /// <summary>1-sigma uncertainty of <see cref="AccelerationHzPerSecond2"/> from the fit, Hz/s^2.</summary>
         public double AccelerationSigmaHzPerSecond2;
 
-        /// <summary>Pass: first reading at or above the threshold, s.</summary>
+        /// <summary>Pass: first reading at or above the threshold; Drift: start of the window the new drift was fitted to, s.</summary>
         public double StartSeconds;
 
         /// <summary>Pass: last reading at or above the release level, s.</summary>

@@ -70,7 +70,7 @@ namespace FreqReadout.Readout
             return excluded[(head + i) % times.Length];
         }
 
-        /// <summary>Marks the readings with from &lt;= t &lt;= to as part of a reported event.</summary>
+        /// <summary>Marks the readings with from &lt;= t &lt;= to as no longer baseline (part of a reported event, or older than a change of drift rate).</summary>
         public void Exclude(double fromSeconds, double toSeconds)
         {
             for (int i = 0; i < count; i++)

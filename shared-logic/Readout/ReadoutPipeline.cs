@@ -69,6 +69,7 @@ namespace FreqReadout.Readout
         private readonly MedianWindow forecastWindow;
         private readonly TargetDetector detector;
         private readonly DetectionEventQueue events;
+        private readonly EventMerger merger;
         private readonly RebaselineNoticeQueue notices;
         private readonly double[] delayTimes;
         private readonly double[] delayValues;
@@ -166,6 +167,7 @@ namespace FreqReadout.Readout
             forecastWindow = new MedianWindow(settings.NoiseWindowGates);
             detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.ReleaseSeconds, settings.UnclearBandSigma, settings.Polarity));
             events = new DetectionEventQueue(QueueCapacity);
+            merger = new EventMerger(events);
             notices = new RebaselineNoticeQueue(QueueCapacity);
             delayGates = settings.TrackerDelayGates;
             delayTimes = new double[delayGates + 1];
@@ -303,7 +305,10 @@ namespace FreqReadout.Readout
             }
         }
 
-        /// <summary>Takes the oldest finished event into a caller-owned object (unchanged when false is returned).</summary>
+        /// <summary>
+        /// Takes the oldest finished event into a caller-owned object (unchanged when false is returned). A pass is
+        /// queued 0.5 s after it ended, once no pass of its sign continues it.
+        /// </summary>
         public bool TryTakeEvent(DetectionEvent into)
         {
             return events.TryDequeue(into);
@@ -317,10 +322,12 @@ namespace FreqReadout.Readout
 
         /// <summary>
         /// End of a replay: closes an open event at its last reading above the release level (End = EndOfRun)
-        /// into a caller-owned object (unchanged when false is returned). An unconfirmed candidate is dropped.
+        /// into a caller-owned object (unchanged when false is returned). An unconfirmed candidate is dropped. A
+        /// finished pass still held for merging is queued first: take the queued events, then this one.
         /// </summary>
         public bool TryCloseOpenEvent(DetectionEvent into)
         {
+            merger.Flush();
             return detector.ForceClose(EventEnd.EndOfRun, into);
         }
 
@@ -357,9 +364,9 @@ namespace FreqReadout.Readout
             if (manualRequested)
             {
                 manualRequested = false;
-                if (phase == PhaseTracking && detector.ForceClose(EventEnd.Rebaseline, events.NextSlot()))
+                if (phase == PhaseTracking && detector.ForceClose(EventEnd.Rebaseline, merger.NextSlot()))
                 {
-                    events.Commit();
+                    merger.Commit();
                 }
 
                 BeginRebaseline(RebaselineReason.Manual, gate.StartSeconds);
@@ -412,11 +419,11 @@ namespace FreqReadout.Readout
             double forecast = predictedRelative;
             double ppmReference = PpmReferenceHz(originHz + predictedRelative);
             history.Add(t, relative);
-            bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, events.NextSlot());
+            bool ended = detector.Step(t, span, shift, sigma, ppmReference, belowFloor, merger.NextSlot());
             bool anchored = false;
             if (ended)
             {
-                events.Commit();
+                merger.Commit();
                 history.Exclude(detector.StartSeconds - ExcursionResolver.EdgeMarginSeconds, t);
                 blankRemaining = BlankGates(span);
             }
@@ -430,12 +437,12 @@ namespace FreqReadout.Readout
             else if (detector.TargetPresent && !hold && t - lastCheckSeconds + TimeEpsilonSeconds >= ExcursionResolver.CheckIntervalSeconds)
             {
                 lastCheckSeconds = t;
-                anchored = Decide(t, noise, belowFloor);
+                anchored = Decide(t, Sigma(0), belowFloor);
             }
 
             if (detector.EventOpen && !hold && t - detector.PersistSinceSeconds + TimeEpsilonSeconds >= settings.PersistentShiftSeconds)
             {
-                if (!AbsorbPersistentShift(t, noise))
+                if (!AbsorbPersistentShift(t, Sigma(0)))
                 {
                     SettlingReading(t, span, frequency, correction, belowFloor, reading);
                     return false;
@@ -453,6 +460,7 @@ namespace FreqReadout.Readout
 
             double predicted = originHz + predictedRelative;
             bool present = detector.TargetPresent;
+            merger.Tick(t, present, detector.StartSeconds);
             bool valid = !present && !ended && !anchored && blankRemaining == 0;
             if (!present && !ended && blankRemaining > 0)
             {
@@ -520,7 +528,7 @@ namespace FreqReadout.Readout
                 bool hasPpm = ppmReference > 0;
                 bool floorSeen = detector.BelowFloorSeen || belowFloorNow;
                 TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.MixedSign);
-                events.NextSlot().Set(
+                merger.NextSlot().Set(
                     verdict.StartSeconds,
                     verdict.EndSeconds,
                     verdict.PeakSeconds,
@@ -533,12 +541,18 @@ namespace FreqReadout.Readout
                     floorSeen,
                     verdict.MixedSign,
                     EventEnd.Resolved);
-                events.Commit();
+                merger.Commit();
                 history.Exclude(verdict.StartSeconds - ExcursionResolver.EdgeMarginSeconds, verdict.EndSeconds);
             }
             else if (verdict.Kind == ExcursionVerdict.Drift)
             {
+                // The drift rate changed before the window the new drift was fitted to: the readings before it
+                // follow the old drift and no longer serve as the before-side of a later candidate.
                 lockRecoveries++;
+                if (history.Count > 0)
+                {
+                    history.Exclude(history.TimeAt(0), verdict.StartSeconds - TimeEpsilonSeconds);
+                }
             }
 
             detector.Discard();
@@ -552,9 +566,9 @@ namespace FreqReadout.Readout
         private bool AbsorbPersistentShift(double t, double sigma)
         {
             double eventStart = detector.StartSeconds;
-            if (detector.ForceClose(EventEnd.AutoRebaseline, events.NextSlot()))
+            if (detector.ForceClose(EventEnd.AutoRebaseline, merger.NextSlot()))
             {
-                events.Commit();
+                merger.Commit();
             }
 
             double from = t - settings.FitWindowSeconds;
@@ -664,11 +678,12 @@ namespace FreqReadout.Readout
                 return;
             }
 
+            merger.Flush();
             if (phase == PhaseTracking)
             {
-                if (detector.ForceClose(EventEnd.NoSignal, events.NextSlot()))
+                if (detector.ForceClose(EventEnd.NoSignal, merger.NextSlot()))
                 {
-                    events.Commit();
+                    merger.Commit();
                 }
 
                 SnapshotTracker();
@@ -691,6 +706,7 @@ namespace FreqReadout.Readout
 
         private void BeginRebaseline(RebaselineReason reason, double timeSeconds)
         {
+            merger.Flush();
             if (phase == PhaseTracking)
             {
                 SnapshotTracker();
@@ -810,9 +826,18 @@ namespace FreqReadout.Readout
                 ? 2.0 * fitNoise * ScalarMath.Sqrt(curveFit.CurvatureVarianceFactor)
                 : (ScalarMath.Abs(slope) + slopeSigma) / ExcursionResolver.MinDriftSeconds;
             originHz = levelHz;
-            tracker.Reset(0.0, slope, acceleration, time, levelSigma, slopeSigma, accelerationSigma, ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz), lastSpanSeconds);
+            double trackerNoise = ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz);
             detector.Discard();
             ClearDelayLine();
+            if (keptDisturbed || capture.Count < MinCaptureGates)
+            {
+                tracker.Reset(0.0, slope, acceleration, time, levelSigma, slopeSigma, accelerationSigma, trackerNoise, lastSpanSeconds);
+            }
+            else
+            {
+                StartTrackerOnCapture(time, slope, acceleration, levelSigma, slopeSigma, accelerationSigma, captureSeconds, trackerNoise);
+            }
+
             blankRemaining = 0;
             phase = PhaseTracking;
             everBaselined = true;
@@ -831,6 +856,34 @@ namespace FreqReadout.Readout
             {
                 hasFirstBaseline = true;
                 firstBaselineHz = levelHz;
+            }
+        }
+
+        // The tracker runs over the capture's own readings, from the capture fit at one gate before the first of them
+        // with a prior widened by what the fit cannot tell apart (a line's slope is the mean rate over the capture,
+        // not the rate at its end: the acceleration prior times half the capture), so that at the capture's end its
+        // rate and acceleration, and their covariances, are those of the readings rather than of a straight line.
+        // One pass over at most the capture's capacity, once per baseline.
+        private void StartTrackerOnCapture(double time, double slope, double acceleration, double levelSigma, double slopeSigma, double accelerationSigma, double captureSeconds, double noise)
+        {
+            double t0 = capture.TimeSecondsAt(0);
+            double span = capture.Count > 1 ? (capture.TimeSecondsAt(capture.Count - 1) - t0) / (capture.Count - 1) : lastSpanSeconds;
+            double start = t0 - (span > 0 ? span : TimeEpsilonSeconds);
+            double dt = start - time;
+            double startLevel = (slope * dt) + (0.5 * acceleration * dt * dt);
+            double startSlope = slope + (acceleration * dt);
+            double halfSpanAcceleration = accelerationSigma * 0.5 * captureSeconds;
+            double levelPrior = (2.0 * levelSigma) + (halfSpanAcceleration * 0.25 * captureSeconds) + (2.0 * noise);
+            double slopePrior = slopeSigma + halfSpanAcceleration;
+            tracker.Reset(startLevel, startSlope, acceleration, start, levelPrior, slopePrior, accelerationSigma, noise, span > 0 ? span : lastSpanSeconds);
+            for (int i = 0; i < capture.Count; i++)
+            {
+                double t = capture.TimeSecondsAt(i);
+                double x = capture.ValueHzAt(i) - originHz;
+                double predicted = tracker.Predict(t);
+                double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(t));
+                tracker.Update(t, predicted + ScalarMath.Clamp(x - predicted, -limit, limit), noise);
+                TakeSnapshot();
             }
         }
 

@@ -23,11 +23,15 @@ namespace FreqReadout.Tracking
     /// normalised squared error of the forecast it made for that reading when the reading arrived,
     /// e = (y - P)^2 / (V + R), clipped to <see cref="MaxNormalisedError"/>. A running mean m over about
     /// <see cref="LearnReadings"/> readings (m = 1 when the model fits) steers q: q *= clamp(1 + gamma (m - 1),
-    /// 0.95, 1.25) per reading, gamma = <see cref="LearnGain"/>, within the memory bounds: the filter's memory is about
+    /// 0.95, 1.05) per reading, gamma = <see cref="LearnGain"/>, within the memory bounds: the filter's memory is about
     /// tau = (R w / q)^(1/6) (w the gate span; the bandwidth of a white-jerk tracker scales as the sixth
     /// root of the ratio of process to measurement noise density), kept in [<see cref="MinMemorySeconds"/>,
     /// <see cref="MaxMemorySeconds"/>]. Fast thermal settling (forecasts lag: m &gt;&gt; 1) shortens the
-    /// memory within a few readings; quiet drift lengthens it slowly, which lowers the forecast noise.
+    /// memory within a few seconds (q up tenfold in 47 readings); quiet drift lengthens it at a like pace, which lowers
+    /// the forecast noise. The rise is bounded that tightly on purpose: a coil pass too weak to open a candidate
+    /// lasts 0.2-3 s, and a faster rise let one such pass teach the tracker to follow noise for the rest of the run
+    /// (measured on the tuning seeds of <c>bench quality</c>); a change of drift rate that the tracker cannot follow
+    /// that fast is caught by the two-sided check instead.
     /// </para>
     /// The tracker never decides whether a reading is a target: its owner feeds it only target-free readings.
     /// All work is O(1) per call, nothing allocates, and no struct is made.
@@ -52,8 +56,8 @@ namespace FreqReadout.Tracking
         /// <summary>Least factor of one step of q.</summary>
         public const double MinStep = 0.95;
 
-        /// <summary>Largest factor of one step of q.</summary>
-        public const double MaxStep = 1.25;
+        /// <summary>Largest factor of one step of q (why so small: class summary).</summary>
+        public const double MaxStep = 1.05;
 
         /// <summary>Largest normalised squared error one reading may contribute.</summary>
         public const double MaxNormalisedError = 9.0;

@@ -33,6 +33,7 @@ internal static class DeviceLoopBounds
         new("ReadoutPipeline.InvalidateDelayLine", 0, "TrackerDelayGates + 1 (ReadoutSettings tracker_delay_gates, default 5, at most 1000)", 6, 1001),
         new("ReadoutPipeline.Rewind", 0, "snapshotCount - 1 < SnapshotCount (32 tracker snapshots)", 32, 32),
         new("ReadoutPipeline.CompleteCapture", 0, "capture.Count <= BaselineMaxGates (the capture's gates copied into the reading history)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("ReadoutPipeline.StartTrackerOnCapture", 0, "capture.Count <= BaselineMaxGates (the tracker runs once over the capture's gates)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
         // Running noise median: two indexed heaps of at most NoiseWindowGates slots; a sift moves one level per pass.
         new("MedianWindow.LowSiftUp", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),

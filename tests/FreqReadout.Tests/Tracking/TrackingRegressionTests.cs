@@ -1,5 +1,6 @@
 using FreqReadout.Detection;
 using FreqReadout.Host.Bench;
+using FreqReadout.Host.Replay;
 using Xunit.Abstractions;
 
 namespace FreqReadout.Tests.Tracking;
@@ -22,6 +23,16 @@ public class TrackingRegressionTests
     {
         BenchWayOutcome r = o.Ways[0];
         _output.WriteLine($"{o.Scene.Scene.Name}: {r.Found}/{o.Passes.Count} found, {r.Right} right, {r.FalseEvents} false, {r.Rebaselines} re-baselines");
+        foreach (BenchPass p in o.Passes)
+        {
+            _output.WriteLine($"  pass {p.Target}: peak {p.PeakSeconds:F2} s, {p.PeakShiftHz:G4} Hz, {p.SignRuleClass}");
+        }
+
+        foreach (ReplayEvent e in o.Readout.Events)
+        {
+            _output.WriteLine($"  event {e.Event.StartSeconds:F2}-{e.Event.EndSeconds:F2} s, peak {e.Event.PeakSeconds:F2} s, {e.Event.PeakShiftHz:G4} Hz, {e.ClassName}, {e.Event.End}");
+        }
+
         foreach (string w in o.Readout.Warnings)
         {
             _output.WriteLine("  " + w);
@@ -34,15 +45,16 @@ public class TrackingRegressionTests
         // 5 ppm/s at first, tau 60 s, 0.02 ppm gate noise: before, the readout cycled through false targets and
         // automatic re-baselines, and with the earlier level-and-slope tracker most passes were missed (its lag under
         // this curvature raised the running noise about fivefold). The Kalman tracker follows the curvature: no false
-        // event, at most one automatic re-baseline (no cycle), and at least 6 of the 8 passes classified right
-        // (measured at this commit: 7 found, 6 right).
+        // event, at most one automatic re-baseline (no cycle), and at least 7 of the 8 passes classified right
+        // (measured at this commit: 8 found, 8 right, since the tracker starts from a run over the capture's own
+        // readings and split passes are merged).
         BenchSceneOutcome o = DriftScenarios.WarmToColdSettling().Run();
         Report(o);
         BenchWayOutcome readout = o.Ways[0];
         Assert.True(readout.FalseEvents == 0, $"{readout.FalseEvents} false events");
         Assert.True(readout.Rebaselines <= 1, $"{readout.Rebaselines} automatic re-baselines (a drift cycle)");
         Assert.True(o.Readout.Events.Count(e => e.Event.End == EventEnd.AutoRebaseline) <= 1);
-        Assert.True(readout.Right >= 6, $"{readout.Right} of {o.Passes.Count} right");
+        Assert.True(readout.Right >= 7, $"{readout.Right} of {o.Passes.Count} right");
     }
 
     [Fact]
