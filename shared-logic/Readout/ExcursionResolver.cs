@@ -23,8 +23,8 @@ namespace FreqReadout.Readout
     /// middle of B, tau_min = <see cref="MinDriftSeconds"/>: the third-order term of a settling drift). Then the middle's residuals r = x - Q(t) give the event:
     /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r| (readings of an event already
     /// reported are skipped); none at k_t: no target.
-    /// The pass test runs only while the candidate is younger than 2 lock_check_s: a shift that has not
-    /// returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
+    /// The pass test runs only while the candidate is younger than 3 lock_check_s (the owner decides): a shift
+    /// that has not returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
     /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
     /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
     /// below 2 sigma^2, and its curvature differs from the tracker's by no more than a change of drift rate can bring
@@ -33,7 +33,13 @@ namespace FreqReadout.Readout
     /// far more than its slope over a minute): a
     /// smooth change of drift rate, not a pass; and its slope differs from the tracker's by more than 3 sigma
     /// of the fitted slope (a level shift that stays, a step, keeps the old rate and stays a target). The window slides with time, so lock is recovered even when a
-    /// pass came while it was lost (that pass is then not reported).
+    /// pass came while it was lost. Before drift is declared, the readings before the drift window are searched
+    /// for that pass: (3) the pass test of (1) with the drift window as the after side (a slow pass whose tail
+    /// outlasted the pass test, the tracker's forecast having wandered meanwhile); (4) a pass across a change of
+    /// drift rate: the baseline is Q_b up to where Q_b and the drift window's quadratic cross (the frequency is
+    /// continuous at a kink) and the drift window's quadratic after it; none crossing in the middle: no kink. A
+    /// pass with at least two readings of the middle at k_t sigma from that baseline is reported as in (1) (end
+    /// Resolved); otherwise drift.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -55,6 +61,10 @@ namespace FreqReadout.Readout
         private const double AgreementSigmas = 3.0;
         private const int MinBeforeReadings = 6;
         private const int MinAfterReadings = 3;
+
+        // Readings at k_t sigma that a pass found by (3) or (4) needs: one reading beyond the threshold from a baseline
+        // bridged across a gap (or a kink) is not evidence enough.
+        private const int LateMinReadings = 2;
 
         private readonly QuadraticFit before = new QuadraticFit();
         private readonly QuadraticFit sides = new QuadraticFit();
@@ -153,16 +163,64 @@ namespace FreqReadout.Readout
 
             if (allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
             {
-                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, into);
+                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, 1, into);
                 return;
             }
 
             if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
             {
+                // (3) A slow pass whose tail outlasted the pass test: the drift window itself is the after side.
+                if (driftFrom > middleFrom && FillSides(history, beforeFrom, middleFrom, driftFrom) >= MinAfterReadings && sides.TrySolve() && SidesAgree(history, driftFrom, sigmaHz, releaseSigma))
+                {
+                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, LateMinReadings, into);
+                    if (into.Kind == ExcursionVerdict.Pass)
+                    {
+                        return;
+                    }
+                }
+
+                // (4) A pass across a change of drift rate: the baseline is the fit before the candidate up to where it
+                // meets the new drift's fit, and the new drift's fit after that (the frequency is continuous at a kink).
+                double kinkSeconds;
+                if (driftFrom > middleFrom && TryFindCrossing(history, middleFrom, driftFrom, out kinkSeconds))
+                {
+                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, before, all, kinkSeconds, LateMinReadings, into);
+                    if (into.Kind == ExcursionVerdict.Pass)
+                    {
+                        return;
+                    }
+                }
+
                 into.Kind = ExcursionVerdict.Drift;
                 into.StartSeconds = driftFrom;
                 Anchor(all, sigmaHz, into);
             }
+        }
+
+        // Refits the two-sided quadratic to the non-excluded readings of [beforeFrom, middleFrom) and all readings after
+        // afterFrom; returns how many came from after afterFrom.
+        private int FillSides(ReadingHistory history, double beforeFrom, double middleFrom, double afterFrom)
+        {
+            sides.Clear(history.TimeAt(history.Count - 1));
+            int afterCount = 0;
+            for (int i = FirstAtOrAfter(history, beforeFrom); i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t < middleFrom)
+                {
+                    if (!history.IsExcluded(i))
+                    {
+                        sides.Add(t, history.ValueAt(i));
+                    }
+                }
+                else if (t > afterFrom)
+                {
+                    sides.Add(t, history.ValueAt(i));
+                    afterCount++;
+                }
+            }
+
+            return afterCount;
         }
 
         // Index of the oldest reading at or after a time, found from the newest end (readings are in time order).
@@ -271,15 +329,48 @@ namespace FreqReadout.Readout
             return n > 0 && sumSquares / n < 2.0 * sigmaHz * sigmaHz;
         }
 
-        private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, ExcursionVerdict into)
+        // The latest time in [from, to) at which the fit before the candidate and the new drift's fit cross (between two
+        // readings where their difference changes sign); false when they do not cross there.
+        private bool TryFindCrossing(ReadingHistory history, double fromSeconds, double toSeconds, out double crossingSeconds)
         {
-            Anchor(sides, sigmaHz, into);
+            crossingSeconds = 0;
+            bool found = false;
+            bool hasPrevious = false;
+            double previous = 0;
+            for (int i = FirstAtOrAfter(history, fromSeconds); i < history.Count; i++)
+            {
+                double t = history.TimeAt(i);
+                if (t >= toSeconds)
+                {
+                    break;
+                }
+
+                double d = before.Evaluate(t) - all.Evaluate(t);
+                if (hasPrevious && ((d > 0) != (previous > 0)))
+                {
+                    crossingSeconds = t;
+                    found = true;
+                }
+
+                previous = d;
+                hasPrevious = true;
+            }
+
+            return found;
+        }
+
+        // Residuals of the middle readings from a baseline that is `early` before switchSeconds and `late` from then on;
+        // the tracker is re-anchored on `late`.
+        private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, QuadraticFit early, QuadraticFit late, double switchSeconds, int minReadings, ExcursionVerdict into)
+        {
+            Anchor(late, sigmaHz, into);
             double threshold = thresholdSigma * sigmaHz;
             double release = releaseSigma * sigmaHz;
             bool found = false;
             bool positive = false;
             bool negative = false;
             double peak = 0;
+            int beyond = 0;
             for (int i = FirstAtOrAfter(history, middleFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
@@ -288,11 +379,12 @@ namespace FreqReadout.Readout
                     continue;
                 }
 
-                double baseline = sides.Evaluate(t);
+                double baseline = t < switchSeconds ? early.Evaluate(t) : late.Evaluate(t);
                 double r = history.ValueAt(i) - baseline;
                 double size = ScalarMath.Abs(r);
                 if (size >= threshold)
                 {
+                    beyond++;
                     if (!found)
                     {
                         found = true;
@@ -324,7 +416,7 @@ namespace FreqReadout.Readout
 
             into.PeakCountedHz = peak;
             into.MixedSign = positive && negative;
-            into.Kind = found ? ExcursionVerdict.Pass : ExcursionVerdict.NoTarget;
+            into.Kind = found && beyond >= minReadings ? ExcursionVerdict.Pass : ExcursionVerdict.NoTarget;
         }
     }
 }

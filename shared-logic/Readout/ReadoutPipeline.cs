@@ -508,7 +508,7 @@ namespace FreqReadout.Readout
             double releaseSigma = settings.ThresholdSigma - settings.HysteresisSigma;
             double age = t - detector.StartSeconds + TimeEpsilonSeconds;
             bool allowDrift = age >= settings.LockCheckSeconds;
-            bool allowPass = age < 2.0 * settings.LockCheckSeconds;
+            bool allowPass = age < 3.0 * settings.LockCheckSeconds;
             if (!allowPass && !allowDrift)
             {
                 return false;

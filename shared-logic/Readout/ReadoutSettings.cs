@@ -78,7 +78,7 @@ namespace FreqReadout.Readout
         /// <summary>fit_window_s: target-free readings before a candidate that the local quadratic baseline is fitted to, [1, 600]. Default 8 s (the curvature of a shorter window is too uncertain to extrapolate across a pass).</summary>
         public double FitWindowSeconds { get; set; } = 8.0;
 
-        /// <summary>history_gates: recent readings kept for deciding a candidate afterwards (baseline on both sides of it), [64, 16384]. Default 256: 25.6 s of 0.1 s gates, enough for fit_window_s + 2 lock_check_s + 2 s at the defaults (with shorter gates raise it, or the decision falls back to the causal tracker for want of readings before a candidate). The decision costs O(history_gates) when it runs, at most every 0.2 s while a candidate is open.</summary>
+        /// <summary>history_gates: recent readings kept for deciding a candidate afterwards (baseline on both sides of it), [64, 16384]. Default 256: 25.6 s of 0.1 s gates, enough for fit_window_s + 3 lock_check_s + 2 s at the defaults (with shorter gates raise it, or the decision falls back to the causal tracker for want of readings before a candidate). The decision costs O(history_gates) when it runs, at most every 0.2 s while a candidate is open.</summary>
         public int HistoryGates { get; set; } = 256;
 
         /// <summary>beat_floor_hz: in beat mode a beat note below this is flagged and its sign unclear, [0, 1e9]. Default 50 Hz.</summary>
