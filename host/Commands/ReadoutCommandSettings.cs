@@ -95,7 +95,7 @@ public class ReadoutCommandSettings : CounterOptionSettings
     public string? FitWindowSeconds { get; set; }
 
     [CommandOption("--history-gates <N>")]
-    [Description("Recent readings kept to decide a candidate from both sides of it, an integer in [[64, 16384]]; they should span --fit-window-s + 2 x --lock-check-s + 2 s, so raise it for short gates. Default 256.")]
+    [Description("Recent readings kept to decide a candidate from both sides of it, an integer in [[64, 16384]]; they should span --fit-window-s + 3 x --lock-check-s + 2 s, so raise it for short gates. Default 256.")]
     public string? HistoryGates { get; set; }
 
     [CommandOption("--beat-floor-hz <HZ>")]
