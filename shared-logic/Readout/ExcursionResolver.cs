@@ -36,10 +36,11 @@ namespace FreqReadout.Readout
     /// pass came while it was lost. Before drift is declared, the readings before the drift window are searched
     /// for that pass: (3) the pass test of (1) with the drift window as the after side (a slow pass whose tail
     /// outlasted the pass test, the tracker's forecast having wandered meanwhile); (4) a pass across a change of
-    /// drift rate: the baseline is Q_b up to where Q_b and the drift window's quadratic cross (the frequency is
-    /// continuous at a kink) and the drift window's quadratic after it; none crossing in the middle: no kink. A
-    /// pass with at least two readings of the middle at k_t sigma from that baseline is reported as in (1) (end
-    /// Resolved); otherwise drift.
+    /// drift rate: the baseline is the old drift going on with a new rate added from a kink time t_k,
+    /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
+    /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k is taken for the kink's own
+    /// timing error (a kink placed dt off leaves db dt), not a pass. A pass with at least two readings of the middle
+    /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -66,9 +67,17 @@ namespace FreqReadout.Readout
         // bridged across a gap (or a kink) is not evidence enough.
         private const int LateMinReadings = 2;
 
+        // Step of the kink times tried by (4), s.
+        private const double KinkStepSeconds = 0.05;
+
+        // A peak this close to the kink found by (4) is taken for the error of the kink's time, not a pass, s: where the
+        // drift rate changes by db, a kink placed dt off leaves a residual of db dt.
+        private const double KinkGuardSeconds = 0.3;
+
         private readonly QuadraticFit before = new QuadraticFit();
         private readonly QuadraticFit sides = new QuadraticFit();
         private readonly QuadraticFit all = new QuadraticFit();
+        private readonly KinkFit kink = new KinkFit();
         private double beforeCenterSeconds;
         private double driftFromSeconds;
 
@@ -163,7 +172,7 @@ namespace FreqReadout.Readout
 
             if (allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
             {
-                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, 1, into);
+                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, 1, into);
                 return;
             }
 
@@ -172,20 +181,20 @@ namespace FreqReadout.Readout
                 // (3) A slow pass whose tail outlasted the pass test: the drift window itself is the after side.
                 if (driftFrom > middleFrom && FillSides(history, beforeFrom, middleFrom, driftFrom) >= MinAfterReadings && sides.TrySolve() && SidesAgree(history, driftFrom, sigmaHz, releaseSigma))
                 {
-                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, LateMinReadings, into);
+                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, LateMinReadings, into);
                     if (into.Kind == ExcursionVerdict.Pass)
                     {
                         return;
                     }
                 }
 
-                // (4) A pass across a change of drift rate: the baseline is the fit before the candidate up to where it
-                // meets the new drift's fit, and the new drift's fit after that (the frequency is continuous at a kink).
-                double kinkSeconds;
-                if (driftFrom > middleFrom && TryFindCrossing(history, middleFrom, driftFrom, out kinkSeconds))
+                // (4) A pass across a change of drift rate: the old drift goes on and a new rate adds to it from a kink
+                // (KinkFit, fitted to the readings before the candidate and the drift window; the kink's time is the
+                // one that fits them best).
+                if (driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
                 {
-                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, before, all, kinkSeconds, LateMinReadings, into);
-                    if (into.Kind == ExcursionVerdict.Pass)
+                    FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, all, all, double.MaxValue, kink, LateMinReadings, into);
+                    if (into.Kind == ExcursionVerdict.Pass && ScalarMath.Abs(into.PeakSeconds - kink.KinkSeconds) > KinkGuardSeconds)
                     {
                         return;
                     }
@@ -329,39 +338,39 @@ namespace FreqReadout.Readout
             return n > 0 && sumSquares / n < 2.0 * sigmaHz * sigmaHz;
         }
 
-        // The latest time in [from, to) at which the fit before the candidate and the new drift's fit cross (between two
-        // readings where their difference changes sign); false when they do not cross there.
-        private bool TryFindCrossing(ReadingHistory history, double fromSeconds, double toSeconds, out double crossingSeconds)
+        // Fills the kink fit: non-excluded readings of [beforeFrom, middleFrom) early, non-excluded readings from
+        // driftFrom late; false when either side has too few.
+        private bool FillKink(ReadingHistory history, double beforeFrom, double middleFrom, double driftFrom, double nowSeconds)
         {
-            crossingSeconds = 0;
-            bool found = false;
-            bool hasPrevious = false;
-            double previous = 0;
-            for (int i = FirstAtOrAfter(history, fromSeconds); i < history.Count; i++)
+            kink.Clear(nowSeconds);
+            int early = 0;
+            int late = 0;
+            for (int i = FirstAtOrAfter(history, beforeFrom); i < history.Count; i++)
             {
+                if (history.IsExcluded(i))
+                {
+                    continue;
+                }
+
                 double t = history.TimeAt(i);
-                if (t >= toSeconds)
+                if (t < middleFrom)
                 {
-                    break;
+                    kink.AddEarly(t, history.ValueAt(i));
+                    early++;
                 }
-
-                double d = before.Evaluate(t) - all.Evaluate(t);
-                if (hasPrevious && ((d > 0) != (previous > 0)))
+                else if (t >= driftFrom)
                 {
-                    crossingSeconds = t;
-                    found = true;
+                    kink.AddLate(t, history.ValueAt(i));
+                    late++;
                 }
-
-                previous = d;
-                hasPrevious = true;
             }
 
-            return found;
+            return early >= MinBeforeReadings && late >= MinAfterReadings;
         }
 
         // Residuals of the middle readings from a baseline that is `early` before switchSeconds and `late` from then on;
         // the tracker is re-anchored on `late`.
-        private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, QuadraticFit early, QuadraticFit late, double switchSeconds, int minReadings, ExcursionVerdict into)
+        private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, QuadraticFit early, QuadraticFit late, double switchSeconds, KinkFit kinkBaseline, int minReadings, ExcursionVerdict into)
         {
             Anchor(late, sigmaHz, into);
             double threshold = thresholdSigma * sigmaHz;
@@ -379,7 +388,7 @@ namespace FreqReadout.Readout
                     continue;
                 }
 
-                double baseline = t < switchSeconds ? early.Evaluate(t) : late.Evaluate(t);
+                double baseline = kinkBaseline != null ? kinkBaseline.Evaluate(t) : (t < switchSeconds ? early.Evaluate(t) : late.Evaluate(t));
                 double r = history.ValueAt(i) - baseline;
                 double size = ScalarMath.Abs(r);
                 if (size >= threshold)

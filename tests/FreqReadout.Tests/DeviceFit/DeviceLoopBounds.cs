@@ -74,7 +74,8 @@ internal static class DeviceLoopBounds
         new("ExcursionResolver.Smooth", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
         new("ExcursionResolver.FillPass", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
         new("ExcursionResolver.FillSides", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
-        new("ExcursionResolver.TryFindCrossing", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("ExcursionResolver.FillKink", 0, "count <= HistoryGates", HistoryGatesDefault, HistoryGatesLimit),
+        new("KinkFit.TrySolve", 0, "steps + 1 <= KinkFit.MaxSteps + 1 (kink times tried)", 401, 401),
 
         // ScalarMath: bounds from the range of double (largest 2^1024, smallest subnormal 2^-1074) and the code's own constants.
         new("ScalarMath.Sqrt", 0, "m < 2^1024 scaled by 2^-64 per pass while m >= 2^64: 1024 / 64 = 16", 16, 16),
