@@ -40,7 +40,9 @@ namespace FreqReadout.Readout
     /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
     /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k is taken for the kink's own
     /// timing error (a kink placed dt off leaves db dt), not a pass. A pass with at least two readings of the middle
-    /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift.
+    /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
+    /// middle may hold more than one pass (a lock loss can last through several): excursions separated by more than
+    /// 0.5 s below k_r sigma are separate passes, up to <see cref="ExcursionVerdict.MaxPasses"/>, each its own event.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -70,6 +72,10 @@ namespace FreqReadout.Readout
         // Step of the kink times tried by (4), s.
         private const double KinkStepSeconds = 0.05;
 
+        // Two excursions of the middle further apart than this (below the release level in between) are two passes, s
+        // (the gap at which events are merged, EventMerger).
+        private const double SegmentGapSeconds = 0.5;
+
         // A peak this close to the kink found by (4) is taken for the error of the kink's time, not a pass, s: where the
         // drift rate changes by db, a kink placed dt off leaves a residual of db dt.
         private const double KinkGuardSeconds = 0.3;
@@ -78,6 +84,15 @@ namespace FreqReadout.Readout
         private readonly QuadraticFit sides = new QuadraticFit();
         private readonly QuadraticFit all = new QuadraticFit();
         private readonly KinkFit kink = new KinkFit();
+        private bool open;
+        private double segmentStart;
+        private double segmentEnd;
+        private int segmentBeyond;
+        private double largestPositive;
+        private double largestNegative;
+        private double segmentPeak;
+        private double segmentPeakSeconds;
+        private double segmentPeakBaseline;
         private double beforeCenterSeconds;
         private double driftFromSeconds;
 
@@ -194,7 +209,7 @@ namespace FreqReadout.Readout
                 if (driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
                 {
                     FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, all, all, double.MaxValue, kink, LateMinReadings, into);
-                    if (into.Kind == ExcursionVerdict.Pass && ScalarMath.Abs(into.PeakSeconds - kink.KinkSeconds) > KinkGuardSeconds)
+                    if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, into))
                     {
                         return;
                     }
@@ -373,13 +388,10 @@ namespace FreqReadout.Readout
         private void FillPass(ReadingHistory history, double middleFrom, double afterFrom, double sigmaHz, double thresholdSigma, double releaseSigma, QuadraticFit early, QuadraticFit late, double switchSeconds, KinkFit kinkBaseline, int minReadings, ExcursionVerdict into)
         {
             Anchor(late, sigmaHz, into);
+            into.PassCount = 0;
             double threshold = thresholdSigma * sigmaHz;
             double release = releaseSigma * sigmaHz;
-            bool found = false;
-            bool positive = false;
-            bool negative = false;
-            double peak = 0;
-            int beyond = 0;
+            open = false;
             for (int i = FirstAtOrAfter(history, middleFrom); i < history.Count; i++)
             {
                 double t = history.TimeAt(i);
@@ -391,41 +403,130 @@ namespace FreqReadout.Readout
                 double baseline = kinkBaseline != null ? kinkBaseline.Evaluate(t) : (t < switchSeconds ? early.Evaluate(t) : late.Evaluate(t));
                 double r = history.ValueAt(i) - baseline;
                 double size = ScalarMath.Abs(r);
-                if (size >= threshold)
+                if (open && size < release && t - segmentEnd > SegmentGapSeconds)
                 {
-                    beyond++;
-                    if (!found)
+                    CloseSegment(minReadings, into);
+                }
+
+                if (!open)
+                {
+                    if (size < threshold)
                     {
-                        found = true;
-                        into.StartSeconds = t;
+                        continue;
                     }
 
+                    open = true;
+                    segmentStart = t;
+                    segmentEnd = t;
+                    segmentBeyond = 0;
+                    largestPositive = 0;
+                    largestNegative = 0;
+                    segmentPeak = 0;
+                }
+
+                if (size >= threshold)
+                {
+                    segmentBeyond++;
                     if (r > 0)
                     {
-                        positive = true;
+                        largestPositive = ScalarMath.Max(largestPositive, r);
                     }
                     else
                     {
-                        negative = true;
+                        largestNegative = ScalarMath.Max(largestNegative, -r);
                     }
                 }
 
-                if (found && size >= release)
+                if (size >= release)
                 {
-                    into.EndSeconds = t;
+                    segmentEnd = t;
                 }
 
-                if (size > ScalarMath.Abs(peak))
+                if (size > ScalarMath.Abs(segmentPeak))
                 {
-                    peak = r;
-                    into.PeakSeconds = t;
-                    into.PeakBaselineHz = baseline;
+                    segmentPeak = r;
+                    segmentPeakSeconds = t;
+                    segmentPeakBaseline = baseline;
                 }
             }
 
-            into.PeakCountedHz = peak;
-            into.MixedSign = positive && negative;
-            into.Kind = found && beyond >= minReadings ? ExcursionVerdict.Pass : ExcursionVerdict.NoTarget;
+            if (open)
+            {
+                CloseSegment(minReadings, into);
+            }
+
+            if (into.PassCount == 0)
+            {
+                into.Kind = ExcursionVerdict.NoTarget;
+                return;
+            }
+
+            into.Kind = ExcursionVerdict.Pass;
+            into.StartSeconds = into.PassStartSeconds[0];
+            into.EndSeconds = into.PassEndSeconds[0];
+            into.PeakSeconds = into.PassPeakSeconds[0];
+            into.PeakCountedHz = into.PassPeakCountedHz[0];
+            into.PeakBaselineHz = into.PassPeakBaselineHz[0];
+            into.MixedSign = into.PassMixedSign[0];
+        }
+
+        // Drops the passes whose peak lies within KinkGuardSeconds of the kink; true when any pass is left (the first
+        // one's fields are then copied to the verdict's single-pass fields).
+        private static bool DropPassesNear(double kinkSeconds, ExcursionVerdict into)
+        {
+            int kept = 0;
+            for (int k = 0; k < into.PassCount; k++)
+            {
+                if (ScalarMath.Abs(into.PassPeakSeconds[k] - kinkSeconds) <= KinkGuardSeconds)
+                {
+                    continue;
+                }
+
+                into.PassStartSeconds[kept] = into.PassStartSeconds[k];
+                into.PassEndSeconds[kept] = into.PassEndSeconds[k];
+                into.PassPeakSeconds[kept] = into.PassPeakSeconds[k];
+                into.PassPeakCountedHz[kept] = into.PassPeakCountedHz[k];
+                into.PassPeakBaselineHz[kept] = into.PassPeakBaselineHz[k];
+                into.PassMixedSign[kept] = into.PassMixedSign[k];
+                kept++;
+            }
+
+            into.PassCount = kept;
+            if (kept == 0)
+            {
+                return false;
+            }
+
+            into.StartSeconds = into.PassStartSeconds[0];
+            into.EndSeconds = into.PassEndSeconds[0];
+            into.PeakSeconds = into.PassPeakSeconds[0];
+            into.PeakCountedHz = into.PassPeakCountedHz[0];
+            into.PeakBaselineHz = into.PassPeakBaselineHz[0];
+            into.MixedSign = into.PassMixedSign[0];
+            return true;
+        }
+
+        // One excursion of the middle ends: kept as a pass when it has minReadings beyond the threshold (and there is
+        // room). Mixed signs: a reading of each sign beyond the threshold; from a baseline bridged across a gap or a kink
+        // (minReadings > 1) the smaller side must also reach half the larger, since such a baseline leaves small
+        // excursions of either sign of its own.
+        private void CloseSegment(int minReadings, ExcursionVerdict into)
+        {
+            open = false;
+            if (segmentBeyond < minReadings || into.PassCount >= ExcursionVerdict.MaxPasses)
+            {
+                return;
+            }
+
+            int k = into.PassCount;
+            into.PassStartSeconds[k] = segmentStart;
+            into.PassEndSeconds[k] = segmentEnd;
+            into.PassPeakSeconds[k] = segmentPeakSeconds;
+            into.PassPeakCountedHz[k] = segmentPeak;
+            into.PassPeakBaselineHz[k] = segmentPeakBaseline;
+            bool both = largestPositive > 0 && largestNegative > 0;
+            into.PassMixedSign[k] = both && (minReadings <= 1 || ScalarMath.Min(largestPositive, largestNegative) >= 0.5 * ScalarMath.Max(largestPositive, largestNegative));
+            into.PassCount = k + 1;
         }
     }
 }

@@ -46,5 +46,29 @@ namespace FreqReadout.Readout
 
         /// <summary>Pass: readings beyond the threshold had both signs.</summary>
         public bool MixedSign;
+
+        /// <summary>Most passes one verdict holds (a lock loss can hide several).</summary>
+        public const int MaxPasses = 4;
+
+        /// <summary>Pass: how many passes the middle held (1 to <see cref="MaxPasses"/>; the fields above are the first's).</summary>
+        public int PassCount;
+
+        /// <summary>Pass: each pass's first reading at or above the threshold, s.</summary>
+        public readonly double[] PassStartSeconds = new double[MaxPasses];
+
+        /// <summary>Pass: each pass's last reading at or above the release level, s.</summary>
+        public readonly double[] PassEndSeconds = new double[MaxPasses];
+
+        /// <summary>Pass: each pass's reading with the largest |shift|, s.</summary>
+        public readonly double[] PassPeakSeconds = new double[MaxPasses];
+
+        /// <summary>Pass: each pass's signed peak shift of the counted signal from the two-sided baseline, Hz.</summary>
+        public readonly double[] PassPeakCountedHz = new double[MaxPasses];
+
+        /// <summary>Pass: the two-sided baseline at each pass's peak (relative to the origin), Hz.</summary>
+        public readonly double[] PassPeakBaselineHz = new double[MaxPasses];
+
+        /// <summary>Pass: each pass's readings beyond the threshold had both signs.</summary>
+        public readonly bool[] PassMixedSign = new bool[MaxPasses];
     }
 }

@@ -522,27 +522,30 @@ namespace FreqReadout.Readout
 
             if (verdict.Kind == ExcursionVerdict.Pass)
             {
-                double peakShift = sideSign * verdict.PeakCountedHz;
-                double peakSigma = ScalarMath.Abs(peakShift) / sigma;
-                double ppmReference = PpmReferenceHz(originHz + verdict.PeakBaselineHz);
-                bool hasPpm = ppmReference > 0;
                 bool floorSeen = detector.BelowFloorSeen || belowFloorNow;
-                TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.MixedSign);
-                merger.NextSlot().Set(
-                    verdict.StartSeconds,
-                    verdict.EndSeconds,
-                    verdict.PeakSeconds,
-                    peakShift,
-                    hasPpm,
-                    hasPpm ? peakShift / ppmReference * 1e6 : 0.0,
-                    peakSigma,
-                    sigma,
-                    cls,
-                    floorSeen,
-                    verdict.MixedSign,
-                    EventEnd.Resolved);
-                merger.Commit();
-                history.Exclude(verdict.StartSeconds - ExcursionResolver.EdgeMarginSeconds, verdict.EndSeconds);
+                for (int k = 0; k < verdict.PassCount; k++)
+                {
+                    double peakShift = sideSign * verdict.PassPeakCountedHz[k];
+                    double peakSigma = ScalarMath.Abs(peakShift) / sigma;
+                    double ppmReference = PpmReferenceHz(originHz + verdict.PassPeakBaselineHz[k]);
+                    bool hasPpm = ppmReference > 0;
+                    TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.PassMixedSign[k]);
+                    merger.NextSlot().Set(
+                        verdict.PassStartSeconds[k],
+                        verdict.PassEndSeconds[k],
+                        verdict.PassPeakSeconds[k],
+                        peakShift,
+                        hasPpm,
+                        hasPpm ? peakShift / ppmReference * 1e6 : 0.0,
+                        peakSigma,
+                        sigma,
+                        cls,
+                        floorSeen,
+                        verdict.PassMixedSign[k],
+                        EventEnd.Resolved);
+                    merger.Commit();
+                    history.Exclude(verdict.PassStartSeconds[k] - ExcursionResolver.EdgeMarginSeconds, verdict.PassEndSeconds[k]);
+                }
             }
             else if (verdict.Kind == ExcursionVerdict.Drift)
             {
