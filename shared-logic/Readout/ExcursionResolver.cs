@@ -25,7 +25,9 @@ namespace FreqReadout.Readout
     /// reported are skipped); none at k_t: no target.
     /// The pass test runs only while the candidate is younger than 3 lock_check_s (the owner decides): a shift
     /// that has not returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
-    /// (2) Drift (only once the candidate is lock_check_s old): one quadratic fitted to the readings since the
+    /// (2) Drift (only once the candidate is lock_check_s old; sigma here is the larger of the pipeline's and the rms
+    /// noise of the drift window's own third differences, since the running noise was learnt before the candidate and
+    /// a count's scatter changes as its frequency drifts): one quadratic fitted to the readings since the
     /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
     /// below 2 sigma^2, and its curvature differs from the tracker's by no more than a change of drift rate can bring
     /// (|c2 - a_T / 2| &lt;= |c1 - b_T| / (2 tau_min) + 3 sigma sqrt(v); b_T, a_T the tracker's rate and acceleration: a
@@ -71,6 +73,9 @@ namespace FreqReadout.Readout
 
         // Step of the kink times tried by (4), s.
         private const double KinkStepSeconds = 0.05;
+
+        // Newest readings WindowNoise reads at most (the drift window holds 50 readings of 0.1 s gates).
+        private const int WindowNoiseReadings = 67;
 
         // Two excursions of the middle further apart than this (below the release level in between) are two passes, s
         // (the gap at which events are merged, EventMerger).
@@ -180,21 +185,22 @@ namespace FreqReadout.Readout
                 }
             }
 
-            if (before.Count < MinBeforeReadings || afterCount < MinAfterReadings || !before.TrySolve() || !sides.TrySolve())
-            {
-                return;
-            }
-
-            if (allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
+            // The readings before the candidate may have left the history (a lock loss longer than it holds): then only
+            // the drift test runs, and lock is still recovered.
+            bool twoSided = before.Count >= MinBeforeReadings && afterCount >= MinAfterReadings && before.TrySolve() && sides.TrySolve();
+            if (twoSided && allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
             {
                 FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, 1, into);
                 return;
             }
 
-            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(sigmaHz, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, sigmaHz, thresholdSigma))
+            // The drift window is judged with its own noise when that is larger: the running noise was learnt before the
+            // candidate opened, and the scatter of a count changes with the frequency (quantisation), which drifts.
+            double driftSigma = allowDrift ? ScalarMath.Max(sigmaHz, WindowNoise(history, driftFrom)) : sigmaHz;
+            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(driftSigma, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, driftSigma, thresholdSigma))
             {
                 // (3) A slow pass whose tail outlasted the pass test: the drift window itself is the after side.
-                if (driftFrom > middleFrom && FillSides(history, beforeFrom, middleFrom, driftFrom) >= MinAfterReadings && sides.TrySolve() && SidesAgree(history, driftFrom, sigmaHz, releaseSigma))
+                if (twoSided && driftFrom > middleFrom && FillSides(history, beforeFrom, middleFrom, driftFrom) >= MinAfterReadings && sides.TrySolve() && SidesAgree(history, driftFrom, sigmaHz, releaseSigma))
                 {
                     FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, LateMinReadings, into);
                     if (into.Kind == ExcursionVerdict.Pass)
@@ -206,7 +212,7 @@ namespace FreqReadout.Readout
                 // (4) A pass across a change of drift rate: the old drift goes on and a new rate adds to it from a kink
                 // (KinkFit, fitted to the readings before the candidate and the drift window; the kink's time is the
                 // one that fits them best).
-                if (driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
+                if (twoSided && driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
                 {
                     FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, all, all, double.MaxValue, kink, LateMinReadings, into);
                     if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, into))
@@ -219,6 +225,48 @@ namespace FreqReadout.Readout
                 into.StartSeconds = driftFrom;
                 Anchor(all, sigmaHz, into);
             }
+        }
+
+        // Noise of the readings from a time on: sqrt(mean d^2 / 20) over the third differences d = x_k - 3 x_(k-1) +
+        // 3 x_(k-2) - x_(k-3) of consecutive non-excluded readings (they cancel a quadratic drift; for white noise
+        // Var d = 20 sigma^2); an rms, as the mean-square test it serves; 0 with fewer than MinBeforeReadings of them.
+        // Only the newest WindowNoiseReadings readings are read (the device's decision gate stays short).
+        private static double WindowNoise(ReadingHistory history, double fromSeconds)
+        {
+            int run = 0;
+            int n = 0;
+            double sum = 0;
+            double x1 = 0;
+            double x2 = 0;
+            double x3 = 0;
+            int first = FirstAtOrAfter(history, fromSeconds);
+            int newest = history.Count - WindowNoiseReadings;
+            for (int i = first > newest ? first : newest; i < history.Count; i++)
+            {
+                if (history.IsExcluded(i))
+                {
+                    run = 0;
+                    continue;
+                }
+
+                double x = history.ValueAt(i);
+                if (run >= 3)
+                {
+                    double d = x - (3.0 * x1) + (3.0 * x2) - x3;
+                    sum += d * d;
+                    n++;
+                }
+
+                x3 = x2;
+                x2 = x1;
+                x1 = x;
+                if (run < 3)
+                {
+                    run++;
+                }
+            }
+
+            return n >= MinBeforeReadings ? ScalarMath.Sqrt(sum / (20.0 * n)) : 0.0;
         }
 
         // Refits the two-sided quadratic to the non-excluded readings of [beforeFrom, middleFrom) and all readings after
