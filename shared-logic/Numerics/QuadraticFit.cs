@@ -77,6 +77,30 @@ namespace FreqReadout.Numerics
             get { return i11; }
         }
 
+        /// <summary>Cov(c0, c1) / sigma^2 of the last solve (0 before a successful solve).</summary>
+        public double ValueSlopeCovarianceFactor
+        {
+            get { return i01; }
+        }
+
+        /// <summary>Cov(c0, c2) / sigma^2 of the last solve (0 before a successful solve).</summary>
+        public double ValueCurvatureCovarianceFactor
+        {
+            get { return i02; }
+        }
+
+        /// <summary>Cov(c1, c2) / sigma^2 of the last solve (0 before a successful solve).</summary>
+        public double SlopeCurvatureCovarianceFactor
+        {
+            get { return i12; }
+        }
+
+        /// <summary>The time origin of u, s.</summary>
+        public double OriginSeconds
+        {
+            get { return origin; }
+        }
+
         /// <summary>Forgets the points and sets the time origin.</summary>
         public void Clear(double originSeconds)
         {

@@ -510,16 +510,9 @@ namespace FreqReadout.Readout
             }
 
             into.Kind = ExcursionVerdict.Pass;
-            into.StartSeconds = into.PassStartSeconds[0];
-            into.EndSeconds = into.PassEndSeconds[0];
-            into.PeakSeconds = into.PassPeakSeconds[0];
-            into.PeakCountedHz = into.PassPeakCountedHz[0];
-            into.PeakBaselineHz = into.PassPeakBaselineHz[0];
-            into.MixedSign = into.PassMixedSign[0];
         }
 
-        // Drops the passes whose peak lies within KinkGuardSeconds of the kink; true when any pass is left (the first
-        // one's fields are then copied to the verdict's single-pass fields).
+        // Drops the passes whose peak lies within KinkGuardSeconds of the kink; true when any pass is left.
         private static bool DropPassesNear(double kinkSeconds, ExcursionVerdict into)
         {
             int kept = 0;
@@ -540,18 +533,7 @@ namespace FreqReadout.Readout
             }
 
             into.PassCount = kept;
-            if (kept == 0)
-            {
-                return false;
-            }
-
-            into.StartSeconds = into.PassStartSeconds[0];
-            into.EndSeconds = into.PassEndSeconds[0];
-            into.PeakSeconds = into.PassPeakSeconds[0];
-            into.PeakCountedHz = into.PassPeakCountedHz[0];
-            into.PeakBaselineHz = into.PassPeakBaselineHz[0];
-            into.MixedSign = into.PassMixedSign[0];
-            return true;
+            return kept > 0;
         }
 
         // One excursion of the middle ends: kept as a pass when it has minReadings beyond the threshold (and there is

@@ -29,28 +29,13 @@ namespace FreqReadout.Readout
         /// <summary>1-sigma uncertainty of <see cref="AccelerationHzPerSecond2"/> from the fit, Hz/s^2.</summary>
         public double AccelerationSigmaHzPerSecond2;
 
-        /// <summary>Pass: first reading at or above the threshold; Drift: start of the window the new drift was fitted to, s.</summary>
+        /// <summary>Drift: start of the window the new drift was fitted to, s.</summary>
         public double StartSeconds;
-
-        /// <summary>Pass: last reading at or above the release level, s.</summary>
-        public double EndSeconds;
-
-        /// <summary>Pass: reading with the largest |shift|, s.</summary>
-        public double PeakSeconds;
-
-        /// <summary>Pass: signed peak shift of the counted signal from the two-sided baseline, Hz.</summary>
-        public double PeakCountedHz;
-
-        /// <summary>Pass: the two-sided baseline at the peak (relative to the origin), Hz.</summary>
-        public double PeakBaselineHz;
-
-        /// <summary>Pass: readings beyond the threshold had both signs.</summary>
-        public bool MixedSign;
 
         /// <summary>Most passes one verdict holds (a lock loss can hide several).</summary>
         public const int MaxPasses = 4;
 
-        /// <summary>Pass: how many passes the middle held (1 to <see cref="MaxPasses"/>; the fields above are the first's).</summary>
+        /// <summary>Pass: how many passes the middle held (1 to <see cref="MaxPasses"/>), in time order.</summary>
         public int PassCount;
 
         /// <summary>Pass: each pass's first reading at or above the threshold, s.</summary>
