@@ -45,7 +45,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string[]? HoldSpans { get; set; }
 
         [CommandOption("--unclear-band-sigma <SIGMA>")]
-        [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 1.")]
+        [Description("Peaks below threshold + band are classed unclear, [[0, 1000]]. Default 0.5.")]
         public string? UnclearBandSigma { get; set; }
 
         [CommandOption("--polarity <NAME>")]
