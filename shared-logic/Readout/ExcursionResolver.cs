@@ -29,10 +29,11 @@ namespace FreqReadout.Readout
     /// noise of the drift window's own third differences, since the running noise was learnt before the candidate and
     /// a count's scatter changes as its frequency drifts): one quadratic fitted to the readings since the
     /// candidate opened (at most 2 lock_check_s back) leaves every residual below k_t sigma and a mean square
-    /// below 2 sigma^2, and its curvature differs from the tracker's by no more than a change of drift rate can bring
-    /// (|c2 - a_T / 2| &lt;= |c1 - b_T| / (2 tau_min) + 3 sigma sqrt(v); b_T, a_T the tracker's rate and acceleration: a
-    /// new settling of time constant tau bends by its rate over 2 tau, while the rising or falling edge of a pass bends
-    /// far more than its slope over a minute): a
+    /// below 2 sigma^2, and its curvature differs from the tracker's, or from none at all, by no more than a change of
+    /// drift rate can bring (min(|c2 - a_T / 2|, |c2|) &lt;= |c1 - b_T| / (2 tau_min) + 3 sigma sqrt(v); b_T, a_T the
+    /// tracker's rate and acceleration: a new settling of time constant tau bends by its rate over 2 tau, while the rising
+    /// or falling edge of a pass bends far more than its slope over a minute; a straight new ramp is always plausible,
+    /// whatever bend the tracker had wrongly learnt): a
     /// smooth change of drift rate, not a pass; and its slope differs from the tracker's by more than 3 sigma
     /// of the fitted slope (a level shift that stays, a step, keeps the old rate and stays a target). The window slides with time, so lock is recovered even when a
     /// pass came while it was lost. Before drift is declared, the readings before the drift window are searched
@@ -370,7 +371,9 @@ namespace FreqReadout.Readout
         private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
         {
             double slopeChange = ScalarMath.Abs(all.Slope - trackerSlopeHzPerSecond);
-            double curvatureChange = ScalarMath.Abs(all.HalfCurvature - (0.5 * trackerAccelerationHzPerSecond2));
+            // Against the tracked bend, or against none at all: a new straight ramp is always a plausible drift, and the
+            // tracked bend may itself be what went wrong.
+            double curvatureChange = ScalarMath.Min(ScalarMath.Abs(all.HalfCurvature - (0.5 * trackerAccelerationHzPerSecond2)), ScalarMath.Abs(all.HalfCurvature));
             double allowed = (slopeChange / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
             return curvatureChange <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(all.SlopeVarianceFactor);
         }

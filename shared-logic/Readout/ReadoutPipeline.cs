@@ -47,6 +47,13 @@ namespace FreqReadout.Readout
         private const double CurvedNoiseRatio = 0.7;
         private const int MinForecastSamples = 20;
 
+        // A run of target-free forecast errors that leans to one side (ForecastRunMonitor: the mean of 5 beyond
+        // LeanSigma of its own scatter) is not fed to the tracker: it is a weak pass below the threshold, or drift the
+        // tracker does not follow, which the detector and the two-sided check handle. At most MaxHeldReadings in a row
+        // (3 s at 0.1 s gates, the longest pass) are held back, so a small level shift that stays is followed in the end.
+        private const double LeanSigma = 4.0;
+        private const int MaxHeldReadings = 30;
+
         // A pass rises below the threshold before it is seen: when a candidate opens, the tracker returns to its
         // state from EdgeRewindSeconds before the candidate's first reading (snapshots after every fed reading,
         // SnapshotCount at most), and after an event as long is skipped, so neither flank of a slow pass is learnt.
@@ -67,6 +74,7 @@ namespace FreqReadout.Readout
         private readonly BaselineCapture capture;
         private readonly MedianWindow noiseWindow;
         private readonly MedianWindow forecastWindow;
+        private readonly ForecastRunMonitor runMonitor;
         private readonly TargetDetector detector;
         private readonly DetectionEventQueue events;
         private readonly EventMerger merger;
@@ -130,6 +138,7 @@ namespace FreqReadout.Readout
         private double lastTimeSeconds;
         private double lastSpanSeconds;
         private int fedRun;
+        private int heldRun;
         private double fedTimeSeconds;
         private double fed1;
         private double fed2;
@@ -165,6 +174,7 @@ namespace FreqReadout.Readout
             capture = new BaselineCapture(settings.BaselineMaxGates);
             noiseWindow = new MedianWindow(settings.NoiseWindowGates);
             forecastWindow = new MedianWindow(settings.NoiseWindowGates);
+            runMonitor = new ForecastRunMonitor(settings.NoiseWindowGates);
             detector = new TargetDetector(new DetectorConfiguration(settings.ThresholdSigma, settings.HysteresisSigma, settings.MinDurationSeconds, settings.ReleaseSeconds, settings.UnclearBandSigma, settings.Polarity));
             events = new DetectionEventQueue(QueueCapacity);
             merger = new EventMerger(events);
@@ -786,6 +796,7 @@ namespace FreqReadout.Readout
 
             noiseWindow.Clear();
             forecastWindow.Clear();
+            runMonitor.Clear();
             fedRun = 0;
             capture.CopyAbsoluteThirdDifferences(noiseWindow, ThirdDifferenceScale);
             runningNoiseHz = noiseWindow.Count >= MinCaptureGates ? RobustStatistics.MadToSigma * noiseWindow.Median() : noise;
@@ -937,6 +948,8 @@ namespace FreqReadout.Readout
 
         private void ClearDelayLine()
         {
+            runMonitor.ClearRun();
+            heldRun = 0;
             snapshotCount = 0;
             delayHead = 0;
             delayCount = 0;
@@ -990,7 +1003,25 @@ namespace FreqReadout.Readout
         // predicted for this reading when it arrived, noise the measurement sigma then.
         private void Feed(double t, double span, double x, double forecast, double forecastVariance, double noise, bool regular)
         {
-            tracker.Learn(x - forecast, forecastVariance + (noise * noise), noise, span);
+            if (regular)
+            {
+                runMonitor.Add(t, span, x - forecast);
+            }
+
+            // A leaning run (see LeanSigma) is held back from the tracker, and never teaches it a larger jerk density.
+            bool leans = runMonitor.Leans(LeanSigma, MinForecastSamples);
+            heldRun = leans ? heldRun + 1 : 0;
+            if (leans && heldRun <= MaxHeldReadings)
+            {
+                TakeSnapshot();
+                AddNoiseSample(t, span, x);
+                return;
+            }
+
+            if (!leans)
+            {
+                tracker.Learn(x - forecast, forecastVariance + (noise * noise), noise, span);
+            }
             if (regular)
             {
                 forecastWindow.Add(ScalarMath.Abs(x - forecast));

@@ -36,6 +36,7 @@ internal static class DeviceLoopBounds
         new("ReadoutPipeline.StartTrackerOnCapture", 0, "capture.Count <= BaselineMaxGates (the tracker runs once over the capture's gates)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
         // Running noise median: two indexed heaps of at most NoiseWindowGates slots; a sift moves one level per pass.
+        new("ForecastRunMonitor.Add", 0, "Readings = 5 (the re-sum once a lap)", 5, 5),
         new("MedianWindow.LowSiftUp", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
         new("MedianWindow.LowSiftDown", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
         new("MedianWindow.HighSiftUp", 0, "heap depth floor(log2 NoiseWindowGates) + 1", Log2NoiseDefault + 1, Log2NoiseLimit + 1),
