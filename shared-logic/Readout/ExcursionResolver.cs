@@ -41,8 +41,9 @@ namespace FreqReadout.Readout
     /// outlasted the pass test, the tracker's forecast having wandered meanwhile); (4) a pass across a change of
     /// drift rate: the baseline is the old drift going on with a new rate added from a kink time t_k,
     /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
-    /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k is taken for the kink's own
-    /// timing error (a kink placed dt off leaves db dt), not a pass. A pass with at least two readings of the middle
+    /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k and no larger than
+    /// 2 |db| 0.3 s + k_t sigma is taken for the kink's own timing error (a kink placed dt off leaves db dt), not a pass (a
+    /// larger one is a pass that pulled the fitted kink onto itself). A pass with at least two readings of the middle
     /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
     /// middle may hold more than one pass (a lock loss can last through several): excursions separated by more than
     /// 0.5 s below k_r sigma are separate passes, up to <see cref="ExcursionVerdict.MaxPasses"/>, each its own event.
@@ -216,7 +217,7 @@ namespace FreqReadout.Readout
                 if (twoSided && driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
                 {
                     FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, all, all, double.MaxValue, kink, LateMinReadings, into);
-                    if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, into))
+                    if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, (2.0 * ScalarMath.Abs(kink.RateChange) * KinkGuardSeconds) + (thresholdSigma * sigmaHz), into))
                     {
                         return;
                     }
@@ -515,13 +516,14 @@ namespace FreqReadout.Readout
             into.Kind = ExcursionVerdict.Pass;
         }
 
-        // Drops the passes whose peak lies within KinkGuardSeconds of the kink; true when any pass is left.
-        private static bool DropPassesNear(double kinkSeconds, ExcursionVerdict into)
+        // Drops the passes whose peak lies within KinkGuardSeconds of the kink and is no larger than the kink's timing error
+        // can leave (timingErrorHz); true when any pass is left.
+        private static bool DropPassesNear(double kinkSeconds, double timingErrorHz, ExcursionVerdict into)
         {
             int kept = 0;
             for (int k = 0; k < into.PassCount; k++)
             {
-                if (ScalarMath.Abs(into.PassPeakSeconds[k] - kinkSeconds) <= KinkGuardSeconds)
+                if (ScalarMath.Abs(into.PassPeakSeconds[k] - kinkSeconds) <= KinkGuardSeconds && ScalarMath.Abs(into.PassPeakCountedHz[k]) <= timingErrorHz)
                 {
                     continue;
                 }

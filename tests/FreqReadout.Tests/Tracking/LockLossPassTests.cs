@@ -32,4 +32,35 @@ public class LockLossPassTests
         // The drift itself makes no other event.
         Assert.Equal(2, run.Events.Count);
     }
+
+    // A pass centred right on a sudden change of drift rate pulls the fitted kink time onto itself; a peak that close to
+    // the kink was once taken for the kink's own timing error (a kink placed dt off leaves db dt) and dropped, whatever
+    // its size. Now only a peak no larger than that error can be (2 |db| 0.3 s + the threshold) is dropped. Before the
+    // fix 1 of these 24 was found; now all are (synthetic gates, invented: noise 0.01 Hz, pass 4 s wide).
+    [Theory]
+    [InlineData(0.5, 0.1)]
+    [InlineData(0.5, 0.3)]
+    [InlineData(0.5, -0.3)]
+    [InlineData(2.0, 0.1)]
+    [InlineData(2.0, 0.3)]
+    [InlineData(2.0, -0.3)]
+    public void A_pass_centred_on_a_drift_rate_onset_is_reported(double peakHz, double rateHzPerSecond)
+    {
+        for (int seed = 1; seed <= 4; seed++)
+        {
+            var stream = new SyntheticGateStream
+            {
+                NoiseHz = 0.01,
+                Seed = seed,
+                DurationSeconds = 45,
+                DriftHz = t => t > 20.0 ? rateHzPerSecond * (t - 20.0) : 0.0,
+            };
+            stream.Passes.Add(new TargetPass(20.0, 4.0, peakHz));
+            PipelineRun run = PipelineRun.Of(stream);
+
+            Assert.True(
+                run.Events.Any(e => Math.Abs(e.PeakSeconds - 20.0) < 1.0 && e.Class == TargetClass.NonFerrous),
+                $"seed {seed}: events " + string.Join("; ", run.Events.Select(e => $"{e.PeakSeconds:F1} s {e.PeakShiftHz:F3} Hz {e.Class}")));
+        }
+    }
 }
