@@ -49,10 +49,11 @@ namespace FreqReadout.Readout
 
         // A run of target-free forecast errors that leans to one side (ForecastRunMonitor: the mean of 5 beyond
         // LeanSigma of its own scatter) is not fed to the tracker: it is a weak pass below the threshold, or drift the
-        // tracker does not follow, which the detector and the two-sided check handle. At most MaxHeldReadings in a row
-        // (3 s at 0.1 s gates, the longest pass) are held back, so a small level shift that stays is followed in the end.
+        // tracker does not follow, which the detector and the two-sided check handle. At most MaxHeldSeconds in a row (the
+        // longest pass) are held back; then the readings are fed and learnt from as usual, so drift the run turns out to
+        // be, or a small level shift that stays, is followed in the end.
         private const double LeanSigma = 4.0;
-        private const int MaxHeldReadings = 30;
+        private const double MaxHeldSeconds = 3.0;
 
         // A pass rises below the threshold before it is seen: when a candidate opens, the tracker returns to its
         // state from EdgeRewindSeconds before the candidate's first reading (snapshots after every fed reading,
@@ -138,7 +139,7 @@ namespace FreqReadout.Readout
         private double lastTimeSeconds;
         private double lastSpanSeconds;
         private int fedRun;
-        private int heldRun;
+        private double heldSeconds;
         private double fedTimeSeconds;
         private double fed1;
         private double fed2;
@@ -949,7 +950,7 @@ namespace FreqReadout.Readout
         private void ClearDelayLine()
         {
             runMonitor.ClearRun();
-            heldRun = 0;
+            heldSeconds = 0.0;
             snapshotCount = 0;
             delayHead = 0;
             delayCount = 0;
@@ -1008,20 +1009,17 @@ namespace FreqReadout.Readout
                 runMonitor.Add(t, span, x - forecast);
             }
 
-            // A leaning run (see LeanSigma) is held back from the tracker, and never teaches it a larger jerk density.
+            // A leaning run (see LeanSigma) is held back from the tracker: while held, it neither moves nor teaches it.
             bool leans = runMonitor.Leans(LeanSigma, MinForecastSamples);
-            heldRun = leans ? heldRun + 1 : 0;
-            if (leans && heldRun <= MaxHeldReadings)
+            heldSeconds = leans ? heldSeconds + span : 0.0;
+            if (leans && heldSeconds <= MaxHeldSeconds + TimeEpsilonSeconds)
             {
                 TakeSnapshot();
                 AddNoiseSample(t, span, x);
                 return;
             }
 
-            if (!leans)
-            {
-                tracker.Learn(x - forecast, forecastVariance + (noise * noise), noise, span);
-            }
+            tracker.Learn(x - forecast, forecastVariance + (noise * noise), noise, span);
             if (regular)
             {
                 forecastWindow.Add(ScalarMath.Abs(x - forecast));
