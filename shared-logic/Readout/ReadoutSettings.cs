@@ -58,7 +58,7 @@ namespace FreqReadout.Readout
         /// <summary>release_s: gate time below the release level that ends an event, [0, 60]. Default 0.2 s.</summary>
         public double ReleaseSeconds { get; set; } = 0.2;
 
-        /// <summary>unclear_band_sigma: peaks below threshold + band are classed unclear, [0, 1000]. Default 0.5 (a peak of 5.5 sigma gives its sign by chance with odds of about 1 in 50 million for white noise).</summary>
+        /// <summary>unclear_band_sigma: peaks below threshold + band are classed unclear, [0, 1000]. Default 0.5 (white noise flips the sign of a 5.5-sigma peak with odds of about 1 in 50 million: the normal tail beyond 5.5, from memory).</summary>
         public double UnclearBandSigma { get; set; } = 0.5;
 
         /// <summary>polarity: normal (positive search shift = non-ferrous, default) or inverted.</summary>

@@ -132,7 +132,7 @@ namespace FreqReadout.Tracking
         /// <summary>True when the current mean lies more than <paramref name="sigmas"/> scatters from zero and the scatter is taken over at least <paramref name="minSamples"/> means.</summary>
         public bool Leans(double sigmas, int minSamples)
         {
-            return count == Readings && window.Count >= minSamples && window.Count > 0 && ScalarMath.Abs(sum / Readings) > sigmas * noiseHz;
+            return Ready && window.Count >= minSamples && window.Count > 0 && ScalarMath.Abs(MeanHz) > sigmas * noiseHz;
         }
     }
 }
