@@ -134,6 +134,22 @@ namespace FreqReadout.Numerics
             t2 += u2 * value;
         }
 
+        /// <summary>
+        /// Adds another fit's points (its sums; both must have the same origin, which is not checked): a fit of the union
+        /// of two sets of points in O(1).
+        /// </summary>
+        public void Merge(QuadraticFit other)
+        {
+            s0 += other.s0;
+            s1 += other.s1;
+            s2 += other.s2;
+            s3 += other.s3;
+            s4 += other.s4;
+            t0 += other.t0;
+            t1 += other.t1;
+            t2 += other.t2;
+        }
+
         /// <summary>Solves the normal equations; false (coefficients 0) when they are singular.</summary>
         public bool TrySolve()
         {

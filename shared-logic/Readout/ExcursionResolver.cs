@@ -47,6 +47,16 @@ namespace FreqReadout.Readout
     /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
     /// middle may hold more than one pass (a lock loss can last through several): excursions separated by more than
     /// 0.5 s below k_r sigma are separate passes, up to <see cref="ExcursionVerdict.MaxPasses"/>, each its own event.
+    /// (5) A chain: when drift would be declared again within <see cref="ChainSeconds"/> of the start c of the last
+    /// drift window (the owner passes c), the tracker has most likely learnt part of a pass as drift since that lock
+    /// recovery (it starts on a fit of a few seconds and follows a pass's rising flank, then loses lock on the falling
+    /// one). One quadratic is fitted to the readings since c, robustly: of the fits that leave out no quarter of the
+    /// span, one quarter or two neighbouring quarters, the one with the most readings within 3 sigma' seeds three rounds
+    /// of refitting to the readings within 3 sigma' of the previous fit (sigma' the larger of sigma and the span's own
+    /// third-difference noise). It explains the span when at least 60 % of the readings stay within 3 sigma', their
+    /// mean square is below 2 sigma'^2, and the newest a s are each within k_t sigma' with a mean within 2 sigma' (the
+    /// drift goes on as one curve: no new kink). Then the residuals of [c + m, now - a] give the passes as in (1) with
+    /// at least two readings at k_t sigma', and the tracker is re-anchored on that longer fit; otherwise drift.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -87,10 +97,27 @@ namespace FreqReadout.Readout
         // drift rate changes by db, a kink placed dt off leaves a residual of db dt.
         private const double KinkGuardSeconds = 0.3;
 
+        /// <summary>Longest span since the last lock recovery's drift window that test (5) asks one quadratic to explain, s.</summary>
+        public const double ChainSeconds = 15.0;
+
+        // (5): trim rounds, the trim in sigmas, the least share of the readings it must keep, the seed fits tried, and
+        // the largest mean residual of the newest readings, in sigmas.
+        private const int ChainTrimRounds = 2;
+        private const double ChainTrimSigmas = 3.0;
+        private const double ChainInlierShare = 0.6;
+        private const double ChainEndSigmas = 2.0;
+        private const int ChainSeeds = 8;
+
         private readonly QuadraticFit before = new QuadraticFit();
         private readonly QuadraticFit sides = new QuadraticFit();
         private readonly QuadraticFit all = new QuadraticFit();
         private readonly KinkFit kink = new KinkFit();
+        private readonly QuadraticFit chain = new QuadraticFit();
+        private readonly QuadraticFit chainNext = new QuadraticFit();
+        private readonly QuadraticFit[] quarters = new QuadraticFit[4];
+        private readonly QuadraticFit[] seeds = new QuadraticFit[ChainSeeds];
+        private readonly int[] seedKept = new int[ChainSeeds];
+        private readonly bool[] seedUsable = new bool[ChainSeeds];
         private bool open;
         private double segmentStart;
         private double segmentEnd;
@@ -102,6 +129,20 @@ namespace FreqReadout.Readout
         private double segmentPeakBaseline;
         private double beforeCenterSeconds;
         private double driftFromSeconds;
+
+        /// <summary>Creates a resolver; every fit it uses is made here, once.</summary>
+        public ExcursionResolver()
+        {
+            for (int k = 0; k < quarters.Length; k++)
+            {
+                quarters[k] = new QuadraticFit();
+            }
+
+            for (int c = 0; c < seeds.Length; c++)
+            {
+                seeds[c] = new QuadraticFit();
+            }
+        }
 
         /// <summary>Fits a quadratic to the non-excluded readings with from &lt;= t &lt;= to, origin at originSeconds; false when it is not determined.</summary>
         public bool FitRecent(ReadingHistory history, double fromSeconds, double toSeconds, double originSeconds, double sigmaHz, ExcursionVerdict into)
@@ -140,6 +181,7 @@ namespace FreqReadout.Readout
             double driftWindowSeconds,
             double trackerSlopeHzPerSecond,
             double trackerAccelerationHzPerSecond2,
+            double chainFromSeconds,
             ExcursionVerdict into)
         {
             into.Kind = ExcursionVerdict.Pending;
@@ -223,10 +265,175 @@ namespace FreqReadout.Readout
                     }
                 }
 
+                // (5) A second loss of lock soon after the first: one smooth drift since the earlier kink, with a pass the
+                // tracker partly learnt as drift in between.
+                if (chainFromSeconds < middleFrom && nowSeconds - chainFromSeconds <= ChainSeconds)
+                {
+                    double chainSigma = ScalarMath.Max(sigmaHz, WindowNoise(history, chainFromSeconds));
+                    if (FillChain(history, chainFromSeconds, nowSeconds, chainSigma, thresholdSigma))
+                    {
+                        FillPass(history, chainFromSeconds + EdgeMarginSeconds, nowSeconds - afterSeconds, chainSigma, thresholdSigma, releaseSigma, chain, chain, double.MaxValue, null, LateMinReadings, into);
+                        if (into.Kind == ExcursionVerdict.Pass)
+                        {
+                            return;
+                        }
+                    }
+                }
+
                 into.Kind = ExcursionVerdict.Drift;
                 into.StartSeconds = driftFrom;
                 Anchor(all, sigmaHz, into);
             }
+        }
+
+        // Test (5)'s robust quadratic (class summary) of the non-excluded readings since fromSeconds into `chain`; true when
+        // it explains them. O(n) for each of the ChainSeeds seed fits and ChainTrimRounds rounds; nothing allocates.
+        private bool FillChain(ReadingHistory history, double fromSeconds, double nowSeconds, double sigmaHz, double thresholdSigma)
+        {
+            // Seeds: the fits of all readings and of the readings outside two neighbouring quarters of the span (a pass
+            // covers at most about half of it), made from the four quarters' sums; the one that keeps the most readings
+            // within the trim wins.
+            int first = FirstAtOrAfter(history, fromSeconds);
+            double trim = ChainTrimSigmas * sigmaHz;
+            double quarterSeconds = (nowSeconds - fromSeconds) / 4.0;
+            for (int k = 0; k < 4; k++)
+            {
+                quarters[k].Clear(nowSeconds);
+            }
+
+            int total = 0;
+            for (int i = first; i < history.Count; i++)
+            {
+                if (history.IsExcluded(i))
+                {
+                    continue;
+                }
+
+                double t = history.TimeAt(i);
+                int q = (int)((t - fromSeconds) / quarterSeconds);
+                quarters[q < 0 ? 0 : (q > 3 ? 3 : q)].Add(t, history.ValueAt(i));
+                total++;
+            }
+
+            if (total < 2 * MinBeforeReadings)
+            {
+                return false;
+            }
+
+            // Seed c = 0: all quarters; 1-4: all but quarter c - 1; 5-7: all but quarters c - 5 and c - 4.
+            for (int c = 0; c < ChainSeeds; c++)
+            {
+                QuadraticFit seed = seeds[c];
+                seed.Clear(nowSeconds);
+                for (int k = 0; k < 4; k++)
+                {
+                    bool left = (c >= 1 && c <= 4 && k == c - 1) || (c >= 5 && (k == c - 5 || k == c - 4));
+                    if (!left)
+                    {
+                        seed.Merge(quarters[k]);
+                    }
+                }
+
+                seedKept[c] = 0;
+                seedUsable[c] = seed.Count >= MinBeforeReadings && seed.TrySolve();
+            }
+
+            for (int i = first; i < history.Count; i++)
+            {
+                if (history.IsExcluded(i))
+                {
+                    continue;
+                }
+
+                double t = history.TimeAt(i);
+                double x = history.ValueAt(i);
+                for (int c = 0; c < ChainSeeds; c++)
+                {
+                    if (seedUsable[c] && ScalarMath.Abs(x - seeds[c].Evaluate(t)) < trim)
+                    {
+                        seedKept[c]++;
+                    }
+                }
+            }
+
+            QuadraticFit best = null;
+            int bestKept = 0;
+            for (int c = 0; c < ChainSeeds; c++)
+            {
+                if (seedKept[c] > bestKept)
+                {
+                    best = seeds[c];
+                    bestKept = seedKept[c];
+                }
+            }
+
+            if (best == null)
+            {
+                return false;
+            }
+
+            QuadraticFit previous = best;
+            for (int round = 0; round < ChainTrimRounds; round++)
+            {
+                QuadraticFit next = round % 2 == 0 ? chain : chainNext;
+                next.Clear(nowSeconds);
+                for (int i = first; i < history.Count; i++)
+                {
+                    double t = history.TimeAt(i);
+                    if (!history.IsExcluded(i) && ScalarMath.Abs(history.ValueAt(i) - previous.Evaluate(t)) < trim)
+                    {
+                        next.Add(t, history.ValueAt(i));
+                    }
+                }
+
+                if (next.Count < MinBeforeReadings || !next.TrySolve())
+                {
+                    return false;
+                }
+
+                previous = next;
+            }
+
+            if (previous != chain)
+            {
+                chain.Clear(nowSeconds);
+                chain.Merge(previous);
+                chain.TrySolve();
+            }
+
+            double sumSquares = 0;
+            int inliers = 0;
+            double endSum = 0;
+            int endCount = 0;
+            double limit = thresholdSigma * sigmaHz;
+            for (int i = first; i < history.Count; i++)
+            {
+                if (history.IsExcluded(i))
+                {
+                    continue;
+                }
+
+                double t = history.TimeAt(i);
+                double r = history.ValueAt(i) - chain.Evaluate(t);
+                if (t > nowSeconds - AfterSeconds)
+                {
+                    endSum += r;
+                    endCount++;
+                }
+
+                if (t > nowSeconds - AfterSeconds && ScalarMath.Abs(r) >= limit)
+                {
+                    return false;
+                }
+
+                if (ScalarMath.Abs(r) < trim)
+                {
+                    sumSquares += r * r;
+                    inliers++;
+                }
+            }
+
+            return endCount > 0 && ScalarMath.Abs(endSum) <= ChainEndSigmas * sigmaHz * endCount && inliers >= ChainInlierShare * total && sumSquares < 2.0 * sigmaHz * sigmaHz * inliers;
         }
 
         // Noise of the readings from a time on: sqrt(mean d^2 / 20) over the third differences d = x_k - 3 x_(k-1) +

@@ -97,6 +97,10 @@ namespace FreqReadout.Readout
         private readonly QuadraticFit curveFit;
         private double lastCheckSeconds;
         private long lockRecoveries;
+
+        // Start of the drift window of the last lock recovery (the kink lies before it): the resolver's chain test.
+        private bool hasChain;
+        private double chainFromSeconds;
         private int recaptures;
         private bool disturbed;
         private bool hasBest;
@@ -525,7 +529,7 @@ namespace FreqReadout.Readout
                 return false;
             }
 
-            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, verdict);
+            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, hasChain ? chainFromSeconds : double.MaxValue, verdict);
             if (verdict.Kind == ExcursionVerdict.Pending)
             {
                 return false;
@@ -563,6 +567,8 @@ namespace FreqReadout.Readout
                 // The drift rate changed before the window the new drift was fitted to: the readings before it
                 // follow the old drift and no longer serve as the before-side of a later candidate.
                 lockRecoveries++;
+                hasChain = true;
+                chainFromSeconds = verdict.StartSeconds;
                 if (history.Count > 0)
                 {
                     history.Exclude(history.TimeAt(0), verdict.StartSeconds - TimeEpsilonSeconds);
@@ -731,6 +737,7 @@ namespace FreqReadout.Readout
             recaptures = 0;
             hasBest = false;
             history.Clear();
+            hasChain = false;
             phase = PhaseSettling;
             phaseStartSeconds = timeSeconds;
             capture.Clear();
