@@ -43,7 +43,8 @@ namespace FreqReadout.Readout
     /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
     /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k and no larger than
     /// 2 |db| 0.3 s + k_t sigma is taken for the kink's own timing error (a kink placed dt off leaves db dt), not a pass (a
-    /// larger one is a pass that pulled the fitted kink onto itself). A pass with at least two readings of the middle
+    /// larger one is a pass that pulled the fitted kink onto itself); for the same reason the readings within 0.3 s of t_k
+    /// do not count towards a pass's mixed signs. A pass with at least two readings of the middle
     /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
     /// middle may hold more than one pass (a lock loss can last through several): excursions separated by more than
     /// 0.5 s below k_r sigma are separate passes, up to <see cref="ExcursionVerdict.MaxPasses"/>, each its own event.
@@ -686,7 +687,11 @@ namespace FreqReadout.Readout
                 if (size >= threshold)
                 {
                     segmentBeyond++;
-                    if (r > 0)
+                    if (kinkBaseline != null && ScalarMath.Abs(t - kinkBaseline.KinkSeconds) <= KinkGuardSeconds)
+                    {
+                        // Near a kink the residual's sign is the kink's own error (a kink placed dt off leaves db dt), not the pass's.
+                    }
+                    else if (r > 0)
                     {
                         largestPositive = ScalarMath.Max(largestPositive, r);
                     }
