@@ -139,6 +139,13 @@ namespace FreqReadout.Numerics
             return found && SolveAt(bestKink);
         }
 
+        /// <summary>The fitted rate at a time, c1 + 2 c2 u + db (after t_k; without db before it), per second.</summary>
+        public double SlopeAt(double timeSeconds)
+        {
+            double u = timeSeconds - both.OriginSeconds;
+            return c1 + (2.0 * c2 * u) + (timeSeconds > kinkSeconds ? c3 : 0.0);
+        }
+
         /// <summary>The fitted value at a time, c0 + c1 u + c2 u^2 + db max(0, t - t_k).</summary>
         public double Evaluate(double timeSeconds)
         {

@@ -106,6 +106,10 @@ public class KinkFitTests
         {
             double expected = c[0] + (c[1] * (ti - origin)) + (c[2] * (ti - origin) * (ti - origin)) + (c[3] * Math.Max(0.0, ti - fit.KinkSeconds));
             Assert.Equal(expected, fit.Evaluate(ti), 6);
+
+            // The rate: the derivative of the same least-squares curve (MathNet's coefficients).
+            double expectedSlope = c[1] + (2.0 * c[2] * (ti - origin)) + (ti > fit.KinkSeconds ? c[3] : 0.0);
+            Assert.Equal(expectedSlope, fit.SlopeAt(ti), 6);
         }
 
         // And the kink is found near the truth (0.01 Hz noise; a tiny rate change leaves it loosely placed).
