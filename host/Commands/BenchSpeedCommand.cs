@@ -18,11 +18,11 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
         public bool Quick { get; set; }
 
         [CommandOption("--edges <N>")]
-        [Description("Edges of the large capture, [100000, 100000000] (100 000 edges are 1 s of the synthetic capture). Default 10000000 (200000 with --quick).")]
+        [Description("Edges of the large capture, from 100000 to 100000000 (100 000 edges are 1 s of the synthetic capture). Default 10000000 (200000 with --quick).")]
         public long? Edges { get; set; }
 
         [CommandOption("--runs <N>")]
-        [Description("Timed runs per case (the median is reported), [5, 100]. Default 5.")]
+        [Description("Timed runs per case (the median is reported), from 5 to 100. Default 5.")]
         public int? Runs { get; set; }
 
         [CommandOption("--keep <DIR>")]

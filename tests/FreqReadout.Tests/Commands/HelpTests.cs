@@ -1,0 +1,31 @@
+using FreqReadout.Host.Commands;
+using FreqReadout.Tests.Docs;
+
+namespace FreqReadout.Tests.Commands;
+
+/// <summary>
+/// Every command's --help prints its usage and exits 0: the help text goes through the terminal library's markup, where
+/// a range written as [a, b] in an option's description was once read as a style and crashed `bench speed --help`.
+/// </summary>
+public class HelpTests
+{
+    [Theory]
+    [InlineData("demo")]
+    [InlineData("count")]
+    [InlineData("replay")]
+    [InlineData("calibrate")]
+    [InlineData("convert")]
+    [InlineData("simulate")]
+    [InlineData("coil")]
+    [InlineData("bench")]
+    [InlineData("bench quality")]
+    [InlineData("bench speed")]
+    public void Help_of_every_command_prints_its_usage(string command)
+    {
+        string[] args = command.Split(' ').Append("--help").ToArray();
+        CliProcess.Result r = CliProcess.Run(Path.GetTempPath(), args, 60_000);
+        Assert.True(r.ExitCode == ExitCodes.Ok, $"exit {r.ExitCode}; stderr: {r.Stderr}");
+        Assert.Contains("USAGE", r.Stdout);
+        Assert.Equal(string.Empty, r.Stderr);
+    }
+}
