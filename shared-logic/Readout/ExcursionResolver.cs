@@ -22,7 +22,8 @@ namespace FreqReadout.Readout
     /// |c2_b| d^3 / (3 tau_min) of Q_b extrapolated (v the prediction variance factor, d the distance from the
     /// middle of B, tau_min = <see cref="MinDriftSeconds"/>: the third-order term of a settling drift). Then the middle's residuals r = x - Q(t) give the event:
     /// start = first |r| &gt;= k_t sigma, end = last |r| &gt;= k_r sigma, peak = largest |r| (readings of an event already
-    /// reported are skipped); none at k_t: no target.
+    /// reported are skipped); none at k_t: no target (the owner may ask for more readings at k_t per pass: a probe, which
+    /// no reading opened, asks for two).
     /// The pass test runs only while the candidate is younger than 3 lock_check_s (the owner decides): a shift
     /// that has not returned by then is no coil pass, and a quadratic bent through a long plateau would fake one.
     /// (2) Drift (only once the candidate is lock_check_s old; sigma here is the larger of the pipeline's and the rms
@@ -184,6 +185,7 @@ namespace FreqReadout.Readout
             double trackerSlopeHzPerSecond,
             double trackerAccelerationHzPerSecond2,
             double chainFromSeconds,
+            int passMinReadings,
             ExcursionVerdict into)
         {
             into.Kind = ExcursionVerdict.Pending;
@@ -236,7 +238,7 @@ namespace FreqReadout.Readout
             bool twoSided = before.Count >= MinBeforeReadings && afterCount >= MinAfterReadings && before.TrySolve() && sides.TrySolve();
             if (twoSided && allowPass && SidesAgree(history, afterFrom, sigmaHz, releaseSigma))
             {
-                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, 1, into);
+                FillPass(history, middleFrom, afterFrom, sigmaHz, thresholdSigma, releaseSigma, sides, sides, double.MaxValue, null, passMinReadings, into);
                 return;
             }
 

@@ -96,6 +96,17 @@ namespace FreqReadout.Readout
         private readonly ExcursionVerdict verdict;
         private readonly QuadraticFit curveFit;
         private double lastCheckSeconds;
+
+        // A probe: when the fed readings begin to lean (ForecastRunMonitor, LeanSigma), the tracker goes back to before the
+        // run and is held, and the resolver is asked whether a pass stands out from both sides (a wide weak pass the tracker
+        // would learn as drift, which the threshold alone would miss); at most ProbeSeconds, then the tracker catches up.
+        // Only a pass of a clear class is reported, with at least ProbeMinReadings readings at the threshold.
+        private const int ProbeMinReadings = 2;
+        private const double ProbeSeconds = 3.0;
+        private bool probing;
+        private bool probeRequested;
+        private double probeRequestSeconds;
+        private double probeStartSeconds;
         private long lockRecoveries;
 
         // Start of the drift window of the last lock recovery (the kink lies before it): the resolver's chain test.
@@ -443,16 +454,49 @@ namespace FreqReadout.Readout
                 blankRemaining = BlankGates(span);
             }
 
+            // A probe (see ProbeSeconds) starts when the fed readings begin to lean, and ends when the resolver has decided
+            // it, after ProbeSeconds, or when a candidate opens.
+            if (detector.EventOpen || hold || ended)
+            {
+                probing = false;
+                probeRequested = false;
+            }
+            else if (!probing && probeRequested && blankRemaining == 0)
+            {
+                probing = true;
+                probeRequested = false;
+                probeStartSeconds = probeRequestSeconds;
+                Rewind(probeStartSeconds - EdgeRewindSeconds);
+                InvalidateDelayLine();
+                lastCheckSeconds = t;
+            }
+
+            bool endProbe = probing && t - probeStartSeconds > ProbeSeconds;
+            bool checkDue = t - lastCheckSeconds + TimeEpsilonSeconds >= ExcursionResolver.CheckIntervalSeconds;
+            bool candidateDue = !detector.JustStarted && detector.TargetPresent && !hold && checkDue;
             if (detector.JustStarted)
             {
                 Rewind(detector.StartSeconds - EdgeRewindSeconds);
                 InvalidateDelayLine();
                 lastCheckSeconds = t;
             }
-            else if (detector.TargetPresent && !hold && t - lastCheckSeconds + TimeEpsilonSeconds >= ExcursionResolver.CheckIntervalSeconds)
+            else if (candidateDue || (probing && !endProbe && checkDue))
             {
                 lastCheckSeconds = t;
-                anchored = Decide(t, Sigma(0), belowFloor);
+                bool decided = DecideFrom(candidateDue ? detector.StartSeconds : probeStartSeconds, candidateDue, t, Sigma(0), belowFloor);
+                if (candidateDue)
+                {
+                    anchored = decided;
+                }
+                else
+                {
+                    endProbe = decided;
+                }
+            }
+
+            if (endProbe)
+            {
+                EndProbe(t);
             }
 
             if (detector.EventOpen && !hold && t - detector.PersistSinceSeconds + TimeEpsilonSeconds >= settings.PersistentShiftSeconds)
@@ -476,7 +520,7 @@ namespace FreqReadout.Readout
             double predicted = originHz + predictedRelative;
             bool present = detector.TargetPresent;
             merger.Tick(t, present, detector.StartSeconds);
-            bool valid = !present && !ended && !anchored && blankRemaining == 0;
+            bool valid = !present && !ended && !anchored && !probing && blankRemaining == 0;
             if (!present && !ended && blankRemaining > 0)
             {
                 blankRemaining--;
@@ -520,16 +564,21 @@ namespace FreqReadout.Readout
         // two-sided peak, drift and false starts re-anchor the tracker; true when the tracker was re-anchored.
         private bool Decide(double t, double sigma, bool belowFloorNow)
         {
+            return DecideFrom(detector.StartSeconds, true, t, sigma, belowFloorNow);
+        }
+
+        private bool DecideFrom(double startSeconds, bool driftAllowed, double t, double sigma, bool belowFloorNow)
+        {
             double releaseSigma = settings.ThresholdSigma - settings.HysteresisSigma;
-            double age = t - detector.StartSeconds + TimeEpsilonSeconds;
-            bool allowDrift = age >= settings.LockCheckSeconds;
+            double age = t - startSeconds + TimeEpsilonSeconds;
+            bool allowDrift = driftAllowed && age >= settings.LockCheckSeconds;
             bool allowPass = age < 3.0 * settings.LockCheckSeconds;
             if (!allowPass && !allowDrift)
             {
                 return false;
             }
 
-            resolver.Resolve(history, detector.StartSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, hasChain ? chainFromSeconds : double.MaxValue, verdict);
+            resolver.Resolve(history, startSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, hasChain ? chainFromSeconds : double.MaxValue, driftAllowed ? 1 : ProbeMinReadings, verdict);
             if (verdict.Kind == ExcursionVerdict.Pending)
             {
                 return false;
@@ -545,6 +594,12 @@ namespace FreqReadout.Readout
                     double ppmReference = PpmReferenceHz(originHz + verdict.PassPeakBaselineHz[k]);
                     bool hasPpm = ppmReference > 0;
                     TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.PassMixedSign[k]);
+                    if (!driftAllowed && cls == TargetClass.Unclear)
+                    {
+                        // A probe reports only a pass whose class is clear: it looked below the threshold to begin with.
+                        continue;
+                    }
+
                     merger.NextSlot().Set(
                         verdict.PassStartSeconds[k],
                         verdict.PassEndSeconds[k],
@@ -573,6 +628,12 @@ namespace FreqReadout.Readout
                 {
                     history.Exclude(history.TimeAt(0), verdict.StartSeconds - TimeEpsilonSeconds);
                 }
+            }
+
+            if (!driftAllowed)
+            {
+                // A probe: the tracker, held since the probe began, goes on from where it was.
+                return true;
             }
 
             detector.Discard();
@@ -738,6 +799,8 @@ namespace FreqReadout.Readout
             hasBest = false;
             history.Clear();
             hasChain = false;
+            probing = false;
+            probeRequested = false;
             phase = PhaseSettling;
             phaseStartSeconds = timeSeconds;
             capture.Clear();
@@ -963,6 +1026,28 @@ namespace FreqReadout.Readout
             delayCount = 0;
         }
 
+        // Ends a probe: the tracker, held since the probe began, catches up on the readings held since then that no event
+        // claimed (a pass found is excluded from the history), without learning from them; the delay line holds none of them.
+        private void EndProbe(double t)
+        {
+            probing = false;
+            double noise = ScalarMath.Max(runningNoiseHz, settings.NoiseFloorHz);
+            for (int i = 0; i < history.Count; i++)
+            {
+                double ti = history.TimeAt(i);
+                if (ti <= tracker.TimeSeconds || ti > t || history.IsExcluded(i))
+                {
+                    continue;
+                }
+
+                double predicted = tracker.Predict(ti);
+                double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(ti));
+                tracker.Update(ti, predicted + ScalarMath.Clamp(history.ValueAt(i) - predicted, -limit, limit), noise);
+            }
+
+            InvalidateDelayLine();
+        }
+
         private void InvalidateDelayLine()
         {
             for (int i = 0; i < delayValid.Length; i++)
@@ -1018,6 +1103,13 @@ namespace FreqReadout.Readout
 
             // A leaning run (see LeanSigma) is held back from the tracker: while held, it neither moves nor teaches it.
             bool leans = runMonitor.Leans(LeanSigma, MinForecastSamples);
+            if (leans && heldSeconds == 0.0 && !probing)
+            {
+                // A run starts to lean: ask for a probe from the run's first reading on.
+                probeRequested = true;
+                probeRequestSeconds = t - ((ForecastRunMonitor.Readings - 1) * span);
+            }
+
             heldSeconds = leans ? heldSeconds + span : 0.0;
             if (leans && heldSeconds <= MaxHeldSeconds + TimeEpsilonSeconds)
             {

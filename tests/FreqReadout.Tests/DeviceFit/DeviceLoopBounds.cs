@@ -33,6 +33,7 @@ internal static class DeviceLoopBounds
         new("ReadoutPipeline.InvalidateDelayLine", 0, "TrackerDelayGates + 1 (ReadoutSettings tracker_delay_gates, default 5, at most 1000)", 6, 1001),
         new("ReadoutPipeline.Rewind", 0, "snapshotCount - 1 < SnapshotCount (32 tracker snapshots)", 32, 32),
         new("ReadoutPipeline.CompleteCapture", 0, "capture.Count <= BaselineMaxGates (the capture's gates copied into the reading history)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
+        new("ReadoutPipeline.EndProbe", 0, "count <= HistoryGates (the readings held since the probe began)", HistoryGatesDefault, HistoryGatesLimit),
         new("ReadoutPipeline.StartTrackerOnCapture", 0, "capture.Count <= BaselineMaxGates (the tracker runs once over the capture's gates)", BaselineMaxGatesDefault, BaselineMaxGatesLimit),
 
         // Running noise median: two indexed heaps of at most NoiseWindowGates slots; a sift moves one level per pass.
@@ -88,7 +89,7 @@ internal static class DeviceLoopBounds
         new("ExcursionResolver.FillChain", 9, "count <= HistoryGates (the final check)", HistoryGatesDefault, HistoryGatesLimit),
         new("ExcursionResolver.WindowNoise", 0, "WindowNoiseReadings = 67 newest readings", 67, 67),
         new("ExcursionResolver.DropPassesNear", 0, "PassCount <= ExcursionVerdict.MaxPasses", 4, 4),
-        new("ReadoutPipeline.Decide", 0, "verdict.PassCount <= ExcursionVerdict.MaxPasses (one event per pass)", 4, 4),
+        new("ReadoutPipeline.DecideFrom", 0, "verdict.PassCount <= ExcursionVerdict.MaxPasses (one event per pass)", 4, 4),
         new("KinkFit.TrySolve", 0, "steps + 1 <= KinkFit.MaxSteps + 1 (kink times tried)", 401, 401),
 
         // ScalarMath: bounds from the range of double (largest 2^1024, smallest subnormal 2^-1074) and the code's own constants.
