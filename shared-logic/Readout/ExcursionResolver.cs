@@ -695,15 +695,14 @@ namespace FreqReadout.Readout
                 if (size >= threshold)
                 {
                     segmentBeyond++;
-                    if (kinkBaseline != null && ScalarMath.Abs(t - kinkBaseline.KinkSeconds) <= KinkGuardSeconds)
-                    {
-                        // Near a kink the residual's sign is the kink's own error (a kink placed dt off leaves db dt), not the pass's.
-                    }
-                    else if (r > 0)
+
+                    // Near a kink the residual's sign is the kink's own error (a kink placed dt off leaves db dt), not the pass's.
+                    bool nearKink = kinkBaseline != null && ScalarMath.Abs(t - kinkBaseline.KinkSeconds) <= KinkGuardSeconds;
+                    if (!nearKink && r > 0)
                     {
                         largestPositive = ScalarMath.Max(largestPositive, r);
                     }
-                    else
+                    else if (!nearKink)
                     {
                         largestNegative = ScalarMath.Max(largestNegative, -r);
                     }

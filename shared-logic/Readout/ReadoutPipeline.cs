@@ -109,9 +109,9 @@ namespace FreqReadout.Readout
         private double probeStartSeconds;
         private long lockRecoveries;
 
-        // Start of the drift window of the last lock recovery (the kink lies before it): the resolver's chain test.
-        private bool hasChain;
-        private double chainFromSeconds;
+        // Start of the drift window of the last lock recovery (the kink lies before it), for the resolver's chain test;
+        // double.MaxValue when there is none since the last baseline.
+        private double chainFromSeconds = double.MaxValue;
         private int recaptures;
         private bool disturbed;
         private bool hasBest;
@@ -483,7 +483,7 @@ namespace FreqReadout.Readout
             else if (candidateDue || (probing && !endProbe && checkDue))
             {
                 lastCheckSeconds = t;
-                bool decided = DecideFrom(candidateDue ? detector.StartSeconds : probeStartSeconds, candidateDue, t, Sigma(0), belowFloor);
+                bool decided = Decide(candidateDue ? detector.StartSeconds : probeStartSeconds, candidateDue, t, Sigma(0), belowFloor);
                 if (candidateDue)
                 {
                     anchored = decided;
@@ -560,25 +560,21 @@ namespace FreqReadout.Readout
             return true;
         }
 
-        // An open candidate decided from both sides of it (ExcursionResolver): a pass is reported with its
-        // two-sided peak, drift and false starts re-anchor the tracker; true when the tracker was re-anchored.
-        private bool Decide(double t, double sigma, bool belowFloorNow)
-        {
-            return DecideFrom(detector.StartSeconds, true, t, sigma, belowFloorNow);
-        }
-
-        private bool DecideFrom(double startSeconds, bool driftAllowed, double t, double sigma, bool belowFloorNow)
+        // An open candidate (candidate true) or a probe (false) decided from both sides of it (ExcursionResolver): a pass
+        // is reported with its two-sided peak; for a candidate, drift and false starts re-anchor the tracker; true when
+        // decided (for a candidate: the tracker was re-anchored).
+        private bool Decide(double startSeconds, bool candidate, double t, double sigma, bool belowFloorNow)
         {
             double releaseSigma = settings.ThresholdSigma - settings.HysteresisSigma;
             double age = t - startSeconds + TimeEpsilonSeconds;
-            bool allowDrift = driftAllowed && age >= settings.LockCheckSeconds;
+            bool allowDrift = candidate && age >= settings.LockCheckSeconds;
             bool allowPass = age < 3.0 * settings.LockCheckSeconds;
             if (!allowPass && !allowDrift)
             {
                 return false;
             }
 
-            resolver.Resolve(history, startSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, hasChain ? chainFromSeconds : double.MaxValue, driftAllowed ? 1 : ProbeMinReadings, verdict);
+            resolver.Resolve(history, startSeconds, t, sigma, settings.ThresholdSigma, releaseSigma, settings.ReleaseSeconds, settings.FitWindowSeconds, allowDrift, allowPass, 2.0 * settings.LockCheckSeconds, tracker.PredictSlope(t), tracker.AccelerationHzPerSecond2, chainFromSeconds, candidate ? 1 : ProbeMinReadings, verdict);
             if (verdict.Kind == ExcursionVerdict.Pending)
             {
                 return false;
@@ -594,7 +590,7 @@ namespace FreqReadout.Readout
                     double ppmReference = PpmReferenceHz(originHz + verdict.PassPeakBaselineHz[k]);
                     bool hasPpm = ppmReference > 0;
                     TargetClass cls = SignRule.Classify(peakShift, peakSigma, settings.ThresholdSigma, settings.UnclearBandSigma, settings.Polarity, floorSeen || verdict.PassMixedSign[k]);
-                    if (!driftAllowed && cls == TargetClass.Unclear)
+                    if (!candidate && cls == TargetClass.Unclear)
                     {
                         // A probe reports only a pass whose class is clear: it looked below the threshold to begin with.
                         continue;
@@ -622,7 +618,6 @@ namespace FreqReadout.Readout
                 // The drift rate changed before the window the new drift was fitted to: the readings before it
                 // follow the old drift and no longer serve as the before-side of a later candidate.
                 lockRecoveries++;
-                hasChain = true;
                 chainFromSeconds = verdict.StartSeconds;
                 if (history.Count > 0)
                 {
@@ -630,7 +625,7 @@ namespace FreqReadout.Readout
                 }
             }
 
-            if (!driftAllowed)
+            if (!candidate)
             {
                 // A probe: the tracker, held since the probe began, goes on from where it was.
                 return true;
@@ -798,7 +793,7 @@ namespace FreqReadout.Readout
             recaptures = 0;
             hasBest = false;
             history.Clear();
-            hasChain = false;
+            chainFromSeconds = double.MaxValue;
             probing = false;
             probeRequested = false;
             phase = PhaseSettling;
@@ -965,9 +960,7 @@ namespace FreqReadout.Readout
             {
                 double t = capture.TimeSecondsAt(i);
                 double x = capture.ValueHzAt(i) - originHz;
-                double predicted = tracker.Predict(t);
-                double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(t));
-                tracker.Update(t, predicted + ScalarMath.Clamp(x - predicted, -limit, limit), noise);
+                UpdateTrackerGuarded(t, x, noise);
                 TakeSnapshot();
             }
         }
@@ -1040,12 +1033,19 @@ namespace FreqReadout.Readout
                     continue;
                 }
 
-                double predicted = tracker.Predict(ti);
-                double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(ti));
-                tracker.Update(ti, predicted + ScalarMath.Clamp(history.ValueAt(i) - predicted, -limit, limit), noise);
+                UpdateTrackerGuarded(ti, history.ValueAt(i), noise);
             }
 
             InvalidateDelayLine();
+        }
+
+        // One Kalman update of the tracker with a reading x (relative to originHz) whose residual from the forecast is
+        // clipped to +-guard_sigma of its expected scatter, sqrt(noise^2 + V).
+        private void UpdateTrackerGuarded(double t, double x, double noise)
+        {
+            double predicted = tracker.Predict(t);
+            double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(t));
+            tracker.Update(t, predicted + ScalarMath.Clamp(x - predicted, -limit, limit), noise);
         }
 
         private void InvalidateDelayLine()
@@ -1124,10 +1124,7 @@ namespace FreqReadout.Readout
                 forecastWindow.Add(ScalarMath.Abs(x - forecast));
                 forecastNoiseHz = RobustStatistics.MadToSigma * forecastWindow.Median();
             }
-            double predicted = tracker.Predict(t);
-            double r = x - predicted;
-            double limit = settings.GuardSigma * ScalarMath.Sqrt((noise * noise) + tracker.PredictVariance(t));
-            tracker.Update(t, predicted + ScalarMath.Clamp(r, -limit, limit), noise);
+            UpdateTrackerGuarded(t, x, noise);
             TakeSnapshot();
             AddNoiseSample(t, span, x);
         }

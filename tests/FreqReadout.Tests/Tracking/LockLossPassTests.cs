@@ -48,15 +48,7 @@ public class LockLossPassTests
     {
         for (int seed = 1; seed <= 4; seed++)
         {
-            var stream = new SyntheticGateStream
-            {
-                NoiseHz = 0.01,
-                Seed = seed,
-                DurationSeconds = 45,
-                DriftHz = t => t > 20.0 ? rateHzPerSecond * (t - 20.0) : 0.0,
-            };
-            stream.Passes.Add(new TargetPass(20.0, 4.0, peakHz));
-            PipelineRun run = PipelineRun.Of(stream);
+            PipelineRun run = RunAfterOnset(seed, rateHzPerSecond, new TargetPass(20.0, 4.0, peakHz));
 
             Assert.True(
                 run.Events.Any(e => Math.Abs(e.PeakSeconds - 20.0) < 1.0 && e.Class == TargetClass.NonFerrous),
@@ -83,15 +75,7 @@ public class LockLossPassTests
         var missed = new List<string>();
         for (int seed = 1; seed <= 8; seed++)
         {
-            var stream = new SyntheticGateStream
-            {
-                NoiseHz = 0.01,
-                Seed = seed,
-                DurationSeconds = 45,
-                DriftHz = t => t > 20.0 ? rateHzPerSecond * (t - 20.0) : 0.0,
-            };
-            stream.Passes.Add(new TargetPass(20.0 + delaySeconds, 4.0, peakHz));
-            PipelineRun run = PipelineRun.Of(stream);
+            PipelineRun run = RunAfterOnset(seed, rateHzPerSecond, new TargetPass(20.0 + delaySeconds, 4.0, peakHz));
             TargetClass expected = peakHz > 0 ? TargetClass.NonFerrous : TargetClass.Ferrous;
             if (run.Events.Any(e => Math.Abs(e.PeakSeconds - (20.0 + delaySeconds)) < 1.0 && e.Class == expected))
             {
@@ -104,5 +88,19 @@ public class LockLossPassTests
         }
 
         Assert.True(found == 8, $"{found} of 8 found; " + string.Join(" | ", missed));
+    }
+
+    // Synthetic gates (invented): noise 0.01 Hz, a still baseline that starts to drift at a rate from 20 s, one pass, 45 s.
+    private static PipelineRun RunAfterOnset(int seed, double rateHzPerSecond, TargetPass pass)
+    {
+        var stream = new SyntheticGateStream
+        {
+            NoiseHz = 0.01,
+            Seed = seed,
+            DurationSeconds = 45,
+            DriftHz = t => t > 20.0 ? rateHzPerSecond * (t - 20.0) : 0.0,
+        };
+        stream.Passes.Add(pass);
+        return PipelineRun.Of(stream);
     }
 }
