@@ -10,7 +10,8 @@ namespace FreqReadout.Readout
     /// the newest reading): before B = [s - m - W, s - m) with m = <see cref="EdgeMarginSeconds"/> (a pass
     /// starts before it crosses the threshold) and W = fit_window_s; after A = (now - a, now] with
     /// a = max(<see cref="AfterSeconds"/>, release_s); middle M = [s - m, now - a]. Readings that belong to an
-    /// earlier reported event are left out of B. sigma is the pipeline's noise sigma; k_t the threshold,
+    /// earlier reported event are left out of B (for a pass this resolver found, also the second after its end: its tail
+    /// below the release level still bends a fit; the owner marks them). sigma is the pipeline's noise sigma; k_t the threshold,
     /// k_r = threshold - hysteresis the release level, both in sigmas.
     /// </para>
     /// <para>
@@ -60,6 +61,12 @@ namespace FreqReadout.Readout
     /// mean square is below 2 sigma'^2, and the newest a s are each within k_t sigma' with a mean within 2 sigma' (the
     /// drift goes on as one curve: no new kink). Then the residuals of [c + m, now - a] give the passes as in (1) with
     /// at least two readings at k_t sigma', and the tracker is re-anchored on that longer fit; otherwise drift.
+    /// (6) A crowded drift: when the plain drift test fails on a candidate too old for the pass test (passes keep coming
+    /// while lock is lost, so no drift window is ever clear of one), the readings since the candidate opened, at most
+    /// <see cref="ChainSeconds"/> back, get the robust quadratic of (5); when it explains them and is a plausible drift as
+    /// in (2) (a step keeps the old rate and stays a target), its residuals give the passes with at least two readings at
+    /// k_t sigma' (none with mixed signs: a quadratic bent across a kink leaves those, and the candidate then waits for
+    /// (4)), and the tracker is re-anchored on that fit; with no pass in it, drift.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -245,7 +252,7 @@ namespace FreqReadout.Readout
             // The drift window is judged with its own noise when that is larger: the running noise was learnt before the
             // candidate opened, and the scatter of a count changes with the frequency (quantisation), which drifts.
             double driftSigma = allowDrift ? ScalarMath.Max(sigmaHz, WindowNoise(history, driftFrom)) : sigmaHz;
-            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(driftSigma, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, driftSigma, thresholdSigma))
+            if (allowDrift && all.Count >= MinBeforeReadings && all.TrySolve() && PlausibleDrift(all, driftSigma, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2) && Smooth(history, driftFromSeconds, driftSigma, thresholdSigma))
             {
                 // (3) A slow pass whose tail outlasted the pass test: the drift window itself is the after side.
                 if (twoSided && driftFrom > middleFrom && FillSides(history, beforeFrom, middleFrom, driftFrom) >= MinAfterReadings && sides.TrySolve() && SidesAgree(history, driftFrom, sigmaHz, releaseSigma))
@@ -292,6 +299,29 @@ namespace FreqReadout.Readout
                 into.Kind = ExcursionVerdict.Drift;
                 into.StartSeconds = driftFrom;
                 Anchor(all, sigmaHz, into);
+            }
+            else if (allowDrift && !allowPass)
+            {
+                // (6) A crowded drift: passes keep coming while lock is lost, so no drift window is ever clear of them.
+                double crowdFrom = ScalarMath.Max(startSeconds, nowSeconds - ChainSeconds);
+                double crowdSigma = ScalarMath.Max(sigmaHz, WindowNoise(history, crowdFrom));
+                if (FillChain(history, crowdFrom, nowSeconds, crowdSigma, thresholdSigma) && PlausibleDrift(chain, crowdSigma, trackerSlopeHzPerSecond, trackerAccelerationHzPerSecond2))
+                {
+                    FillPass(history, crowdFrom, nowSeconds - afterSeconds, crowdSigma, thresholdSigma, releaseSigma, chain, chain, double.MaxValue, null, LateMinReadings, into);
+                    if (into.Kind == ExcursionVerdict.Pass)
+                    {
+                        if (AnyMixedSign(into))
+                        {
+                            into.Kind = ExcursionVerdict.Pending;
+                        }
+
+                        return;
+                    }
+
+                    into.Kind = ExcursionVerdict.Drift;
+                    into.StartSeconds = crowdFrom;
+                    Anchor(chain, crowdSigma, into);
+                }
             }
         }
 
@@ -585,7 +615,7 @@ namespace FreqReadout.Readout
         // acceleration). A pass's flank seen for a few seconds bends far more than its slope change over a minute.
         // And the drift rate must have changed: a shift that stays level (a step: metal left near the coil)
         // keeps the tracker's slope and is a target, not lost lock (3 sigma of the fitted slope).
-        private bool PlausibleDrift(double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
+        private static bool PlausibleDrift(QuadraticFit all, double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
         {
             double slopeChange = ScalarMath.Abs(all.Slope - trackerSlopeHzPerSecond);
             // Against the tracked bend, or against none at all: a new straight ramp is always a plausible drift, and the
@@ -733,6 +763,20 @@ namespace FreqReadout.Readout
             }
 
             into.Kind = ExcursionVerdict.Pass;
+        }
+
+        // True when a pass of the verdict has readings of both signs at the threshold.
+        private static bool AnyMixedSign(ExcursionVerdict verdict)
+        {
+            for (int k = 0; k < verdict.PassCount; k++)
+            {
+                if (verdict.PassMixedSign[k])
+                {
+                    return true;
+                }
+            }
+
+            return false;
         }
 
         // Drops the passes whose peak lies within KinkGuardSeconds of the kink and is no larger than the kink's timing error

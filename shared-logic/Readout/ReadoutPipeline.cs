@@ -103,6 +103,11 @@ namespace FreqReadout.Readout
         // Only a pass of a clear class is reported, with at least ProbeMinReadings readings at the threshold.
         private const int ProbeMinReadings = 2;
         private const double ProbeSeconds = 3.0;
+
+        // A reported pass's readings stay out of later baselines this long after its end, s: its tail below the release
+        // level still bends a fit (a pass of 100 sigma is 1 sigma at 1 % of its peak).
+        private const double TailMarginSeconds = 1.0;
+
         private bool probing;
         private bool probeRequested;
         private double probeRequestSeconds;
@@ -610,7 +615,7 @@ namespace FreqReadout.Readout
                         verdict.PassMixedSign[k],
                         EventEnd.Resolved);
                     merger.Commit();
-                    history.Exclude(verdict.PassStartSeconds[k] - ExcursionResolver.EdgeMarginSeconds, verdict.PassEndSeconds[k]);
+                    history.Exclude(verdict.PassStartSeconds[k] - ExcursionResolver.EdgeMarginSeconds, verdict.PassEndSeconds[k] + TailMarginSeconds);
                 }
             }
             else if (verdict.Kind == ExcursionVerdict.Drift)

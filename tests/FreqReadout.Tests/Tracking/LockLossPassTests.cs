@@ -90,6 +90,52 @@ public class LockLossPassTests
         Assert.True(found == 8, $"{found} of 8 found; " + string.Join(" | ", missed));
     }
 
+    // Passes that keep coming while lock is lost: a drift rate starts during a pass and a pass follows every 4 s, so no
+    // drift window of 5 s is ever clear of one and the plain drift test never re-acquires; the readings since the
+    // candidate opened (at most 15 s) are then read as one smooth drift with passes in it (test 6 of ExcursionResolver).
+    // Without test 6, 4 of these 24 passes were found (the first of each run); now all are. Synthetic gates, invented:
+    // noise 0.01 Hz, a ramp from 19 s, passes 2 s wide and 20 noise sigmas high, signs alternating.
+    [Theory]
+    [InlineData(0.2)]
+    [InlineData(-0.2)]
+    [InlineData(0.6)]
+    public void Passes_every_few_seconds_after_a_drift_rate_onset_are_all_reported(double rateHzPerSecond)
+    {
+        double[] centres = { 18.0, 22.0, 26.0, 30.0, 34.0, 38.0 };
+        int found = 0;
+        var missed = new List<string>();
+        for (int seed = 1; seed <= 4; seed++)
+        {
+            var stream = new SyntheticGateStream
+            {
+                NoiseHz = 0.01,
+                Seed = seed,
+                DurationSeconds = 50,
+                DriftHz = t => t > 19.0 ? rateHzPerSecond * (t - 19.0) : 0.0,
+            };
+            for (int k = 0; k < centres.Length; k++)
+            {
+                stream.Passes.Add(new TargetPass(centres[k], 2.0, k % 2 == 0 ? -0.2 : 0.2));
+            }
+
+            PipelineRun run = PipelineRun.Of(stream);
+            for (int k = 0; k < centres.Length; k++)
+            {
+                TargetClass expected = k % 2 == 0 ? TargetClass.Ferrous : TargetClass.NonFerrous;
+                if (run.Events.Any(e => Math.Abs(e.PeakSeconds - centres[k]) < 1.0 && e.Class == expected))
+                {
+                    found++;
+                }
+                else
+                {
+                    missed.Add($"seed {seed} pass at {centres[k]} s: " + string.Join("; ", run.Events.Select(e => $"{e.PeakSeconds:F1} s {e.PeakShiftHz:F3} Hz {e.Class}")));
+                }
+            }
+        }
+
+        Assert.True(found == 4 * centres.Length, $"{found} of {4 * centres.Length} found; " + string.Join(" | ", missed));
+    }
+
     // Synthetic gates (invented): noise 0.01 Hz, a still baseline that starts to drift at a rate from 20 s, one pass, 45 s.
     private static PipelineRun RunAfterOnset(int seed, double rateHzPerSecond, TargetPass pass)
     {
