@@ -5,9 +5,9 @@ namespace FreqReadout.Readout
 {
     /// <summary>
     /// Holds a finished pass (an event ended <see cref="EventEnd.Released"/> or <see cref="EventEnd.Resolved"/>) for
-    /// <see cref="GapSeconds"/> before it is queued, so that a pass whose shift dipped under the release level for a
-    /// moment is reported once: an event of the same sign that starts no later than the gap after the held one ended
-    /// is merged into it (start of the first, end of the second, the larger peak with its class, sigma and noise;
+    /// <see cref="GapSeconds"/> + 1 s before it is queued (the resolver may report a pass up to 1 s before the candidate
+    /// that led to it opened), so that a pass whose shift dipped under the release level for a moment is reported once: an event of the same sign that starts no later than the gap after the held one ended
+    /// is merged into it (start of the first, end of the second, the larger peak, one with a class before one without, with its class, sigma and noise;
     /// below-floor and mixed-sign flags of either). Any other event, or one of the other sign, first queues the held
     /// one, so the queue keeps time order. Nothing allocates; O(1) per gate.
     /// </summary>
@@ -15,6 +15,11 @@ namespace FreqReadout.Readout
     {
         /// <summary>Events of one sign closer than this are one event, s (common practice, no source).</summary>
         public const double GapSeconds = 0.5;
+
+        // How long a finished pass is held, s: the gap, plus the time by which a pass the resolver finds afterwards may start
+        // before the candidate that led to it (ExcursionResolver.EdgeMarginSeconds): a pass's own tail, decided later, still
+        // merges into it.
+        private const double HoldSeconds = GapSeconds + ExcursionResolver.EdgeMarginSeconds;
 
         private const double TimeEpsilonSeconds = 1e-6;
 
@@ -68,12 +73,12 @@ namespace FreqReadout.Readout
         /// </summary>
         public void Tick(double timeSeconds, bool candidateOpen, double candidateStartSeconds)
         {
-            if (!hasHeld || timeSeconds - held.EndSeconds <= GapSeconds)
+            if (!hasHeld || timeSeconds - held.EndSeconds <= HoldSeconds)
             {
                 return;
             }
 
-            if (!candidateOpen || candidateStartSeconds - held.EndSeconds > GapSeconds + TimeEpsilonSeconds)
+            if (!candidateOpen || candidateStartSeconds - held.EndSeconds > HoldSeconds + TimeEpsilonSeconds)
             {
                 Flush();
             }
@@ -94,7 +99,10 @@ namespace FreqReadout.Readout
 
         private void Merge()
         {
-            bool later = ScalarMath.Abs(fresh.PeakShiftHz) > ScalarMath.Abs(held.PeakShiftHz);
+            // A peak with a class (ferrous or non-ferrous) wins over one without, then the larger one.
+            bool freshClear = fresh.Class == TargetClass.Ferrous || fresh.Class == TargetClass.NonFerrous;
+            bool heldClear = held.Class == TargetClass.Ferrous || held.Class == TargetClass.NonFerrous;
+            bool later = freshClear != heldClear ? freshClear : ScalarMath.Abs(fresh.PeakShiftHz) > ScalarMath.Abs(held.PeakShiftHz);
             DetectionEvent peak = later ? fresh : held;
             double end = fresh.EndSeconds > held.EndSeconds ? fresh.EndSeconds : held.EndSeconds;
             held.Set(
