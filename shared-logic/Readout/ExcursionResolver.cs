@@ -65,8 +65,9 @@ namespace FreqReadout.Readout
     /// while lock is lost, so no drift window is ever clear of one), the readings since the candidate opened, at most
     /// <see cref="ChainSeconds"/> back, get the robust quadratic of (5); when it explains them and is a plausible drift as
     /// in (2) (a step keeps the old rate and stays a target), its residuals give the passes with at least two readings at
-    /// k_t sigma' (none with mixed signs: a quadratic bent across a kink leaves those, and the candidate then waits for
-    /// (4)), and the tracker is re-anchored on that fit; with no pass in it, drift.
+    /// k_t sigma' (none with mixed signs and none starting within m of the span's start: a quadratic bent across a kink
+    /// leaves those, and the candidate then waits for (4)), and the tracker is re-anchored on that fit; with no pass in it,
+    /// drift.
     /// Otherwise the candidate stays pending. Cost: O(n) in the readings held (at most history_gates),
     /// run at most every <see cref="CheckIntervalSeconds"/> while a candidate is open; nothing allocates.
     /// </para>
@@ -310,7 +311,7 @@ namespace FreqReadout.Readout
                     FillPass(history, crowdFrom, nowSeconds - afterSeconds, crowdSigma, thresholdSigma, releaseSigma, chain, chain, double.MaxValue, null, LateMinReadings, into);
                     if (into.Kind == ExcursionVerdict.Pass)
                     {
-                        if (AnyMixedSign(into))
+                        if (!PassesClear(into, crowdFrom + EdgeMarginSeconds))
                         {
                             into.Kind = ExcursionVerdict.Pending;
                         }
@@ -765,18 +766,19 @@ namespace FreqReadout.Readout
             into.Kind = ExcursionVerdict.Pass;
         }
 
-        // True when a pass of the verdict has readings of both signs at the threshold.
-        private static bool AnyMixedSign(ExcursionVerdict verdict)
+        // True when no pass of the verdict has readings of both signs at the threshold, and none starts before a time (a
+        // pass at the very start of a fitted span is not bounded by baseline before it: more likely a bend the fit missed).
+        private static bool PassesClear(ExcursionVerdict verdict, double earliestStartSeconds)
         {
             for (int k = 0; k < verdict.PassCount; k++)
             {
-                if (verdict.PassMixedSign[k])
+                if (verdict.PassMixedSign[k] || verdict.PassStartSeconds[k] < earliestStartSeconds)
                 {
-                    return true;
+                    return false;
                 }
             }
 
-            return false;
+            return true;
         }
 
         // Drops the passes whose peak lies within KinkGuardSeconds of the kink and is no larger than the kink's timing error

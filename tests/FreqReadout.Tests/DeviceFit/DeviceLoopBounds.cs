@@ -89,7 +89,7 @@ internal static class DeviceLoopBounds
         new("ExcursionResolver.FillChain", 9, "count <= HistoryGates (the final check)", HistoryGatesDefault, HistoryGatesLimit),
         new("ExcursionResolver.WindowNoise", 0, "WindowNoiseReadings = 67 newest readings", 67, 67),
         new("ExcursionResolver.DropPassesNear", 0, "PassCount <= ExcursionVerdict.MaxPasses", 4, 4),
-        new("ExcursionResolver.AnyMixedSign", 0, "PassCount <= ExcursionVerdict.MaxPasses", 4, 4),
+        new("ExcursionResolver.PassesClear", 0, "PassCount <= ExcursionVerdict.MaxPasses", 4, 4),
         new("ReadoutPipeline.Decide", 0, "verdict.PassCount <= ExcursionVerdict.MaxPasses (one event per pass)", 4, 4),
         new("KinkFit.TrySolve", 0, "steps + 1 <= KinkFit.MaxSteps + 1 (kink times tried)", 401, 401),
 
