@@ -14,7 +14,7 @@ public sealed record BenchSceneKey(BenchKind Kind, BenchMode Mode, bool DriftOnl
 
     /// <summary>
     /// The keys of a whole bench for a master seed and size, in a fixed order (kind, mode, targets then drift-only, index).
-    /// Seeds: SplitMix64 of the master seed mixed with the kind, mode, role and index.
+    /// Seeds: SplitMix64 of the master seed, then mixed with the kind, mode, role and index (each XOR-ed in and SplitMix64-ed).
     /// </summary>
     public static List<BenchSceneKey> All(long masterSeed, QualityBenchSize size, IReadOnlyCollection<BenchKind> kinds)
     {
@@ -46,7 +46,9 @@ public sealed record BenchSceneKey(BenchKind Kind, BenchMode Mode, bool DriftOnl
 
     private static long Mix(long master, int kind, int mode, int role, int index)
     {
-        ulong x = unchecked((ulong)master);
+        // The master is scrambled first: XOR-ing small parts into a small master seed directly made different (master, kind)
+        // pairs give one scene seed (master 4 with kind 1 and master 5 with kind 2, for instance).
+        ulong x = SplitMix(unchecked((ulong)master));
         foreach (int part in new[] { kind, mode, role, index })
         {
             x = SplitMix(x ^ unchecked((ulong)(part + 0x51ED27)));
