@@ -44,8 +44,8 @@ namespace FreqReadout.Readout
     /// drift rate: the baseline is the old drift going on with a new rate added from a kink time t_k,
     /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
     /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k and no larger than
-    /// 2 |db| 0.3 s + k_t sigma is taken for the kink's own timing error (a kink placed dt off leaves db dt), not a pass (a
-    /// larger one is a pass that pulled the fitted kink onto itself; the tracker then restarts on the kink fit's level and
+    /// |db| 0.05 s + k_t sigma is taken for the kink's own timing error (a kink placed dt off leaves db dt; both sides place
+    /// it to within the grid), not a pass (a larger one is a pass, perhaps one that pulled the fitted kink onto itself; the tracker then restarts on the kink fit's level and
     /// rate at now, with the drift window's bend); for the same reason the readings within 0.3 s of t_k
     /// do not count towards a pass's mixed signs. A pass with at least two readings of the middle
     /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
@@ -271,7 +271,7 @@ namespace FreqReadout.Readout
                 if (twoSided && driftFrom > middleFrom && FillKink(history, beforeFrom, middleFrom, driftFrom, nowSeconds) && kink.TrySolve(middleFrom, driftFrom, KinkStepSeconds))
                 {
                     FillPass(history, middleFrom, driftFrom, sigmaHz, thresholdSigma, releaseSigma, all, all, double.MaxValue, kink, LateMinReadings, into);
-                    if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, (2.0 * ScalarMath.Abs(kink.RateChange) * KinkGuardSeconds) + (thresholdSigma * sigmaHz), into))
+                    if (into.Kind == ExcursionVerdict.Pass && DropPassesNear(kink.KinkSeconds, (ScalarMath.Abs(kink.RateChange) * KinkStepSeconds) + (thresholdSigma * sigmaHz), into))
                     {
                         // The tracker restarts on the kink fit's level and rate, which both sides tell, rather than on
                         // the drift window's alone, which may hold the pass's tail (its bend and the bend's wide

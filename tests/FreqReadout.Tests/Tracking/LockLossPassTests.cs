@@ -35,7 +35,7 @@ public class LockLossPassTests
 
     // A pass centred right on a sudden change of drift rate pulls the fitted kink time onto itself; a peak that close to
     // the kink was once taken for the kink's own timing error (a kink placed dt off leaves db dt) and dropped, whatever
-    // its size. Now only a peak no larger than that error can be (2 |db| 0.3 s + the threshold) is dropped. Before the
+    // its size. Now only a peak no larger than that error can be (|db| 0.05 s + the threshold) is dropped. Before the
     // fix 1 of these 24 was found; now all are (synthetic gates, invented: noise 0.01 Hz, pass 4 s wide).
     [Theory]
     [InlineData(0.5, 0.1)]
@@ -88,6 +88,35 @@ public class LockLossPassTests
         }
 
         Assert.True(found == 8, $"{found} of 8 found; " + string.Join(" | ", missed));
+    }
+
+    // A narrow pass right at a fast change of drift rate: the kink fit places the kink from the readings on both sides of
+    // the pass, to within its 0.05 s grid, so a peak near the kink is dropped as the kink's own timing error only up to
+    // |db| x 0.05 s + the threshold (it was 2 |db| x 0.3 s: 90 sigmas at 1.5 Hz/s, which dropped every pass there).
+    // Synthetic gates, invented: noise 0.01 Hz, a ramp from 20 s, a pass 0.4 s wide and 30 noise sigmas high.
+    [Theory]
+    [InlineData(1.5, 20.1, 0.3)]
+    [InlineData(-1.5, 20.0, -0.3)]
+    [InlineData(1.0, 19.9, -0.3)]
+    public void A_narrow_pass_at_a_fast_drift_rate_onset_is_reported(double rateHzPerSecond, double centreSeconds, double peakHz)
+    {
+        int found = 0;
+        var missed = new List<string>();
+        TargetClass expected = peakHz > 0 ? TargetClass.NonFerrous : TargetClass.Ferrous;
+        for (int seed = 1; seed <= 4; seed++)
+        {
+            PipelineRun run = RunAfterOnset(seed, rateHzPerSecond, new TargetPass(centreSeconds, 0.4, peakHz));
+            if (run.Events.Any(e => Math.Abs(e.PeakSeconds - centreSeconds) < 0.5 && e.Class == expected))
+            {
+                found++;
+            }
+            else
+            {
+                missed.Add($"seed {seed}: " + string.Join("; ", run.Events.Select(e => $"{e.PeakSeconds:F1} s {e.PeakShiftHz:F3} Hz {e.Class}")));
+            }
+        }
+
+        Assert.True(found == 4, $"{found} of 4 found; " + string.Join(" | ", missed));
     }
 
     // Passes that keep coming while lock is lost: a drift rate starts during a pass and a pass follows every 4 s, so no
