@@ -21,7 +21,7 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         public string? Seeds { get; set; }
 
         [CommandOption("--quick")]
-        [Description("The quick subset (16 targets per kind, 4 min drift-only per kind; for CI) instead of the full bench (80 targets and 1 h drift-only per kind).")]
+        [Description("The quick subset (16 targets per kind, 4 min drift-only per kind; for CI) instead of the full bench (400 targets and 5 h drift-only per kind).")]
         public bool Quick { get; set; }
 
         [CommandOption("--kinds <LIST>")]
