@@ -45,8 +45,8 @@ namespace FreqReadout.Readout
     /// c0 + c1 u + c2 u^2 + db max(0, t - t_k), fitted to B and the drift window together with t_k the best of a
     /// 0.05 s grid over the middle (<see cref="KinkFit"/>); a peak within 0.3 s of t_k and no larger than
     /// |db| 0.05 s + k_t sigma is taken for the kink's own timing error (a kink placed dt off leaves db dt; both sides place
-    /// it to within the grid), not a pass (a larger one is a pass, perhaps one that pulled the fitted kink onto itself; the tracker then restarts on the kink fit's level and
-    /// rate at now, with the drift window's bend); for the same reason the readings within 0.3 s of t_k
+    /// it to within the grid), not a pass (a larger one is a pass, perhaps one that pulled the fitted kink onto itself;
+    /// the tracker then restarts on the kink fit's level and rate at now, with the drift window's bend); for the same reason the readings within 0.3 s of t_k
     /// do not count towards a pass's mixed signs. A pass with at least two readings of the middle
     /// at k_t sigma from that baseline is reported as in (1) (end Resolved); otherwise drift. In every case the
     /// middle may hold more than one pass (a lock loss can last through several): excursions separated by more than
@@ -616,14 +616,14 @@ namespace FreqReadout.Readout
         // acceleration). A pass's flank seen for a few seconds bends far more than its slope change over a minute.
         // And the drift rate must have changed: a shift that stays level (a step: metal left near the coil)
         // keeps the tracker's slope and is a target, not lost lock (3 sigma of the fitted slope).
-        private static bool PlausibleDrift(QuadraticFit all, double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
+        private static bool PlausibleDrift(QuadraticFit fit, double sigmaHz, double trackerSlopeHzPerSecond, double trackerAccelerationHzPerSecond2)
         {
-            double slopeChange = ScalarMath.Abs(all.Slope - trackerSlopeHzPerSecond);
+            double slopeChange = ScalarMath.Abs(fit.Slope - trackerSlopeHzPerSecond);
             // Against the tracked bend, or against none at all: a new straight ramp is always a plausible drift, and the
             // tracked bend may itself be what went wrong.
-            double curvatureChange = ScalarMath.Min(ScalarMath.Abs(all.HalfCurvature - (0.5 * trackerAccelerationHzPerSecond2)), ScalarMath.Abs(all.HalfCurvature));
-            double allowed = (slopeChange / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(all.CurvatureVarianceFactor));
-            return curvatureChange <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(all.SlopeVarianceFactor);
+            double curvatureChange = ScalarMath.Min(ScalarMath.Abs(fit.HalfCurvature - (0.5 * trackerAccelerationHzPerSecond2)), ScalarMath.Abs(fit.HalfCurvature));
+            double allowed = (slopeChange / (2.0 * MinDriftSeconds)) + (3.0 * sigmaHz * ScalarMath.Sqrt(fit.CurvatureVarianceFactor));
+            return curvatureChange <= allowed && slopeChange > 3.0 * sigmaHz * ScalarMath.Sqrt(fit.SlopeVarianceFactor);
         }
 
         private bool Smooth(ReadingHistory history, double beforeFrom, double sigmaHz, double thresholdSigma)
