@@ -6,9 +6,10 @@ namespace FreqReadout.Readout
     /// <summary>
     /// Holds a finished pass (an event ended <see cref="EventEnd.Released"/> or <see cref="EventEnd.Resolved"/>) for
     /// <see cref="GapSeconds"/> + 1 s before it is queued (the resolver may report a pass up to 1 s before the candidate
-    /// that led to it opened), so that a pass whose shift dipped under the release level for a moment is reported once: an event of the same sign that starts no later than the gap after the held one ended
-    /// is merged into it (start of the first, end of the second, the larger peak, one with a class before one without, with its class, sigma and noise;
-    /// below-floor and mixed-sign flags of either). Any other event, or one of the other sign, first queues the held
+    /// that led to it opened), so that a pass whose shift dipped under the release level for a moment is reported once:
+    /// an event of the same sign that starts no later than the gap after the held one ended is merged into it (start of
+    /// the first, end of the second, the larger peak, one with a class before one without, with its class, sigma and
+    /// noise; below-floor and mixed-sign flags of either). Any other event, or one of the other sign, first queues the held
     /// one, so the queue keeps time order. Nothing allocates; O(1) per gate.
     /// </summary>
     internal sealed class EventMerger

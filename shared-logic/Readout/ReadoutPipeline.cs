@@ -104,8 +104,9 @@ namespace FreqReadout.Readout
         private const int ProbeMinReadings = 2;
         private const double ProbeSeconds = 3.0;
 
-        // A reported pass's readings stay out of later baselines this long after its end, s: its tail below the release
-        // level still bends a fit (a pass of 100 sigma is 1 sigma at 1 % of its peak).
+        // The readings of a pass the resolver reports stay out of later baselines this long after its end, s: its tail below
+        // the release level still bends a fit (a pass of 100 sigma is 1 sigma at 1 % of its peak). Not after a released
+        // event: marking readings still to come hid the rest of a wide weak pass that dipped and came back.
         private const double TailMarginSeconds = 1.0;
 
         private bool probing;
