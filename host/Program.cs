@@ -156,7 +156,7 @@ public static class Program
     }
 
     /// <summary>The top-level command names (commands and branches) in the order they are registered.</summary>
-    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "bench" };
+    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "record", "bench" };
 
     /// <summary>The command tree; tests run commands through this too.</summary>
     public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
@@ -216,6 +216,12 @@ public static class Program
             {
                 config.AddCommand<CoilCommand>("coil")
                     .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
+            }
+
+            if (Wanted("record"))
+            {
+                config.AddCommand<RecordCommand>("record")
+                    .WithDescription("Record what the device streams over its serial link into a capture, written as it arrives; --live shows the readings; --list lists serial ports.");
             }
 
             if (Wanted("bench"))

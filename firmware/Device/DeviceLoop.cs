@@ -1,5 +1,6 @@
 using FreqReadout.Counting;
 using FreqReadout.Detection;
+using FreqReadout.Firmware.Link;
 using FreqReadout.Firmware.Ports;
 using FreqReadout.Readout;
 
@@ -29,7 +30,21 @@ namespace FreqReadout.Firmware.Device
         private readonly ReadoutPipeline pipeline;
         private readonly GateResult gate;
         private readonly Reading reading;
+        private readonly ReadPacer pacer;
+        private readonly WrapStraddleFilter straddle;
+        private readonly DeviceLinkStreamer link;
+        private readonly LinkInbox inbox;
+        private readonly DetectionEvent linkEvent;
+        private readonly long statusIntervalTicks;
+        private readonly long headerIntervalTicks;
         private bool hasReading;
+        private bool linkStarted;
+        private long firstTick;
+        private long latestTick;
+        private long nextStatusTick;
+        private long nextHeaderTick;
+        private long reads;
+        private int settingsCheck;
         private bool lastHold;
         private long gates;
         private long rejectedTicks;
@@ -41,25 +56,38 @@ namespace FreqReadout.Firmware.Device
 
         /// <summary>A loop over timestamped edges.</summary>
         public DeviceLoop(DeviceSettings settings, IEdgeSource edges, IClockPort clock, IDisplayPort display, IButtonPort buttons)
-            : this(settings, edges, null, clock, display, buttons)
+            : this(settings, edges, null, clock, display, buttons, null, null)
         {
-            if (settings.Input != InputKind.Edges)
-            {
-                throw new System.ArgumentException("settings.Input must be Edges for an edge source");
-            }
         }
 
-        /// <summary>A loop over pulse-counter snapshots.</summary>
+        /// <summary>A loop over timestamped edges that streams them, its readings and events to the PC.</summary>
+        public DeviceLoop(DeviceSettings settings, IEdgeSource edges, IClockPort clock, IDisplayPort display, IButtonPort buttons, DeviceLinkStreamer link, LinkInbox inbox)
+            : this(settings, edges, null, clock, display, buttons, link, inbox)
+        {
+        }
+
+        /// <summary>A loop over pulse-counter snapshots, one read per <see cref="Step"/> (no pacing).</summary>
         public DeviceLoop(DeviceSettings settings, IPulseCounterPort pulseCounter, IDisplayPort display, IButtonPort buttons)
-            : this(settings, null, pulseCounter, null, display, buttons)
+            : this(settings, null, pulseCounter, null, display, buttons, null, null)
         {
-            if (settings.Input != InputKind.Snapshots)
+        }
+
+        /// <summary>
+        /// A loop over pulse-counter snapshots paced on <paramref name="clock"/> (the counter's own time base, 64-bit, at the
+        /// counter settings' clock): a <see cref="Step"/> reads only when a read is due (<see cref="DeviceSettings.ReadRateHz"/>),
+        /// and counts stalls and missed deadlines. With a <paramref name="link"/> (and its <paramref name="inbox"/>, which may
+        /// be null) every read, reading, event and a status frame go to the PC.
+        /// </summary>
+        public DeviceLoop(DeviceSettings settings, IPulseCounterPort pulseCounter, IClockPort clock, IDisplayPort display, IButtonPort buttons, DeviceLinkStreamer link, LinkInbox inbox)
+            : this(settings, null, pulseCounter, clock, display, buttons, link, inbox)
+        {
+            if (clock == null)
             {
-                throw new System.ArgumentException("settings.Input must be Snapshots for a pulse counter");
+                throw new System.ArgumentNullException("clock");
             }
         }
 
-        private DeviceLoop(DeviceSettings settings, IEdgeSource edges, IPulseCounterPort pulseCounter, IClockPort clock, IDisplayPort display, IButtonPort buttons)
+        private DeviceLoop(DeviceSettings settings, IEdgeSource edges, IPulseCounterPort pulseCounter, IClockPort clock, IDisplayPort display, IButtonPort buttons, DeviceLinkStreamer link, LinkInbox inbox)
         {
             if (settings == null)
             {
@@ -75,6 +103,21 @@ namespace FreqReadout.Firmware.Device
             if (display == null || buttons == null || (edges == null && pulseCounter == null))
             {
                 throw new System.ArgumentNullException("ports");
+            }
+
+            if (edges != null && settings.Input != InputKind.Edges)
+            {
+                throw new System.ArgumentException("settings.Input must be Edges for an edge source");
+            }
+
+            if (pulseCounter != null && settings.Input != InputKind.Snapshots)
+            {
+                throw new System.ArgumentException("settings.Input must be Snapshots for a pulse counter");
+            }
+
+            if (pulseCounter != null && clock != null && settings.TimerBits != 64)
+            {
+                throw new System.ArgumentException("a paced pulse-counter loop needs timer bits 64 (the clock is read unwrapped)");
             }
 
             this.settings = settings;
@@ -97,6 +140,30 @@ namespace FreqReadout.Firmware.Device
             pipeline = new ReadoutPipeline(settings.Readout);
             gate = new GateResult();
             reading = new Reading();
+            double clockHz = settings.Counter.ClockHz;
+            if (pulseCounter != null && clock != null)
+            {
+                long period = (long)(clockHz / settings.ReadRateHz + 0.5);
+                pacer = new ReadPacer(period, (long)(settings.StallLimitSeconds * clockHz + 0.5));
+            }
+
+            if (pulseCounter != null && settings.CountWrapSpan > 0)
+            {
+                straddle = new WrapStraddleFilter(settings.CountWrapSpan);
+            }
+
+            this.link = link;
+            this.inbox = inbox;
+            if (settings.SettingsText != null)
+            {
+                settingsCheck = SettingsCheck(settings.SettingsText);
+            }
+            if (link != null)
+            {
+                linkEvent = new DetectionEvent();
+                statusIntervalTicks = (long)(settings.StatusIntervalSeconds * clockHz + 0.5);
+                headerIntervalTicks = (long)(settings.HeaderIntervalSeconds * clockHz + 0.5);
+            }
         }
 
         /// <summary>Gates counted so far.</summary>
@@ -117,6 +184,24 @@ namespace FreqReadout.Firmware.Device
             get { return displayUpdates; }
         }
 
+        /// <summary>Reads of the pulse counter (or edges) taken.</summary>
+        public long Reads
+        {
+            get { return reads; }
+        }
+
+        /// <summary>The read pacer (stalls, missed deadlines, longest gap); null when the loop is not paced.</summary>
+        public ReadPacer Pacer
+        {
+            get { return pacer; }
+        }
+
+        /// <summary>The wrap mending of pulse-counter reads; null when <see cref="DeviceSettings.CountWrapSpan"/> is 0.</summary>
+        public WrapStraddleFilter Straddle
+        {
+            get { return straddle; }
+        }
+
         /// <summary>The readout pipeline (baseline, noise, hold state) this loop drives.</summary>
         public ReadoutPipeline Pipeline
         {
@@ -134,14 +219,15 @@ namespace FreqReadout.Firmware.Device
             return hasReading;
         }
 
-        /// <summary>Takes the oldest finished detection event into a caller-owned object, if any.</summary>
+        /// <summary>Takes the oldest finished detection event into a caller-owned object, if any (with a link, events go to the PC instead and none are left here).</summary>
         public bool TryTakeEvent(DetectionEvent into)
         {
             return pipeline.TryTakeEvent(into);
         }
 
         /// <summary>
-        /// One pass of the loop. Returns the number of gates that closed in this pass.
+        /// One pass of the loop. Returns the number of gates that closed in this pass. A paced loop returns 0 at once when
+        /// no read is due (<see cref="MicrosecondsUntilDue"/> says how long to wait).
         /// </summary>
         public int Step()
         {
@@ -157,7 +243,37 @@ namespace FreqReadout.Firmware.Device
                 pipeline.SetHold(hold);
             }
 
-            return edges != null ? StepEdges() : StepSnapshot();
+            int closed = edges != null ? StepEdges() : StepSnapshot();
+            if (link != null)
+            {
+                ServiceLink();
+            }
+
+            return closed;
+        }
+
+        /// <summary>
+        /// A paced loop: how long until the next read is due, in ticks of the clock (µs on a board); 0 when due now or
+        /// when the loop is not paced or the clock cannot be read. A board sleeps only when this is well over its 10 ms tick.
+        /// </summary>
+        public long TicksUntilDue()
+        {
+            ulong now;
+            if (pacer == null || !clock.TryReadNow(out now))
+            {
+                return 0;
+            }
+
+            return pacer.MicrosecondsUntilDue((long)now);
+        }
+
+        /// <summary>With a link: queues the batches of reads gathered so far (before the loop stops).</summary>
+        public void FlushLink()
+        {
+            if (link != null)
+            {
+                link.Flush();
+            }
         }
 
         private int StepEdges()
@@ -169,10 +285,17 @@ namespace FreqReadout.Firmware.Device
             while (taken < settings.MaxEdgesPerStep && edges.TryReadEdge(out raw))
             {
                 taken++;
+                reads++;
                 if (!timeUnwrapper.TryUnwrap(raw, out tick))
                 {
                     rejectedTicks++;
                     continue;
+                }
+
+                NoteTick(tick);
+                if (link != null && settings.StreamReads)
+                {
+                    link.AddEdge(tick);
                 }
 
                 if (edgeCounter.AddEdge(tick, gate))
@@ -198,11 +321,34 @@ namespace FreqReadout.Firmware.Device
 
         private int StepSnapshot()
         {
+            if (pacer != null)
+            {
+                ulong now;
+                if (!clock.TryReadNow(out now) || !pacer.IsDue((long)now))
+                {
+                    return 0;
+                }
+
+                pacer.Taken((long)now);
+            }
+
             ulong rawCount;
             ulong rawTime;
             if (!pulseCounter.TryReadSnapshot(out rawCount, out rawTime))
             {
                 return 0;
+            }
+
+            reads++;
+            if (straddle != null)
+            {
+                long mended;
+                if (!straddle.TryAccept((long)rawCount, out mended))
+                {
+                    return 0;
+                }
+
+                rawCount = (ulong)mended;
             }
 
             long tick;
@@ -211,6 +357,12 @@ namespace FreqReadout.Firmware.Device
             {
                 rejectedTicks++;
                 return 0;
+            }
+
+            NoteTick(tick);
+            if (link != null && settings.StreamReads)
+            {
+                link.AddSnapshot(tick, count);
             }
 
             if (snapshotCounter.AddSnapshot(tick, count, gate))
@@ -222,11 +374,112 @@ namespace FreqReadout.Firmware.Device
             return 0;
         }
 
+        private void NoteTick(long tick)
+        {
+            if (!linkStarted)
+            {
+                linkStarted = true;
+                firstTick = tick;
+                nextStatusTick = tick + statusIntervalTicks;
+                nextHeaderTick = tick + headerIntervalTicks;
+                if (link != null)
+                {
+                    link.SendHeader();
+                    if (settings.SettingsText != null)
+                    {
+                        link.SendSettings(settings.SettingsText);
+                    }
+                }
+            }
+
+            latestTick = tick;
+        }
+
+        private void ServiceLink()
+        {
+            if (inbox != null)
+            {
+                if (inbox.TryTakeRequest(FreqReadout.Link.LinkFrameType.CaptureHeader))
+                {
+                    link.Flush();
+                    link.SendHeader();
+                }
+
+                if (inbox.TryTakeRequest(FreqReadout.Link.LinkFrameType.Settings) && settings.SettingsText != null)
+                {
+                    link.SendSettings(settings.SettingsText);
+                }
+
+                if (inbox.TryTakeRequest(FreqReadout.Link.LinkFrameType.Status))
+                {
+                    SendStatus();
+                }
+            }
+
+            if (!linkStarted)
+            {
+                return;
+            }
+
+            if (latestTick >= nextHeaderTick)
+            {
+                nextHeaderTick = latestTick + headerIntervalTicks;
+                link.Flush();
+                link.SendHeader();
+            }
+
+            if (latestTick >= nextStatusTick)
+            {
+                nextStatusTick = latestTick + statusIntervalTicks;
+                SendStatus();
+            }
+        }
+
+        private void SendStatus()
+        {
+            FreqReadout.Link.StatusPayload status = link.Status;
+            status.BootId = settings.BootId;
+            status.UptimeMicroseconds = (long)((latestTick - firstTick) * (1e6 / settings.Counter.ClockHz));
+            status.Reads = reads;
+            status.ReadsDropped = straddle != null ? straddle.Dropped : 0;
+            status.WrapsMended = straddle != null ? straddle.Mended : 0;
+            status.Stalls = pacer != null ? pacer.Stalls : 0;
+            status.LongestGapMicroseconds = pacer != null ? (long)(pacer.LongestGapMicroseconds * (1e6 / settings.Counter.ClockHz)) : 0;
+            status.MissedDeadlines = pacer != null ? pacer.MissedDeadlines : 0;
+            status.FramesLost = link.Queue.FramesLost;
+            status.RejectedTicks = rejectedTicks;
+            status.SettingsCheck = settingsCheck;
+            status.SettingsProblems = settings.SettingsProblems;
+            status.HoldActive = lastHold || pipeline.HoldActive;
+            link.Flush();
+            link.SendStatus();
+        }
+
+        private static int SettingsCheck(string text)
+        {
+            byte[] bytes = new byte[text.Length];
+            for (int i = 0; i < text.Length; i++)
+            {
+                bytes[i] = (byte)text[i];
+            }
+
+            return FreqReadout.Link.FrameCrc.Compute(bytes, 0, bytes.Length);
+        }
+
         private void Publish()
         {
             gates++;
             pipeline.Process(gate, reading);
             hasReading = true;
+            if (link != null)
+            {
+                link.SendReading(reading);
+                while (pipeline.TryTakeEvent(linkEvent))
+                {
+                    link.SendEvent(linkEvent);
+                }
+            }
+
             bool changed = !shown || reading.State != lastShownState || reading.Class != lastShownClass;
             if (changed || reading.TimeSeconds - lastShownSeconds >= settings.DisplayIntervalSeconds)
             {

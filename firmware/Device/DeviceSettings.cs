@@ -40,6 +40,39 @@ namespace FreqReadout.Firmware.Device
         /// </summary>
         public double DisplayIntervalSeconds { get; set; } = 0.5;
 
+        /// <summary>
+        /// Pulse-counter reads a second when the loop is paced by a clock ([10, 5000]). Default 1000: the per-gate cost
+        /// table in hardware-notes/device-budget.md is what says whether a board holds it.
+        /// </summary>
+        public double ReadRateHz { get; set; } = 1000;
+
+        /// <summary>A gap between two paced reads longer than this is a stall of the loop (counted, never a dropout), seconds ([0.001, 10]). Default 0.025.</summary>
+        public double StallLimitSeconds { get; set; } = 0.025;
+
+        /// <summary>
+        /// The span a pulse-counter read can be off by when it races the driver's overflow interrupt (32767 with the ESP32
+        /// driver); 0 turns the mending off. Needs <see cref="CountBits"/> = 64 (the driver's extended count). Default 0.
+        /// </summary>
+        public long CountWrapSpan { get; set; }
+
+        /// <summary>With a link: a status frame this often, seconds of capture time ([0.1, 60]). Default 1.</summary>
+        public double StatusIntervalSeconds { get; set; } = 1.0;
+
+        /// <summary>With a link: the capture header again this often, so a PC that starts listening late can begin, seconds ([0.5, 600]). Default 5.</summary>
+        public double HeaderIntervalSeconds { get; set; } = 5.0;
+
+        /// <summary>With a link: send every read (a full capture for the PC) as well as readings and events. Default true.</summary>
+        public bool StreamReads { get; set; } = true;
+
+        /// <summary>A number that changes at every start of the device (a stored counter, or drawn at start); the PC starts a new capture when it changes.</summary>
+        public uint BootId { get; set; }
+
+        /// <summary>The settings text in force (docs/settings-format.md), reported by its check in the status frame; null when none.</summary>
+        public string SettingsText { get; set; }
+
+        /// <summary>Stored settings that were invalid and fell back to their defaults (reported in the status frame).</summary>
+        public int SettingsProblems { get; set; }
+
         /// <summary>Checks every setting; the first bad one is named with its allowed range.</summary>
         public bool TryValidate(out string error)
         {
@@ -74,6 +107,36 @@ namespace FreqReadout.Firmware.Device
             if (!(DisplayIntervalSeconds >= 0 && DisplayIntervalSeconds <= 60))
             {
                 error = "display interval seconds must be in [0, 60]";
+                return false;
+            }
+
+            if (!(ReadRateHz >= 10 && ReadRateHz <= 5000))
+            {
+                error = "read rate hz must be in [10, 5000]";
+                return false;
+            }
+
+            if (!(StallLimitSeconds >= 0.001 && StallLimitSeconds <= 10))
+            {
+                error = "stall limit seconds must be in [0.001, 10]";
+                return false;
+            }
+
+            if (CountWrapSpan != 0 && (CountWrapSpan < 2 || CountBits != 64))
+            {
+                error = "count wrap span must be 0 (off) or at least 2 with count bits 64";
+                return false;
+            }
+
+            if (!(StatusIntervalSeconds >= 0.1 && StatusIntervalSeconds <= 60))
+            {
+                error = "status interval seconds must be in [0.1, 60]";
+                return false;
+            }
+
+            if (!(HeaderIntervalSeconds >= 0.5 && HeaderIntervalSeconds <= 600))
+            {
+                error = "header interval seconds must be in [0.5, 600]";
                 return false;
             }
 

@@ -239,6 +239,13 @@ public sealed class TextCaptureWriter : ICaptureWriter, IEdgeBatchWriter
         _stream.Write(bytes, 0, used);
     }
 
+    /// <summary>Hands every row written so far to the stream and flushes it, so a recording loses nothing already received (to the operating system; the caller forces the disk now and then).</summary>
+    public void Flush()
+    {
+        _writer.Flush();
+        _charsPending = false;
+    }
+
     /// <inheritdoc/>
     public void Complete(IReadOnlyList<KeyValuePair<string, string>> trailer)
     {

@@ -1,4 +1,4 @@
-using FreqReadout.Host.Link;
+using FreqReadout.Link;
 using FreqReadout.Link;
 
 namespace FreqReadout.Tests.Link;

@@ -1,0 +1,95 @@
+namespace FreqReadout.Link
+{
+    /// <summary>
+    /// Reads frames of the capture link from a byte stream (docs/link-protocol.md) and resynchronises after anything
+    /// else: bytes are gathered up to a zero byte (the delimiter); what lies between two delimiters is un-stuffed (COBS),
+    /// and is a frame when it is at least a header and a CRC long, its CRC checks, and its version is one this decoder
+    /// reads. Everything else is counted and dropped; a run of more than <see cref="LinkFrameEncoder.MaxWireBytes"/> bytes
+    /// without a delimiter is dropped up to the next one. Counts of what was lost go into the capture's trailer when
+    /// recording. Nothing allocates per byte or per frame.
+    /// </summary>
+    public sealed class LinkFrameDecoder
+    {
+        private readonly byte[] gathered = new byte[LinkFrameEncoder.MaxWireBytes];
+        private readonly byte[] raw = new byte[LinkFrameEncoder.MaxWireBytes];
+        private int count;
+        private bool overrun;
+        private int lastSequence = -1;
+
+        /// <summary>Frames delivered.</summary>
+        public long Frames { get; private set; }
+
+        /// <summary>Stretches between delimiters whose CRC did not check.</summary>
+        public long CrcErrors { get; private set; }
+
+        /// <summary>Stretches that were not a frame at all: not a COBS encoding, too short, too long, or of a version this decoder does not read.</summary>
+        public long Malformed { get; private set; }
+
+        /// <summary>Frames missing by their sequence numbers (the gaps between consecutive delivered frames).</summary>
+        public long SequenceGaps { get; private set; }
+
+        /// <summary>Takes one byte; true when it completed a frame, which is then in <paramref name="into"/>.</summary>
+        /// <param name="value">The next byte of the stream.</param>
+        /// <param name="into">Filled with the frame when one completes.</param>
+        /// <returns>True when a frame was delivered.</returns>
+        public bool Push(byte value, LinkFrame into)
+        {
+            if (value != 0)
+            {
+                if (count < gathered.Length)
+                {
+                    gathered[count++] = value;
+                }
+                else
+                {
+                    overrun = true;
+                }
+
+                return false;
+            }
+
+            int n = count;
+            int length;
+            bool wasOverrun = overrun;
+            count = 0;
+            overrun = false;
+            if (n == 0)
+            {
+                return false;    // back-to-back delimiters: nothing between them
+            }
+
+            if (wasOverrun || !ByteStuffing.TryDecode(gathered, 0, n, raw, 0, out length) || length < LinkFrameEncoder.HeaderBytes + LinkFrameEncoder.CrcBytes || length > LinkFrameEncoder.HeaderBytes + LinkFrameEncoder.MaxPayloadBytes + LinkFrameEncoder.CrcBytes)
+            {
+                Malformed++;
+                return false;
+            }
+
+            if (FrameCrc.Compute(raw, 0, length) != 0)
+            {
+                CrcErrors++;
+                return false;
+            }
+
+            if (raw[0] != LinkFrameEncoder.Version)
+            {
+                Malformed++;
+                return false;
+            }
+
+            int sequence = raw[2] | (raw[3] << 8);
+            if (lastSequence >= 0)
+            {
+                SequenceGaps += (sequence - lastSequence - 1) & 0xFFFF;
+            }
+
+            lastSequence = sequence;
+            into.Version = raw[0];
+            into.FrameType = raw[1];
+            into.Sequence = sequence;
+            into.PayloadLength = length - LinkFrameEncoder.HeaderBytes - LinkFrameEncoder.CrcBytes;
+            System.Array.Copy(raw, LinkFrameEncoder.HeaderBytes, into.Payload, 0, into.PayloadLength);
+            Frames++;
+            return true;
+        }
+    }
+}
