@@ -73,18 +73,15 @@ namespace FreqReadout.Firmware.Device
         }
 
         /// <summary>
-        /// A loop over pulse-counter snapshots paced on <paramref name="clock"/> (the counter's own time base, 64-bit, at the
-        /// counter settings' clock): a <see cref="Step"/> reads only when a read is due (<see cref="DeviceSettings.ReadRateHz"/>),
-        /// and counts stalls and missed deadlines. With a <paramref name="link"/> (and its <paramref name="inbox"/>, which may
-        /// be null) every read, reading, event and a status frame go to the PC.
+        /// A loop over pulse-counter snapshots. With a <paramref name="clock"/> (the counter's own time base, 64-bit, at the
+        /// counter settings' clock) it is paced: a <see cref="Step"/> reads only when a read is due
+        /// (<see cref="DeviceSettings.ReadRateHz"/>), and stalls and missed deadlines are counted; without one, every
+        /// <see cref="Step"/> reads. With a <paramref name="link"/> (and its <paramref name="inbox"/>; either may be null)
+        /// every read, reading and event, a status frame and the capture header go to the PC.
         /// </summary>
         public DeviceLoop(DeviceSettings settings, IPulseCounterPort pulseCounter, IClockPort clock, IDisplayPort display, IButtonPort buttons, DeviceLinkStreamer link, LinkInbox inbox)
             : this(settings, null, pulseCounter, clock, display, buttons, link, inbox)
         {
-            if (clock == null)
-            {
-                throw new System.ArgumentNullException("clock");
-            }
         }
 
         private DeviceLoop(DeviceSettings settings, IEdgeSource edges, IPulseCounterPort pulseCounter, IClockPort clock, IDisplayPort display, IButtonPort buttons, DeviceLinkStreamer link, LinkInbox inbox)

@@ -6,7 +6,7 @@ namespace FreqReadout.Firmware.Link
     /// Frames waiting for the link's writer thread: a ring of slots made once, each holding one encoded frame (at most
     /// <see cref="LinkFrameEncoder.MaxWireBytes"/> bytes). The readout loop encodes into a free slot and never waits for
     /// the serial port; when every slot is taken the frame is dropped and counted in <see cref="FramesLost"/> (the status
-    /// frame reports it, and the PC sees the gap in the sequence numbers). One producer (the loop) and one consumer (the
+    /// frame reports it) and its sequence number is used up, so the PC sees the gap where it happened. One producer (the loop) and one consumer (the
     /// writer thread); a lock guards the indices. Nothing allocates.
     /// </summary>
     public sealed class LinkSendQueue
@@ -87,6 +87,7 @@ namespace FreqReadout.Firmware.Link
                 if (queued == slots.Length || payload.Overflowed)
                 {
                     framesLost++;
+                    encoder.SkipSequence();    // the PC sees the loss as a sequence gap, where it happened
                     return false;
                 }
 

@@ -17,6 +17,9 @@ namespace FreqReadout.Host.Recording;
 /// </summary>
 public sealed class LinkCaptureRecorder : IDisposable
 {
+    /// <summary>The <c>closed_by</c> of a capture closed because the device restarted.</summary>
+    public const string DeviceReset = "device reset";
+
     private readonly string _outputPath;
     private readonly string _source;
     private readonly IRecordingObserver _observer;
@@ -79,7 +82,7 @@ public sealed class LinkCaptureRecorder : IDisposable
 
                 if (_open != null && !_open.Matches(_header))
                 {
-                    CloseOpen(_open.BootId != _header.BootId ? "device reset" : "new capture header", decoder);
+                    CloseOpen(_open.BootId != _header.BootId ? DeviceReset : "new capture header", decoder);
                 }
 
                 if (_open == null)
@@ -169,7 +172,7 @@ public sealed class LinkCaptureRecorder : IDisposable
 
                 if (_open != null && _status.BootId != _open.BootId)
                 {
-                    CloseOpen("device reset", decoder);
+                    CloseOpen(DeviceReset, decoder);
                 }
 
                 if (_open != null)
@@ -289,7 +292,8 @@ public sealed class LinkCaptureRecorder : IDisposable
                 Pair(RecordingTrailerKeys.LinkFrames, decoder.Frames - open.FramesAtOpen),
                 Pair(RecordingTrailerKeys.LinkCrcErrors, decoder.CrcErrors - open.CrcErrorsAtOpen),
                 Pair(RecordingTrailerKeys.LinkMalformed, decoder.Malformed - open.MalformedAtOpen),
-                Pair(RecordingTrailerKeys.LinkSequenceGaps, decoder.SequenceGaps - open.GapsAtOpen),
+                // A restarted device numbers its frames from 0 again: the jump to its first frame is not a loss.
+                Pair(RecordingTrailerKeys.LinkSequenceGaps, decoder.SequenceGaps - open.GapsAtOpen - (why == DeviceReset ? decoder.LastGap : 0)),
                 Pair(RecordingTrailerKeys.LinkBadPayloads, _badPayloads - open.BadPayloadsAtOpen),
                 Pair(RecordingTrailerKeys.DeviceBootId, open.BootId),
                 Pair(RecordingTrailerKeys.DeviceEvents, open.Events),
@@ -312,6 +316,7 @@ public sealed class LinkCaptureRecorder : IDisposable
             }
 
             open.Writer.Complete(trailer);
+            open.ReleaseWriter();
             open.Outputs.Commit();
             _closedBootId = open.BootId;
             _observer.CaptureClosed(open.Path, open.Rows, why);
@@ -383,6 +388,7 @@ public sealed class LinkCaptureRecorder : IDisposable
         private readonly int _signal;
         private readonly int _side;
         private readonly double _searchHz;
+        private bool _writerReleased;
 
         public OpenCapture(OutputFileSet outputs, OutputFile file, TextCaptureWriter writer, string path, CaptureHeaderPayload header, LinkFrameDecoder decoder, long badPayloads, long rowsBeforeHeader)
         {
@@ -443,10 +449,26 @@ public sealed class LinkCaptureRecorder : IDisposable
             header.BootId == BootId && header.Snapshots == Snapshots && header.ClockHz == _clockHz && header.Prescale == _prescale
             && (int)header.Signal == _signal && (int)header.BeatSide == _side && header.SearchHz == _searchHz;
 
+        /// <summary>Flushes and lets go of the text writer (the file stays open for the output set's commit).</summary>
+        public void ReleaseWriter()
+        {
+            if (!_writerReleased)
+            {
+                _writerReleased = true;
+                Writer.Dispose();
+            }
+        }
+
         public void Dispose()
         {
-            Writer.Dispose();
-            Outputs.Dispose();
+            try
+            {
+                ReleaseWriter();
+            }
+            finally
+            {
+                Outputs.Dispose();
+            }
         }
     }
 }

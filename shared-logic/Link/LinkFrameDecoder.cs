@@ -28,6 +28,9 @@ namespace FreqReadout.Link
         /// <summary>Frames missing by their sequence numbers (the gaps between consecutive delivered frames).</summary>
         public long SequenceGaps { get; private set; }
 
+        /// <summary>The gap counted at the last frame delivered (0 when it followed its predecessor): a receiver that learns from that frame that the device restarted takes it back out of its own count.</summary>
+        public long LastGap { get; private set; }
+
         /// <summary>Takes one byte; true when it completed a frame, which is then in <paramref name="into"/>.</summary>
         /// <param name="value">The next byte of the stream.</param>
         /// <param name="into">Filled with the frame when one completes.</param>
@@ -77,10 +80,8 @@ namespace FreqReadout.Link
             }
 
             int sequence = raw[2] | (raw[3] << 8);
-            if (lastSequence >= 0)
-            {
-                SequenceGaps += (sequence - lastSequence - 1) & 0xFFFF;
-            }
+            LastGap = lastSequence >= 0 ? (sequence - lastSequence - 1) & 0xFFFF : 0;
+            SequenceGaps += LastGap;
 
             lastSequence = sequence;
             into.Version = raw[0];

@@ -34,6 +34,15 @@ namespace FreqReadout.Link
         }
 
         /// <summary>
+        /// Uses up one sequence number without writing a frame: a sender that has to drop a frame (its queue was full)
+        /// calls this, so the receiver sees the loss as a gap in the sequence numbers, where it happened.
+        /// </summary>
+        public void SkipSequence()
+        {
+            sequence = (sequence + 1) & 0xFFFF;
+        }
+
+        /// <summary>
         /// Writes one frame into <paramref name="destination"/> (room for <see cref="MaxWireBytes"/> bytes from
         /// <paramref name="destinationOffset"/> is enough); false, and nothing written, when the type is not 1-255 or the
         /// payload is longer than <see cref="MaxPayloadBytes"/>.

@@ -17,7 +17,7 @@ internal static class ConsoleCapture
     /// <summary>Runs <see cref="Program.Main"/> (which also turns usage errors into one line).</summary>
     public static (int Exit, string Out, string Err) RunMain(params string[] args) => Capture(() => Program.Main(args));
 
-    private static (int Exit, string Out, string Err) Capture(Func<int> run)
+    public static (int Exit, string Out, string Err) Capture(Func<int> run)
     {
         var savedOut = Console.Out;
         var savedErr = Console.Error;
