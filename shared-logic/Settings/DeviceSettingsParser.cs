@@ -55,10 +55,11 @@ namespace FreqReadout.Settings
             int pos = 0;
             while (pos <= text.Length)
             {
-                int end = text.IndexOf('\n', pos);
-                if (end < 0)
+                // Own scans rather than string.IndexOf: its start-index checks differ between nanoFramework and .NET.
+                int end = pos;
+                while (end < text.Length && text[end] != '\n')
                 {
-                    end = text.Length;
+                    end++;
                 }
 
                 lineNumber++;
@@ -101,8 +102,13 @@ namespace FreqReadout.Settings
                     continue;
                 }
 
-                int equals = text.IndexOf('=', start);
-                if (equals < 0 || equals >= stop)
+                int equals = start;
+                while (equals < stop && text[equals] != '=')
+                {
+                    equals++;
+                }
+
+                if (equals == stop)
                 {
                     problems.Add(lineNumber, string.Empty, "expected 'key = value', a comment starting with '#' or a blank line, got " + Quote(text.Substring(start, stop - start)) + " (ignored)");
                     continue;
@@ -378,7 +384,7 @@ namespace FreqReadout.Settings
                 stop--;
             }
 
-            return text.Substring(start, stop - start);
+            return start == stop ? string.Empty : text.Substring(start, stop - start);
         }
 
         private static bool IsBlank(char c)
@@ -390,6 +396,11 @@ namespace FreqReadout.Settings
         private static string Quote(string value)
         {
             int n = value.Length < MaxQuotedChars ? value.Length : MaxQuotedChars;
+            if (n == 0)
+            {
+                return "\"\"";
+            }
+
             char[] chars = new char[n];
             for (int i = 0; i < n; i++)
             {

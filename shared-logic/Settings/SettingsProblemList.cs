@@ -89,6 +89,11 @@ namespace FreqReadout.Settings
             }
 
             int n = key.Length < MaxKeyChars ? key.Length : MaxKeyChars;
+            if (n == 0)
+            {
+                return string.Empty;
+            }
+
             char[] chars = new char[n];
             for (int i = 0; i < n; i++)
             {
