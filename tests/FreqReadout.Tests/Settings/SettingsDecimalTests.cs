@@ -8,7 +8,7 @@ namespace FreqReadout.Tests.Settings;
 
 /// <summary>
 /// The settings numbers: read and written by integer arithmetic on digits. Oracles: System.Decimal (exact decimal
-/// arithmetic) for the text, and .NET's double.Parse in the invariant culture (correctly rounded since .NET Core 3.0)
+/// arithmetic) for the text, and .NET's double.Parse in the invariant culture (correctly rounded since .NET Core 3.0, from memory)
 /// for the value; both are run with a comma-decimal current culture to show the settings code does not depend on it.
 /// </summary>
 public sealed class SettingsDecimalTests

@@ -9,7 +9,7 @@ namespace FreqReadout.Tests.Settings;
 /// <summary>Generators and comparison of settings values for the settings tests.</summary>
 internal static class SettingsTestValues
 {
-    /// <summary>Every property of the two objects, in key order, as "key=value" with values written by .NET ("R" doubles), for messages and comparisons.</summary>
+    /// <summary>Every property of the object, in key order, as "key=value" with values written by .NET ("R" doubles), for messages and comparisons.</summary>
     public static string Describe(DeviceSettingsValues v) =>
         FormattableString.Invariant($"gate_s={v.GateSeconds:R} estimator={v.Estimator} threshold_sigma={v.ThresholdSigma:R} polarity={v.Polarity} signal={v.Signal} beat_side={v.BeatSide} search_hz={v.SearchHz:R} tempco_ppm_per_k={v.TempcoPpmPerK:R} link={v.LinkMode} read_rate_hz={v.ReadRateHz} stall_ms={v.StallLimitMilliseconds}");
 
