@@ -3,6 +3,7 @@ using FreqReadout.Detection;
 using FreqReadout.Firmware.Link;
 using FreqReadout.Firmware.Ports;
 using FreqReadout.Readout;
+using FreqReadout.Settings;
 
 namespace FreqReadout.Firmware.Device
 {
@@ -25,9 +26,9 @@ namespace FreqReadout.Firmware.Device
         private readonly IButtonPort buttons;
         private readonly TimerUnwrapper timeUnwrapper;
         private readonly TimerUnwrapper countUnwrapper;
-        private readonly EdgeCounter edgeCounter;
-        private readonly SnapshotCounter snapshotCounter;
-        private readonly ReadoutPipeline pipeline;
+        private EdgeCounter edgeCounter;
+        private SnapshotCounter snapshotCounter;
+        private ReadoutPipeline pipeline;
         private readonly GateResult gate;
         private readonly Reading reading;
         private readonly ReadPacer pacer;
@@ -45,6 +46,7 @@ namespace FreqReadout.Firmware.Device
         private long nextHeaderTick;
         private long reads;
         private int settingsCheck;
+        private string settingsToStore;
         private bool lastHold;
         private long gates;
         private long rejectedTicks;
@@ -141,7 +143,7 @@ namespace FreqReadout.Firmware.Device
             if (pulseCounter != null && clock != null)
             {
                 long period = (long)(clockHz / settings.ReadRateHz + 0.5);
-                pacer = new ReadPacer(period, (long)(settings.StallLimitSeconds * clockHz + 0.5));
+                pacer = new ReadPacer(period, (long)(settings.StallLimitMilliseconds * 0.001 * clockHz + 0.5));
             }
 
             if (pulseCounter != null && settings.CountWrapSpan > 0)
@@ -290,7 +292,7 @@ namespace FreqReadout.Firmware.Device
                 }
 
                 NoteTick(tick);
-                if (link != null && settings.StreamReads)
+                if (link != null && settings.Link == LinkMode.Capture)
                 {
                     link.AddEdge(tick);
                 }
@@ -357,7 +359,7 @@ namespace FreqReadout.Firmware.Device
             }
 
             NoteTick(tick);
-            if (link != null && settings.StreamReads)
+            if (link != null && settings.Link == LinkMode.Capture)
             {
                 link.AddSnapshot(tick, count);
             }
@@ -379,7 +381,7 @@ namespace FreqReadout.Firmware.Device
                 firstTick = tick;
                 nextStatusTick = tick + statusIntervalTicks;
                 nextHeaderTick = tick + headerIntervalTicks;
-                if (link != null)
+                if (link != null && settings.Link != LinkMode.Off)
                 {
                     link.SendHeader();
                     if (settings.SettingsText != null)
@@ -396,6 +398,12 @@ namespace FreqReadout.Firmware.Device
         {
             if (inbox != null)
             {
+                string text;
+                if (inbox.TryTakeSettings(out text))
+                {
+                    ApplySettingsText(text);
+                }
+
                 if (inbox.TryTakeRequest(FreqReadout.Link.LinkFrameType.CaptureHeader))
                 {
                     link.Flush();
@@ -413,7 +421,7 @@ namespace FreqReadout.Firmware.Device
                 }
             }
 
-            if (!linkStarted)
+            if (!linkStarted || settings.Link == LinkMode.Off)
             {
                 return;
             }
@@ -430,6 +438,65 @@ namespace FreqReadout.Firmware.Device
                 nextStatusTick = latestTick + statusIntervalTicks;
                 SendStatus();
             }
+        }
+
+        /// <summary>
+        /// Puts a settings text (docs/settings-format.md) in force now, as the PC's settings frame does: bad values fall
+        /// back to their defaults and are counted in the status frame; a text without the magic line changes nothing.
+        /// The counter and the readout start afresh (a new baseline), the unwrapped time and count go on, and with a link
+        /// the settings now in force and a status frame go to the PC at once. Allocates (rare).
+        /// </summary>
+        /// <returns>True when the text's values are in force.</returns>
+        public bool ApplySettingsText(string text)
+        {
+            bool applied = settings.TryApplyText(text, null);
+            string error;
+            if (applied && settings.TryValidate(out error))
+            {
+                if (edges != null)
+                {
+                    edgeCounter = new EdgeCounter(settings.Counter);
+                }
+                else
+                {
+                    snapshotCounter = new SnapshotCounter(settings.Counter);
+                }
+
+                pipeline = new ReadoutPipeline(settings.Readout);
+                pipeline.SetHold(lastHold);
+                if (pacer != null)
+                {
+                    double clockHz = settings.Counter.ClockHz;
+                    pacer.Change((long)(clockHz / settings.ReadRateHz + 0.5), (long)(settings.StallLimitMilliseconds * 0.001 * clockHz + 0.5));
+                }
+
+                settingsCheck = settings.SettingsText != null ? SettingsCheck(settings.SettingsText) : 0;
+                settingsToStore = settings.SettingsText;
+            }
+            else
+            {
+                applied = false;
+            }
+
+            if (link != null)
+            {
+                if (settings.SettingsText != null)
+                {
+                    link.SendSettings(settings.SettingsText);
+                }
+
+                SendStatus();
+            }
+
+            return applied;
+        }
+
+        /// <summary>Takes the settings text put in force since the last call, for the board to store; false when none.</summary>
+        public bool TryTakeSettingsToStore(out string text)
+        {
+            text = settingsToStore;
+            settingsToStore = null;
+            return text != null;
         }
 
         private void SendStatus()
@@ -468,7 +535,7 @@ namespace FreqReadout.Firmware.Device
             gates++;
             pipeline.Process(gate, reading);
             hasReading = true;
-            if (link != null)
+            if (link != null && settings.Link != LinkMode.Off)
             {
                 link.SendReading(reading);
                 while (pipeline.TryTakeEvent(linkEvent))

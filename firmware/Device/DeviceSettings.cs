@@ -1,5 +1,6 @@
 using FreqReadout.Counting;
 using FreqReadout.Readout;
+using FreqReadout.Settings;
 
 namespace FreqReadout.Firmware.Device
 {
@@ -41,13 +42,13 @@ namespace FreqReadout.Firmware.Device
         public double DisplayIntervalSeconds { get; set; } = 0.5;
 
         /// <summary>
-        /// Pulse-counter reads a second when the loop is paced by a clock ([10, 5000]). Default 1000: the per-gate cost
-        /// table in hardware-notes/device-budget.md is what says whether a board holds it.
+        /// Pulse-counter reads a second when the loop is paced by a clock (settings key read_rate_hz: 100 to 2000). Default
+        /// 1000: the per-gate cost table in hardware-notes/device-budget.md says whether a board holds it.
         /// </summary>
-        public double ReadRateHz { get; set; } = 1000;
+        public int ReadRateHz { get; set; } = DeviceSettingsValues.DefaultReadRateHz;
 
-        /// <summary>A gap between two paced reads longer than this is a stall of the loop (counted, never a dropout), seconds ([0.001, 10]). Default 0.025.</summary>
-        public double StallLimitSeconds { get; set; } = 0.025;
+        /// <summary>A gap between two paced reads longer than this is a stall of the loop (counted, never a dropout), ms (settings key stall_ms: 10 to 10000). Default 50.</summary>
+        public int StallLimitMilliseconds { get; set; } = DeviceSettingsValues.DefaultStallLimitMilliseconds;
 
         /// <summary>
         /// The span a pulse-counter read can be off by when it races the driver's overflow interrupt (32767 with the ESP32
@@ -61,8 +62,8 @@ namespace FreqReadout.Firmware.Device
         /// <summary>With a link: the capture header again this often, so a PC that starts listening late can begin, seconds ([0.5, 600]). Default 5.</summary>
         public double HeaderIntervalSeconds { get; set; } = 5.0;
 
-        /// <summary>With a link: send every read (a full capture for the PC) as well as readings and events. Default true.</summary>
-        public bool StreamReads { get; set; } = true;
+        /// <summary>With a link: what is sent (settings key link). Default capture: every read, reading and event, status and headers.</summary>
+        public LinkMode Link { get; set; } = LinkMode.Capture;
 
         /// <summary>A number that changes at every start of the device (a stored counter, or drawn at start); the PC starts a new capture when it changes.</summary>
         public uint BootId { get; set; }
@@ -72,6 +73,42 @@ namespace FreqReadout.Firmware.Device
 
         /// <summary>Stored settings that were invalid and fell back to their defaults (reported in the status frame).</summary>
         public int SettingsProblems { get; set; }
+
+        /// <summary>
+        /// Reads a settings text (docs/settings-format.md) with the shared parser and puts its values in force: gate,
+        /// estimator, signal, beat side, search frequency, tempco, threshold and polarity into <see cref="Counter"/> and
+        /// <see cref="Readout"/>, and link, read rate and stall limit here. A bad value falls back to its default and is
+        /// counted in <see cref="SettingsProblems"/>; a text without the magic line changes nothing (and is counted as
+        /// one problem). <see cref="SettingsText"/> becomes the canonical text of the values now in force (what the
+        /// status frame's check is computed from). Allocates (rare: at start and when the PC sends settings).
+        /// </summary>
+        /// <param name="text">The settings text.</param>
+        /// <param name="problems">Filled with what was wrong (may be null).</param>
+        /// <returns>True when the text was a settings text of this version and its values are in force.</returns>
+        public bool TryApplyText(string text, SettingsProblemList problems)
+        {
+            if (problems == null)
+            {
+                problems = new SettingsProblemList();
+            }
+
+            DeviceSettingsValues values = new DeviceSettingsValues();
+            if (!DeviceSettingsParser.TryParse(text, values, problems))
+            {
+                SettingsProblems = problems.TotalCount;
+                return false;
+            }
+
+            values.ApplyTo(Counter, Readout);
+            Link = values.LinkMode;
+            ReadRateHz = values.ReadRateHz;
+            StallLimitMilliseconds = values.StallLimitMilliseconds;
+            SettingsProblems = problems.TotalCount;
+            string canonical;
+            string error;
+            SettingsText = DeviceSettingsFormatter.TryFormat(values, out canonical, out error) ? canonical : null;
+            return true;
+        }
 
         /// <summary>Checks every setting; the first bad one is named with its allowed range.</summary>
         public bool TryValidate(out string error)
@@ -110,15 +147,9 @@ namespace FreqReadout.Firmware.Device
                 return false;
             }
 
-            if (!(ReadRateHz >= 10 && ReadRateHz <= 5000))
+            if (!DeviceSettingsValues.TryCheckReadRateHz(ReadRateHz, out error) || !DeviceSettingsValues.TryCheckStallLimitMilliseconds(StallLimitMilliseconds, out error)
+                || !DeviceSettingsValues.TryCheckLinkMode(Link, out error))
             {
-                error = "read rate hz must be in [10, 5000]";
-                return false;
-            }
-
-            if (!(StallLimitSeconds >= 0.001 && StallLimitSeconds <= 10))
-            {
-                error = "stall limit seconds must be in [0.001, 10]";
                 return false;
             }
 

@@ -11,8 +11,8 @@ namespace FreqReadout.Firmware.Device
     /// </summary>
     public sealed class ReadPacer
     {
-        private readonly long periodMicroseconds;
-        private readonly long stallLimitMicroseconds;
+        private long periodMicroseconds;
+        private long stallLimitMicroseconds;
         private long nextDueMicroseconds;
         private long lastReadMicroseconds;
         private bool started;
@@ -24,6 +24,14 @@ namespace FreqReadout.Firmware.Device
         {
             this.periodMicroseconds = periodMicroseconds < 1 ? 1 : periodMicroseconds;
             this.stallLimitMicroseconds = stallLimitMicroseconds < this.periodMicroseconds ? this.periodMicroseconds : stallLimitMicroseconds;
+        }
+
+        /// <summary>Changes the period and the stall limit (new settings); the counts go on, the next deadline is one new period after the last read.</summary>
+        public void Change(long periodMicroseconds, long stallLimitMicroseconds)
+        {
+            this.periodMicroseconds = periodMicroseconds < 1 ? 1 : periodMicroseconds;
+            this.stallLimitMicroseconds = stallLimitMicroseconds < this.periodMicroseconds ? this.periodMicroseconds : stallLimitMicroseconds;
+            nextDueMicroseconds = lastReadMicroseconds + this.periodMicroseconds;
         }
 
         /// <summary>Reads taken.</summary>

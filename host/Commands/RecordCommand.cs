@@ -3,6 +3,7 @@ using System.Globalization;
 using FreqReadout.Host.Output;
 using FreqReadout.Host.Recording;
 using FreqReadout.Link;
+using FreqReadout.Settings;
 using Spectre.Console.Cli;
 
 namespace FreqReadout.Host.Commands;
@@ -195,12 +196,30 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
             return false;
         }
 
-        if (text.Length > LinkFrameEncoder.MaxPayloadBytes)
+        // Checked with the same shared code the device uses; a file with any problem is not sent (the device would
+        // put defaults in place of the bad values, which is not what the file asks for).
+        var values = new DeviceSettingsValues();
+        var problems = new SettingsProblemList();
+        bool recognised = DeviceSettingsParser.TryParse(text, values, problems);
+        if (!recognised || problems.TotalCount > 0)
         {
-            code = CommandOutput.Fail($"{path}: the settings file is {text.Length} bytes; one link frame holds at most {LinkFrameEncoder.MaxPayloadBytes}", CommandOutput.BadInput);
+            for (int i = 0; i < problems.Count; i++)
+            {
+                SettingsProblem p = problems.Get(i);
+                Console.Error.WriteLine($"error: {path}" + (p.LineNumber > 0 ? $":{p.LineNumber}" : string.Empty) + ": " + (string.IsNullOrEmpty(p.Key) ? string.Empty : p.Key + ": ") + p.Message);
+            }
+
+            code = CommandOutput.Fail($"--send-settings {path}: {problems.TotalCount} problem(s); nothing was sent (docs/settings-format.md)", CommandOutput.BadInput);
             return false;
         }
 
+        if (!DeviceSettingsFormatter.TryFormat(values, out string canonical, out string error))
+        {
+            code = CommandOutput.Fail($"--send-settings {path}: {error}", CommandOutput.BadInput);
+            return false;
+        }
+
+        text = canonical;    // the device answers with the check of this canonical text
         return true;
     }
 

@@ -10,6 +10,7 @@ namespace FreqReadout.Host.Recording;
 public sealed class SerialLinkChannel : ILinkChannel
 {
     private readonly SerialPort _port;
+    private bool _broken;
 
     /// <summary>Opens <paramref name="portName"/> at <paramref name="baud"/>.</summary>
     /// <exception cref="LinkChannelException">The port does not exist, is in use, or may not be opened.</exception>
@@ -35,7 +36,9 @@ public sealed class SerialLinkChannel : ILinkChannel
         catch (UnauthorizedAccessException e)
         {
             _port.Dispose();
-            throw new LinkChannelException($"serial port {portName}: cannot open it: in use by another program, not a serial port, or this user may not open it (on Linux, usually the dialout group's right) ({e.Message.TrimEnd('.')})", e);
+            // System.IO.Ports reports most failures to open as access denied; the cause is in the inner exception.
+            string why = (e.InnerException ?? e).Message.TrimEnd('.');
+            throw new LinkChannelException($"serial port {portName}: cannot open it ({why}): in use by another program, not a serial port, or this user may not open it (on Linux, usually the dialout group's right)", e);
         }
         catch (Exception e) when (e is IOException or ArgumentException or InvalidOperationException)
         {
@@ -67,7 +70,9 @@ public sealed class SerialLinkChannel : ILinkChannel
         }
         catch (InvalidOperationException e)
         {
-            throw new IOException("the serial port closed", e);
+            // A device that went away (a pulled USB cable, a hung-up line): System.IO.Ports throws ObjectDisposedException here.
+            _broken = true;
+            throw new IOException("the serial port closed: the device is gone", e);
         }
     }
 
@@ -78,12 +83,22 @@ public sealed class SerialLinkChannel : ILinkChannel
         {
             _port.Write(buffer, offset, count);
         }
-        catch (Exception e) when (e is TimeoutException or InvalidOperationException)
+        catch (Exception e) when (e is TimeoutException or InvalidOperationException or IOException)
         {
+            _broken = true;
             throw new IOException("writing to the serial port failed: " + e.Message.TrimEnd('.'), e);
         }
     }
 
-    /// <inheritdoc/>
-    public void Dispose() => _port.Dispose();
+    /// <summary>Closes the port. After the device went away, closing can block for a long time when bytes were written since (seen with a pseudo-terminal): then it is given 2 s on a worker and left behind.</summary>
+    public void Dispose()
+    {
+        if (!_broken)
+        {
+            _port.Dispose();
+            return;
+        }
+
+        Task.Run(() => _port.Dispose()).Wait(TimeSpan.FromSeconds(2));
+    }
 }

@@ -73,7 +73,7 @@ namespace FreqReadout.Settings
         /// <summary>tempco_ppm_per_k: search-oscillator tempco removed before tracking, ReadoutSettings' range [-1000, 1000] (0 = off; needs search_hz &gt; 0 in beat mode), in 0.01 steps. Default 0.</summary>
         public double TempcoPpmPerK { get; set; }
 
-        /// <summary>link: what the device sends to the PC. Default <see cref="Settings.LinkMode.Off"/>.</summary>
+        /// <summary>link: what the device sends to the PC. Default <see cref="Settings.LinkMode.Capture"/>, so that a device fresh from flashing streams what `record` needs.</summary>
         public LinkMode LinkMode { get; set; }
 
         /// <summary>read_rate_hz: pulse-counter reads per second, integer in [<see cref="MinReadRateHz"/>, <see cref="MaxReadRateHz"/>]. Default <see cref="DefaultReadRateHz"/>.</summary>
@@ -88,7 +88,7 @@ namespace FreqReadout.Settings
             CounterSettings counter = new CounterSettings();
             ReadoutSettings readout = new ReadoutSettings();
             CopyFromSettings(counter, readout);
-            LinkMode = LinkMode.Off;
+            LinkMode = LinkMode.Capture;
             ReadRateHz = DefaultReadRateHz;
             StallLimitMilliseconds = DefaultStallLimitMilliseconds;
         }

@@ -22,7 +22,7 @@ public sealed class DeviceSettingsValuesTests
         Assert.Equal(readout.BeatSide, v.BeatSide);
         Assert.Equal(readout.SearchHz, v.SearchHz);
         Assert.Equal(readout.TempcoPpmPerK, v.TempcoPpmPerK);
-        Assert.Equal(LinkMode.Off, v.LinkMode);
+        Assert.Equal(LinkMode.Capture, v.LinkMode);
         Assert.Equal(1000, v.ReadRateHz);
         Assert.Equal(50, v.StallLimitMilliseconds);
         Assert.True(v.TryValidate(out string? error), error);
