@@ -10,8 +10,9 @@ namespace FreqReadout.Tests.Serial;
 /// <remarks>
 /// <para>Opening: posix_openpt(O_RDWR | O_NOCTTY), grantpt, unlockpt, ptsname_r (POSIX.1-2017; Linux man-pages,
 /// posix_openpt(3), ptsname(3)); the slave is then opened and kept open while the pair lives, because on Linux a read
-/// on the master fails with EIO whenever no slave descriptor is open (Linux behaviour, from memory), for example
-/// between a test's serial ports. Both ends are put into raw mode with tcgetattr, cfmakeraw and tcsetattr (Linux man-pages,
+/// on the master fails with EIO whenever no slave descriptor is open (Linux behaviour, from memory, and seen here:
+/// without that descriptor <c>TryReadMaster</c> threw "read(master) failed: errno 5 (Input/output error)"), for
+/// example between a test's serial ports. Both ends are put into raw mode with tcgetattr, cfmakeraw and tcsetattr (Linux man-pages,
 /// termios(3)): no echo, no CR/LF translation, no XON/XOFF, no signal characters, 8 bits. The master is non-blocking
 /// and every wait is a poll in short slices, so <see cref="Dispose"/> from another thread ends a pending
 /// <see cref="WriteMaster"/> or <see cref="TryReadMaster"/> (with <see cref="ObjectDisposedException"/>) rather
@@ -33,8 +34,8 @@ namespace FreqReadout.Tests.Serial;
 /// <item><description>When the master closes (this pair disposed; for <c>record</c>, the device gone), a <c>Read</c>
 /// pending or made next throws <see cref="ObjectDisposedException"/> "The port is closed." although <c>IsOpen</c>
 /// stays true; later <c>Read</c>s only time out, since the port's I/O loop has stopped; <c>BytesToRead</c> returns
-/// -1 rather than throwing. <c>Close</c> then returns. But in one exploratory run a <c>Write</c> after the hang-up
-/// timed out and <c>Close</c> afterwards did not return within 30 s (System.IO.Ports' Flush waits for its write
+/// -1 rather than throwing. <c>Close</c> then returns. But a <c>Write</c> after that exception times out, and
+/// <c>Close</c> afterwards did not return within 10 s in any of four exploratory runs (System.IO.Ports' Flush waits for its write
 /// queue, which the stopped loop no longer empties). So <c>record</c> should take that exception as "device gone",
 /// write nothing more, and close.</description></item>
 /// <item><description>A path that does not exist: <c>Open</c> throws <see cref="UnauthorizedAccessException"/>

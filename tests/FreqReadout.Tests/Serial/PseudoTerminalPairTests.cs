@@ -149,6 +149,30 @@ public class PseudoTerminalPairTests
     }
 
     [PseudoTerminalFact]
+    public async Task After_a_serial_port_closes_the_master_still_works_for_the_next_port()
+    {
+        // The pair's own slave descriptor keeps the pty's slave side open between ports; without it a read on the
+        // master fails with EIO once the last slave descriptor closes (Linux behaviour, from memory; this test fails
+        // with errno 5 when the pair releases its descriptor).
+        using var pair = new PseudoTerminalPair();
+        await WithinHangBound(() =>
+        {
+            for (int round = 0; round < 2; round++)
+            {
+                using (SerialPort port = OpenPort(pair.SlavePath))
+                {
+                    pair.WriteMaster([0x55, (byte)round], 0, 2);
+                    Assert.Equal(new byte[] { 0x55, (byte)round }, ReadExactly(port, 2));
+                    port.Write([0xAA, (byte)round], 0, 2);
+                    Assert.Equal(new byte[] { 0xAA, (byte)round }, ReadMasterExactly(pair, 2));
+                }
+
+                Assert.False(pair.TryReadMaster(new byte[8], 0, 8, NothingMoreMilliseconds, out int read), $"{read} bytes after the port closed");
+            }
+        }, pair);
+    }
+
+    [PseudoTerminalFact]
     public async Task TryReadMaster_with_nothing_sent_returns_false_and_zero_bytes()
     {
         using var pair = new PseudoTerminalPair();
