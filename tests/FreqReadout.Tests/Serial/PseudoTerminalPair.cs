@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using System.Text;
 
 namespace FreqReadout.Tests.Serial;
@@ -11,40 +12,40 @@ namespace FreqReadout.Tests.Serial;
 /// <para>Opening: posix_openpt(O_RDWR | O_NOCTTY), grantpt, unlockpt, ptsname_r (POSIX.1-2017; Linux man-pages,
 /// posix_openpt(3), ptsname(3)); the slave is then opened and kept open while the pair lives, because on Linux a read
 /// on the master fails with EIO whenever no slave descriptor is open (Linux behaviour, from memory, and seen here:
-/// without that descriptor <c>TryReadMaster</c> threw "read(master) failed: errno 5 (Input/output error)"), for
-/// example between a test's serial ports. Both ends are put into raw mode with tcgetattr, cfmakeraw and tcsetattr (Linux man-pages,
-/// termios(3)): no echo, no CR/LF translation, no XON/XOFF, no signal characters, 8 bits. The master is non-blocking
-/// and every wait is a poll in short slices, so <see cref="Dispose"/> from another thread ends a pending
-/// <see cref="WriteMaster"/> or <see cref="TryReadMaster"/> (with <see cref="ObjectDisposedException"/>) rather
-/// than leaving it blocked.</para>
-/// <para>System.IO.Ports on a pty, as observed here (System.IO.Ports 10.0.15, .NET 10, Linux 6.18, run as root);
-/// worth knowing for <c>freqreadout record</c>:</para>
+/// without that descriptor <c>TryReadMaster</c> threw "read(master) failed: errno 5 (Input/output error)"), for example
+/// between a test's serial ports. Both ends are put into raw mode with tcgetattr, cfmakeraw and tcsetattr (Linux
+/// man-pages, termios(3)): no echo, no CR/LF translation, no XON/XOFF, no signal characters, 8 bits. The master is
+/// non-blocking and every wait is a poll in short slices, so <see cref="Dispose"/> from another thread ends a pending
+/// <see cref="WriteMaster"/> or <see cref="TryReadMaster"/> (with <see cref="ObjectDisposedException"/>) rather than
+/// leaving it blocked.</para>
+/// <para>System.IO.Ports on a pty, as observed here (System.IO.Ports 10.0.15, .NET 10, Linux 6.18, run as root); worth
+/// knowing for <c>freqreadout record</c>:</para>
 /// <list type="bullet">
 /// <item><description>Open works: the port sets its termios (921600 baud, 8N1, no handshake) on the slave and the pty
-/// accepts it, baud changes included (a pty ignores the speed). Bytes pass both ways unchanged
+/// accepts it, baud changes included (a pty ignores the speed, from memory). Bytes pass both ways unchanged
 /// (<c>PseudoTerminalPairTests</c>).</description></item>
 /// <item><description>A pty has no modem lines: setting or reading <c>DtrEnable</c> or <c>RtsEnable</c>, and reading
-/// <c>CDHolding</c>, <c>CtsHolding</c> or <c>DsrHolding</c>, throws <see cref="IOException"/> "Inappropriate ioctl
-/// for device" (ENOTTY). Open with the defaults (both false) does not. So <c>record</c> must not require DTR/RTS, or
-/// must catch that exception. <c>BreakState</c>, <c>DiscardInBuffer</c> and <c>DiscardOutBuffer</c> do not
+/// <c>CDHolding</c>, <c>CtsHolding</c> or <c>DsrHolding</c>, throws <see cref="IOException"/> "Inappropriate ioctl for
+/// device" (ENOTTY). Open with the defaults (both false) does not. So <c>record</c> must not require DTR/RTS, or must
+/// catch that exception. <c>BreakState</c>, <c>DiscardInBuffer</c> and <c>DiscardOutBuffer</c> do not
 /// throw.</description></item>
-/// <item><description><c>Read</c> on an empty port throws <see cref="TimeoutException"/> after about
-/// <c>ReadTimeout</c> (it never returns 0). <c>BytesToRead</c> counts the bytes waiting, and <c>DataReceived</c> is
-/// raised (on the thread pool) while the master is open.</description></item>
+/// <item><description><c>Read</c> on an empty port throws <see cref="TimeoutException"/> after about <c>ReadTimeout</c>
+/// (it never returns 0). <c>BytesToRead</c> counts the bytes waiting, and <c>DataReceived</c> is raised (on the thread
+/// pool) while the master is open.</description></item>
 /// <item><description>When the master closes (this pair disposed; for <c>record</c>, the device gone), a <c>Read</c>
-/// pending or made next throws <see cref="ObjectDisposedException"/> "The port is closed." although <c>IsOpen</c>
-/// stays true; later <c>Read</c>s only time out, since the port's I/O loop has stopped; <c>BytesToRead</c> returns
-/// -1 rather than throwing. <c>Close</c> then returns. But a <c>Write</c> after that exception times out, and
-/// <c>Close</c> afterwards did not return within 10 s in any of four exploratory runs (System.IO.Ports' Flush waits for its write
+/// pending or made next throws <see cref="ObjectDisposedException"/> "The port is closed." although <c>IsOpen</c> stays
+/// true; later <c>Read</c>s only time out, since the port's I/O loop has stopped; <c>BytesToRead</c> returns -1 rather
+/// than throwing. <c>Close</c> then returns. But a <c>Write</c> after that exception times out, and <c>Close</c>
+/// afterwards did not return within 10 s in any of four exploratory runs (System.IO.Ports' Flush waits for its write
 /// queue, which the stopped loop no longer empties). So <c>record</c> should take that exception as "device gone",
 /// write nothing more, and close.</description></item>
-/// <item><description>A path that does not exist: <c>Open</c> throws <see cref="UnauthorizedAccessException"/>
-/// "Access to the port '&lt;path&gt;' is denied." although nothing was denied; the cause is its
-/// <c>InnerException</c>, an <see cref="IOException"/> with strerror's text ("No such file or directory"). A
-/// directory ("Is a directory") and a file that is not a terminal, such as /dev/null ("Inappropriate ioctl for
-/// device"), are wrapped the same way. The one-line error should quote the inner message.</description></item>
-/// <item><description>A second <c>SerialPort</c> opened the same slave while the first was open (as root; no
-/// exclusive lock was seen).</description></item>
+/// <item><description>A path that does not exist: <c>Open</c> throws <see cref="UnauthorizedAccessException"/> "Access
+/// to the port '&lt;path&gt;' is denied." although nothing was denied; the cause is its <c>InnerException</c>, an <see
+/// cref="IOException"/> with strerror's text ("No such file or directory"). A directory ("Is a directory") and a file
+/// that is not a terminal, such as /dev/null ("Inappropriate ioctl for device"), are wrapped the same way. The one-line
+/// error should quote the inner message.</description></item>
+/// <item><description>A second <c>SerialPort</c> opened the same slave while the first was open (as root; no exclusive
+/// lock was seen).</description></item>
 /// </list>
 /// </remarks>
 public sealed class PseudoTerminalPair : IDisposable
@@ -104,13 +105,14 @@ public sealed class PseudoTerminalPair : IDisposable
         }
     }
 
-    /// <summary>True where this class works: Linux (x86-64 and arm64; see the constants in its libc bindings).</summary>
-    public static bool IsSupported => OperatingSystem.IsLinux();
+    /// <summary>True where this class works: Linux on x86-64 or arm64 (see the constants in its libc bindings).</summary>
+    public static bool IsSupported =>
+        OperatingSystem.IsLinux() && RuntimeInformation.ProcessArchitecture is Architecture.X64 or Architecture.Arm64;
 
     /// <summary>Why the pair is not available on this system; the skip reason of <see cref="PseudoTerminalFactAttribute"/>.</summary>
     public static string UnsupportedReason =>
-        "PseudoTerminalPair needs Linux: it opens a pty through libc with Linux's constants and struct sizes " +
-        "(macOS and the BSDs differ, and Windows has no pty a SerialPort can open)";
+        "PseudoTerminalPair needs Linux on x86-64 or arm64: it opens a pty through libc with those constants and " +
+        "calling conventions (macOS, the BSDs and some Linux architectures differ; Windows has no pty a SerialPort can open)";
 
     /// <summary>The slave's device path (for example <c>/dev/pts/3</c>), which a System.IO.Ports.SerialPort can open.</summary>
     public string SlavePath { get; }
@@ -307,5 +309,5 @@ public sealed class PseudoTerminalPair : IDisposable
         }
     }
 
-    private static int LastError() => System.Runtime.InteropServices.Marshal.GetLastPInvokeError();
+    private static int LastError() => Marshal.GetLastPInvokeError();
 }
