@@ -104,7 +104,14 @@ public class PseudoTerminalPairTests
         using SerialPort port = OpenPort(pair.SlavePath);
         await WithinHangBound(() =>
         {
-            Task writer = Task.Run(() => port.Write(burst, 0, burst.Length));
+            // In 4 KiB writes, so WriteTimeout bounds a stall, not the time the whole burst takes.
+            Task writer = Task.Run(() =>
+            {
+                for (int offset = 0; offset < burst.Length; offset += 4096)
+                {
+                    port.Write(burst, offset, Math.Min(4096, burst.Length - offset));
+                }
+            });
             byte[] received = ReadMasterExactly(pair, burst.Length);
             writer.GetAwaiter().GetResult();
             AssertSameBytes(burst, received);
