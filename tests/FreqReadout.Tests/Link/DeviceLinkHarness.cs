@@ -31,13 +31,13 @@ internal sealed class DeviceLinkHarness
         return (simulator.Metadata, rows.Rows);
     });
 
-    public DeviceLinkHarness(uint bootId = 0x5EED0001, int queueSlots = 64)
+    public DeviceLinkHarness(uint bootId = 0x5EED0001, int queueSlots = 64, ILinkPort? port = null)
     {
         (Metadata, Rows) = DemoSnapshots.Value;
         Port = new MemoryLinkPort();
         Queue = new LinkSendQueue(queueSlots);
         Inbox = new LinkInbox();
-        Worker = new LinkPortWorker(Port, Queue, Inbox);
+        Worker = new LinkPortWorker(port ?? Port, Queue, Inbox);
         var header = new CaptureHeaderPayload
         {
             BootId = bootId,
@@ -59,6 +59,7 @@ internal sealed class DeviceLinkHarness
 
     public List<CaptureRow> Rows { get; }
 
+    /// <summary>The fake serial port the device writes to (unused when another port was given).</summary>
     public MemoryLinkPort Port { get; }
 
     public LinkSendQueue Queue { get; }
@@ -74,6 +75,18 @@ internal sealed class DeviceLinkHarness
     public RowPulseCounter Counter { get; }
 
     public DeviceLoop Loop { get; }
+
+    /// <summary>Runs the loop for <paramref name="steps"/> reads at most (fewer when the rows run out), then the writer's worker; false when the rows ran out.</summary>
+    public bool RunSome(int steps)
+    {
+        for (int i = 0; i < steps && !Counter.Done; i++)
+        {
+            Loop.Step();
+        }
+
+        Worker.RunOnce();
+        return !Counter.Done;
+    }
 
     /// <summary>Runs the loop over every row; the writer's worker runs after every <paramref name="stepsPerDrain"/> steps (0 = never until the end).</summary>
     public void RunAll(int stepsPerDrain)
