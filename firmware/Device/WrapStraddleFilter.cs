@@ -7,7 +7,8 @@ namespace FreqReadout.Firmware.Device
     /// by less than half the span (a read every 1-10 ms of a signal of at most a few hundred kHz), so a step outside
     /// [0, span / 2) that the span brings back inside it is a straddle: the read is mended by -+span and counted; any other
     /// step out of range is dropped and counted, and the state stays where the last good read left it. O(1), nothing
-    /// allocates.
+    /// allocates. Limit: a wrong read that is ahead by less than half the span passes as a burst of the signal, and the
+    /// reads after it are dropped until the true count catches up (tested in DeviceLoopHealthTests' sibling cases).
     /// </summary>
     public sealed class WrapStraddleFilter
     {
