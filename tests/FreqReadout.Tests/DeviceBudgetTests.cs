@@ -17,7 +17,7 @@ public class DeviceBudgetTests
     {
         using DeviceModule module = OpenDevice(out _);
         var counter = new IlCostCounter(module, DeviceLoopBounds.Table, new CostAssumptions());
-        counter.Count(DeviceBudget.Entries, CostProfile.Defaults);
+        counter.Count(DeviceBudget.Entries, CostProfile.Defaults, DeviceBudget.NeverCounted);
         foreach (BudgetRow row in DeviceBudget.Rows)
         {
             BudgetReport.Count(counter, row, CostProfile.Defaults);

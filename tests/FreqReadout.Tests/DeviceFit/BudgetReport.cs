@@ -60,12 +60,12 @@ internal static class BudgetReport
         sb.Append("Per method (every device method reached from `DeviceLoop.Step`; worst case including what it calls):\n\n");
         sb.Append("| method | IL instructions | loops: bound | IL ops, defaults | IL ops, limits |\n");
         sb.Append("|---|---:|---|---:|---:|\n");
-        counter.Count(DeviceBudget.Entries, CostProfile.Defaults);
+        counter.Count(DeviceBudget.Entries, CostProfile.Defaults, DeviceBudget.NeverCounted);
         int accessors = 0;
         foreach (MethodShape shape in counter.Reached.Values.ToList())
         {
-            IlCost d = counter.Count([shape.Name], CostProfile.Defaults);
-            IlCost l = counter.Count([shape.Name], CostProfile.Limits);
+            IlCost d = counter.Count([shape.Name], CostProfile.Defaults, DeviceBudget.NeverCounted);
+            IlCost l = counter.Count([shape.Name], CostProfile.Limits, DeviceBudget.NeverCounted);
             bool plainAccessor = (shape.Name.Contains(".get_", StringComparison.Ordinal) || shape.Name.Contains(".set_", StringComparison.Ordinal))
                 && shape.Loops.Count == 0 && d.Ops == shape.Instructions.Count && l.Ops == d.Ops;
             if (plainAccessor)

@@ -114,5 +114,18 @@ internal static class DeviceLoopBounds
         new("QuantisationErrorModel.PeakGainFrequency", 0, "bisection steps k < 40", 40, 40),
         new("QuantisationErrorModel.RegressionDeterministicVariance", 0, "harmonics m <= sqrt(N) + 5, N <= 2^20", 105, 1029),
         new("ScalarMath.Exp", 1, "binary digits of |k| <= 1075 < 2^11: 11", 11, 11),
+
+        // Link frames (docs/link-protocol.md): at most 246 bytes before stuffing (4 header + 240 payload + 2 CRC).
+        new("ByteStuffing.Encode", 0, "frame bytes <= 4 + MaxPayloadBytes (240) + 2 = 246", 246, 246),
+        new("FrameCrc.Continue", 0, "frame bytes <= 246", 246, 246),
+        new("FrameCrc.Continue", 1, "bits of a byte: 8", 8, 8),
+        new("LinkFrameEncoder.TryEncode", 0, "payload bytes <= MaxPayloadBytes (240)", 240, 240),
+        new("LinkPayloadWriter.VarUIntBytes", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),
+        new("LinkPayloadWriter.WriteVarUInt", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),
+        new("LinkPayloadWriter.WriteFixed", 0, "bytes <= 8 (a 64-bit field)", 8, 8),
+        new("LinkPayloadWriter.WriteAscii", 0, "text length <= MaxPayloadBytes (240), longer is refused first", 240, 240),
+        new("SnapshotBatchPayload.Write", 0, "rows - 1 < SnapshotBatchPayload.MaxRows (64)", 64, 64),
+        new("EdgeBatchPayload.Write", 0, "rows - 1 < EdgeBatchPayload.MaxRows (128)", 128, 128),
+        new("DeviceLoop.Publish", 0, "events taken per gate <= the pipeline's event queue (ReadoutPipeline.QueueCapacity = 16)", 16, 16),
     ];
 }
