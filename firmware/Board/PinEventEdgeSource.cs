@@ -1,4 +1,3 @@
-// Board adapter (builds only with -p:FreqReadoutBoard=true, where nanoFramework.System.Device.Gpio restores).
 using System;
 using System.Device.Gpio;
 using FreqReadout.Firmware.Device;
@@ -19,6 +18,7 @@ namespace FreqReadout.Firmware.Board
         private readonly int pin;
         private readonly EdgeRing ring;
 
+        /// <summary>Opens <paramref name="pin"/> as an input and adds the stamp of every rising edge to <paramref name="ring"/>.</summary>
         public PinEventEdgeSource(GpioController controller, int pin, EdgeRing ring)
         {
             this.controller = controller;
@@ -33,6 +33,7 @@ namespace FreqReadout.Firmware.Board
             ring.Add((ulong)DateTime.UtcNow.Ticks);
         }
 
+        /// <summary>Stops the events and closes the pin.</summary>
         public void Dispose()
         {
             controller.UnregisterCallbackForPinValueChangedEvent(pin, OnEdge);
