@@ -5,7 +5,7 @@ using System;
 namespace System.Device.Gpio
 {
     /// <summary>Shim of nanoFramework's GpioController: only the members firmware/Board/ calls.</summary>
-    public sealed class GpioController : IDisposable
+    public sealed class GpioController
     {
         /// <summary>Opens the controller (shim: throws).</summary>
         public GpioController()
@@ -33,12 +33,6 @@ namespace System.Device.Gpio
 
         /// <summary>Unregisters a pin-change callback (shim: throws).</summary>
         public void UnregisterCallbackForPinValueChangedEvent(int pinNumber, PinChangeEventHandler callback)
-        {
-            throw new NotImplementedException("compile-only shim");
-        }
-
-        /// <summary>Releases the controller (shim: throws).</summary>
-        public void Dispose()
         {
             throw new NotImplementedException("compile-only shim");
         }

@@ -1,5 +1,5 @@
 // COMPILE-ONLY SHIM (FreqReadout.BoardShim.CompileOnly): never deployed, never run; every body throws.
-// Signature as declared in nanoframework/nanoFramework.Hardware.Esp32, nanoFramework.Hardware.Esp32/Gpio/Gpio(U+200B)PulseCounter.cs, tag v1.6.34 (1c9a241); the class is in namespace System.Device.Gpio but ships in nanoFramework.Hardware.Esp32 (written from the signature; no implementation copied).
+// Signature as declared in nanoframework/nanoFramework.Hardware.Esp32, nanoFramework.Hardware.Esp32/Gpio/Gpio(U+200B)PulseCounter.cs, tag v1.6.34 (1c9a241; file and class name hold a zero-width space that the C# compiler drops from the metadata name); the class is in namespace System.Device.Gpio but ships in nanoFramework.Hardware.Esp32 (written from the signature; no implementation copied).
 using System;
 
 namespace System.Device.Gpio
