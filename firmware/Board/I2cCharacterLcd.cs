@@ -11,29 +11,24 @@ namespace FreqReadout.Firmware.Board
     /// "backpack", over nanoFramework's <c>System.Device.I2c</c> (signatures from nanoframework/System.Device.I2c tag
     /// v1.1.29). Shows the device loop's DisplayText lines: on 4 rows, frequency, shift and status on rows 1-3 and
     /// row 4 free for <see cref="TryShowFooter"/>; on 2 rows, shift and status (the frequency line is left out).
+    /// The bytes come from <see cref="Hd44780Pcf8574Encoder"/> (bit mapping, nibble timing and character set there).
     /// <para>
-    /// Bit mapping (an assumption: the common backpack wiring; other backpacks map bits differently, check yours with
-    /// a continuity tester and change the constants): PCF8574 P0 = RS, P1 = R/W, P2 = E, P3 = backlight transistor,
-    /// P4..P7 = D4..D7. The PCF8574 drives P7..P0 from each byte written to it (NXP PCF8574/74A data sheet, "Writing to
-    /// the port", from memory); its address is 0100 A2 A1 A0 (0x20-0x27, 0x27 with the address pads open) and the
-    /// PCF8574A's is 0111 A2 A1 A0 (0x38-0x3F). Its bus runs at up to 100 kHz (standard mode), so this adapter does too.
+    /// PCF8574 (NXP PCF8574/74A data sheet, from memory): each byte written drives P7..P0; address 0100 A2 A1 A0
+    /// (0x20-0x27, 0x27 with the address pads open), PCF8574A 0111 A2 A1 A0 (0x38-0x3F); the bus runs at up to 100 kHz
+    /// (standard mode), so this adapter does too.
     /// </para>
     /// <para>
-    /// Controller (Hitachi HD44780U data sheet, from memory): 4-bit interface, high nibble first, each nibble latched on
-    /// the falling edge of E; the set-up is "initialising by instruction" for the 4-bit interface (the data sheet's
-    /// Figure 24): wait more than 40 ms after power rises, send the nibble 3 three times (waits of more than 4.1 ms
-    /// and 100 us after the first two), then 2 (4-bit mode), then function set 0x28 (4 bits, 2 lines: 4-row modules are
-    /// 2-line internally, 5x8 dots), display off 0x08, clear 0x01 (1.52 ms), entry mode 0x06, display on 0x0C.
-    /// Instructions take 37 us; one I2C byte at 100 kHz takes 90 us, so the bus itself paces the controller and the
-    /// busy flag is never read (R/W stays low). Every nibble is three bus bytes when RS changes (E low with the new RS
-    /// first, for the address set-up time) and two otherwise (E high, E low): a character is 4 bytes, about 0.4 ms.
-    /// DDRAM rows start at 0x00, 0x40, columns, 0x40 + columns (0x14, 0x54 on 20 columns).
+    /// Controller set-up (Hitachi HD44780U data sheet, "initialising by instruction", 4-bit interface, Figure 24, from
+    /// memory): wait more than 40 ms after power rises, send the nibble 3 three times (waits of more than 4.1 ms and
+    /// 100 us after the first two), then 2 (4-bit mode), then function set 0x28 (4 bits, 2 lines: 4-row modules are
+    /// 2-line internally, 5x8 dots), display off 0x08, clear 0x01 (1.52 ms), entry mode 0x06 (increment, no shift),
+    /// display on 0x0C (no cursor). Instructions take 37 us; one I2C byte at 100 kHz takes 90 us, so the bus itself
+    /// paces the controller and the busy flag is never read.
     /// </para>
     /// <para>
-    /// Cost: only characters that changed are sent (one address instruction plus the span from the first to the last
-    /// changed column of a row), because the I2C write blocks the read loop: a typical refresh (a few digits) takes a
-    /// few ms, a full three-row rewrite about 25 ms. Characters outside 0x20-0x7D, and '\' (a yen sign in the common
-    /// A00 character ROM), are shown as '?'. A failed write is counted and makes the next refresh rewrite every row.
+    /// Cost: a character is 4 bus bytes, about 0.4 ms, and the write blocks the read loop; only changed characters are
+    /// sent, so a typical refresh (a few digits) takes a few ms and a full three-row rewrite about 25 ms. A failed
+    /// write is counted and makes the next refresh send that row whole (after a failed set-up, every row).
     /// </para>
     /// </summary>
     public sealed class I2cCharacterLcd : IDisplayPort, IDisposable
@@ -44,18 +39,8 @@ namespace FreqReadout.Firmware.Board
         /// <summary>The usual address of a PCF8574A backpack (address pads open).</summary>
         public const int Pcf8574AAddress = 0x3F;
 
-        private const int RegisterSelectBit = 0x01;
-        private const int EnableBit = 0x04;
-        private const int BacklightBit = 0x08;
-        private const int SetDdramAddress = 0x80;
-        private const byte Unknown = 0;
-
         private readonly I2cDevice device;
-        private readonly int columns;
-        private readonly int rows;
-        private readonly byte[] shown;
-        private readonly byte[] wanted;
-        private readonly byte[] transfer;
+        private readonly Hd44780Pcf8574Encoder encoder;
         private long writeFailures;
 
         /// <summary>Routes I2C bus 1 to the pins, opens the backpack and initialises the controller (takes about 80 ms).</summary>
@@ -66,21 +51,7 @@ namespace FreqReadout.Firmware.Board
         /// <param name="rows">Rows: 2 or 4.</param>
         public I2cCharacterLcd(int dataPin, int clockPin, int address, int columns, int rows)
         {
-            if (columns != 16 && columns != 20)
-            {
-                throw new ArgumentOutOfRangeException("columns", "columns must be 16 or 20");
-            }
-
-            if (rows != 2 && rows != 4)
-            {
-                throw new ArgumentOutOfRangeException("rows", "rows must be 2 or 4");
-            }
-
-            this.columns = columns;
-            this.rows = rows;
-            shown = new byte[rows * columns];
-            wanted = new byte[columns];
-            transfer = new byte[2 + (4 * (columns + 1))];
+            encoder = new Hd44780Pcf8574Encoder(columns, rows);
             Configuration.SetPinFunction(dataPin, DeviceFunction.I2C1_DATA);
             Configuration.SetPinFunction(clockPin, DeviceFunction.I2C1_CLOCK);
             device = new I2cDevice(new I2cConnectionSettings(1, address, I2cBusSpeed.StandardMode));
@@ -90,7 +61,7 @@ namespace FreqReadout.Firmware.Board
         /// <summary>Characters per row.</summary>
         public int LineWidth
         {
-            get { return columns; }
+            get { return encoder.Columns; }
         }
 
         /// <summary>I2C writes that failed (no acknowledge, bus error) since the start.</summary>
@@ -102,7 +73,7 @@ namespace FreqReadout.Firmware.Board
         /// <summary>Shows the readout lines (see the class notes for which row shows which line).</summary>
         public void Show(string line1, string line2, string line3)
         {
-            if (rows >= 4)
+            if (encoder.Rows >= 4)
             {
                 WriteRow(0, line1);
                 WriteRow(1, line2);
@@ -118,120 +89,57 @@ namespace FreqReadout.Firmware.Board
         /// <summary>Shows a line on row 4 (device health, for the board check); false on a 2-row display or when the write failed.</summary>
         public bool TryShowFooter(string line)
         {
-            return rows >= 4 && WriteRow(3, line);
+            return encoder.Rows >= 4 && WriteRow(3, line);
         }
 
         /// <summary>Turns the backlight off and releases the bus device.</summary>
         public void Dispose()
         {
-            transfer[0] = 0;
-            Send(1);
+            Send(encoder.EncodeBacklightOff());
             device.Dispose();
         }
 
         private void Initialise()
         {
-            // HD44780U initialising by instruction, 4-bit interface (timings in the class notes).
             Thread.Sleep(50);
-            bool ok = SendInitNibble(0x30);
+            bool ok = Send(encoder.EncodeInitNibble(0x30));
             Thread.Sleep(5);
-            ok &= SendInitNibble(0x30);
+            ok &= Send(encoder.EncodeInitNibble(0x30));
             Thread.Sleep(1);
-            ok &= SendInitNibble(0x30);
-            ok &= SendInitNibble(0x20);
-            ok &= SendCommand(0x28);
-            ok &= SendCommand(0x08);
-            ok &= SendCommand(0x01);
+            ok &= Send(encoder.EncodeInitNibble(0x30));
+            ok &= Send(encoder.EncodeInitNibble(0x20));
+            ok &= Send(encoder.EncodeInstruction(0x28));
+            ok &= Send(encoder.EncodeInstruction(0x08));
+            ok &= Send(encoder.EncodeInstruction(0x01));
             Thread.Sleep(2);
-            ok &= SendCommand(0x06);
-            ok &= SendCommand(0x0C);
-
-            // After a clear every cell holds a space; after a failure nothing is known and every row is rewritten.
-            byte fill = ok ? (byte)' ' : Unknown;
-            for (int i = 0; i < shown.Length; i++)
+            ok &= Send(encoder.EncodeInstruction(0x06));
+            ok &= Send(encoder.EncodeInstruction(0x0C));
+            if (ok)
             {
-                shown[i] = fill;
+                encoder.ClearedAll();
             }
-        }
-
-        private bool SendInitNibble(int highNibble)
-        {
-            transfer[0] = (byte)(highNibble | BacklightBit);
-            transfer[1] = (byte)(highNibble | BacklightBit | EnableBit);
-            transfer[2] = (byte)(highNibble | BacklightBit);
-            return Send(3);
-        }
-
-        private bool SendCommand(int command)
-        {
-            transfer[0] = BacklightBit;
-            return Send(PutByte(1, command, 0));
+            else
+            {
+                encoder.LostAll();
+            }
         }
 
         private bool WriteRow(int row, string text)
         {
-            // Bounded by the row's columns (16 or 20).
-            int rowStart = row * columns;
-            int first = -1;
-            int last = -1;
-            for (int c = 0; c < columns; c++)
-            {
-                byte code = text != null && c < text.Length ? ToCharacterCode(text[c]) : (byte)' ';
-                wanted[c] = code;
-                if (shown[rowStart + c] != code)
-                {
-                    if (first < 0)
-                    {
-                        first = c;
-                    }
-
-                    last = c;
-                }
-            }
-
-            if (first < 0)
+            int length = encoder.EncodeRow(row, text);
+            if (length == 0)
             {
                 return true;
             }
 
-            int address = (row == 0 ? 0x00 : row == 1 ? 0x40 : row == 2 ? columns : 0x40 + columns) + first;
-            transfer[0] = BacklightBit;
-            int at = PutByte(1, SetDdramAddress | address, 0);
-            transfer[at] = (byte)(BacklightBit | RegisterSelectBit);
-            at++;
-            for (int c = first; c <= last; c++)
+            if (Send(length))
             {
-                at = PutByte(at, wanted[c], RegisterSelectBit);
+                encoder.Sent(text);
+                return true;
             }
 
-            if (!Send(at))
-            {
-                for (int c = 0; c < columns; c++)
-                {
-                    shown[rowStart + c] = Unknown;
-                }
-
-                return false;
-            }
-
-            for (int c = first; c <= last; c++)
-            {
-                shown[rowStart + c] = wanted[c];
-            }
-
-            return true;
-        }
-
-        private int PutByte(int at, int value, int registerSelect)
-        {
-            int flags = BacklightBit | registerSelect;
-            int high = value & 0xF0;
-            int low = (value << 4) & 0xF0;
-            transfer[at] = (byte)(high | flags | EnableBit);
-            transfer[at + 1] = (byte)(high | flags);
-            transfer[at + 2] = (byte)(low | flags | EnableBit);
-            transfer[at + 3] = (byte)(low | flags);
-            return at + 4;
+            encoder.Lost();
+            return false;
         }
 
         private bool Send(int length)
@@ -240,7 +148,7 @@ namespace FreqReadout.Firmware.Board
             {
                 // I2cDevice.Write takes the struct SpanByte and returns the struct I2cTransferResult: the API forces
                 // both, once per row written (a few per display refresh, never per read).
-                I2cTransferResult result = device.Write(new SpanByte(transfer, 0, length));
+                I2cTransferResult result = device.Write(new SpanByte(encoder.Buffer, 0, length));
                 if (result.Status == I2cTransferStatus.FullTransfer)
                 {
                     return true;
@@ -253,11 +161,6 @@ namespace FreqReadout.Firmware.Board
 
             writeFailures++;
             return false;
-        }
-
-        private static byte ToCharacterCode(char c)
-        {
-            return c >= ' ' && c <= '}' && c != '\\' ? (byte)c : (byte)'?';
         }
     }
 }

@@ -15,11 +15,16 @@ namespace FreqReadout.Firmware.Board
     /// Pacing: a read is taken every <see cref="ReadPeriodMicroseconds"/> on deadlines of <c>HighResTimer.GetCurrent()</c>
     /// (whole microseconds, the pulse counter's own time base) kept by <see cref="ReadPacer"/>, not on
     /// <c>Thread.Sleep(1)</c>, which lasts a whole 10 ms system tick on nanoFramework. While the next deadline is at most
-    /// <see cref="SleepAboveMicroseconds"/> away the loop yields with <c>Thread.Sleep(0)</c> and looks again, so other
-    /// threads (the link writer) run but the read is late by at most one pass of theirs; only when the deadline is
-    /// further away than a tick and a margin does it sleep, for whole ticks that end at least one tick before the
-    /// deadline (a sleep can overrun by up to a tick). With the 2 ms period the loop never sleeps: the CPU spins, which
-    /// is the price of reading on time; a longer period (a slow gate, battery saving) lets it sleep.
+    /// <see cref="LoopSleep.SleepAboveMicroseconds"/> away the loop yields with <c>Thread.Sleep(0)</c> and looks again, so
+    /// other threads (the link writer) run but the read is late by at most one pass of theirs; only when the deadline is
+    /// further away than a tick and a margin does it sleep, ending at least one tick before the deadline (a sleep can
+    /// overrun by up to a tick; <see cref="LoopSleep"/>). With the 2 ms period the loop never sleeps: the CPU spins,
+    /// which is the price of reading on time; a longer period (a slow gate, battery saving) lets it sleep.
+    /// </para>
+    /// <para>
+    /// The period is a target, not a promise: the counted per-read and per-gate costs in hardware-notes/device-budget.md
+    /// (estimates until a board measures them) say a snapshot step costs more than 2 ms. When a step overruns, the pacer
+    /// reads again at once, restarts its schedule and counts the deadlines missed; the health line shows the real rate.
     /// </para>
     /// <para>
     /// Health: every <see cref="HealthIntervalMicroseconds"/> row 4 of the LCD shows reads a second, stalls (gaps
@@ -34,12 +39,6 @@ namespace FreqReadout.Firmware.Board
 
         /// <summary>A gap between reads longer than this is a stall, us: a full LCD rewrite (about 25 ms) is one.</summary>
         public const long StallLimitMicroseconds = 20000;
-
-        /// <summary>The loop sleeps only when the next read is further away than this, us: one 10 ms tick and a 2 ms margin.</summary>
-        public const long SleepAboveMicroseconds = 12000;
-
-        /// <summary>The system tick, us: the shortest sleep nanoFramework gives, and how far a sleep can overrun.</summary>
-        public const long SystemTickMicroseconds = 10000;
 
         /// <summary>Time between health lines on the LCD, us.</summary>
         public const long HealthIntervalMicroseconds = 5000000;
@@ -72,13 +71,9 @@ namespace FreqReadout.Firmware.Board
                         healthDue = now + HealthIntervalMicroseconds;
                     }
                 }
-                else if (wait > SleepAboveMicroseconds)
-                {
-                    Thread.Sleep((int)((wait - SystemTickMicroseconds) / 1000));
-                }
                 else
                 {
-                    Thread.Sleep(0);
+                    Thread.Sleep(LoopSleep.MillisecondsToSleep(wait));
                 }
             }
         }
