@@ -28,7 +28,9 @@ namespace FreqReadout.Firmware.Board
     /// <para>
     /// Cost: a character is 4 bus bytes, about 0.4 ms, and the write blocks the read loop; only changed characters are
     /// sent, so a typical refresh (a few digits) takes a few ms and a full three-row rewrite about 25 ms. A failed
-    /// write is counted and makes the next refresh send that row whole (after a failed set-up, every row).
+    /// write is counted and makes the next refresh send that row whole (after a failed set-up, every row). The set-up
+    /// itself is not repeated: a display that missed it (connected late, a bus fault at start) shows nothing useful
+    /// until the board restarts; <see cref="WriteFailures"/> tells.
     /// </para>
     /// </summary>
     public sealed class I2cCharacterLcd : IDisplayPort, IDisposable
