@@ -1,4 +1,5 @@
 using System.Reflection.Metadata;
+using System.Reflection.Metadata.Ecma335;
 using System.Reflection.PortableExecutable;
 using Microsoft.CodeAnalysis;
 using Microsoft.CodeAnalysis.CSharp;
@@ -44,6 +45,24 @@ public class BoardShimTests
             MetadataReader md = pe.GetMetadataReader();
             string[] references = md.AssemblyReferences.Select(h => md.GetString(md.GetAssemblyReference(h).Name)).OrderBy(n => n, StringComparer.Ordinal).ToArray();
             Assert.Equal(new[] { "FreqReadout.BoardShim.CompileOnly", "FreqReadout.Firmware", "mscorlib" }, references);
+        }
+    }
+
+    [Fact]
+    public void Board_assembly_holds_no_generics_the_runtime_cannot_run()
+    {
+        // The same rule DeviceAssemblyMetadataTests applies to the portable assembly: nanoFramework 1.17 runs no generics.
+        using var pe = new PEReader(File.OpenRead(BoardAssemblyPaths.Board()));
+        MetadataReader md = pe.GetMetadataReader();
+        Assert.True(md.TypeDefinitions.Count > 5, "board assembly looks empty");
+        Assert.Equal(0, md.GetTableRowCount(TableIndex.GenericParam));
+        Assert.Equal(0, md.GetTableRowCount(TableIndex.MethodSpec));
+        int typeSpecs = md.GetTableRowCount(TableIndex.TypeSpec);
+        for (int row = 1; row <= typeSpecs; row++)
+        {
+            TypeSpecification spec = md.GetTypeSpecification(MetadataTokens.TypeSpecificationHandle(row));
+            BlobReader blob = md.GetBlobReader(spec.Signature);
+            Assert.True(blob.ReadSignatureTypeCode() != SignatureTypeCode.GenericTypeInstance, "type spec " + row + " of the board assembly is a generic instantiation");
         }
     }
 
