@@ -1,24 +1,28 @@
-// Board adapter (builds only with -p:FreqReadoutBoard=true, where nanoFramework.System.Device.Gpio restores).
 using System;
 using System.Device.Gpio;
 using FreqReadout.Firmware.Device;
+using nanoFramework.Hardware.Esp32;
 
 namespace FreqReadout.Firmware.Board
 {
     /// <summary>
-    /// Rising edges from managed pin-change events, stamped in software with DateTime ticks (100 ns,
-    /// so the capture's clock_hz is 10 MHz). Managed events carry no hardware timestamp and are slow:
-    /// use only for a heavily divided signal or a low beat note (see hardware-notes/timestamp-methods.md).
+    /// Rising edges from managed pin-change events, stamped in software with <c>HighResTimer.GetCurrent()</c> (whole
+    /// microseconds, so the capture's clock_hz is 1 MHz and the time is 64 bits) when the handler runs. Managed events
+    /// carry no hardware timestamp (the native side stamps them with the 10 ms tick and the listener drops it) and
+    /// arrive milliseconds late: use only for a heavily divided signal or a low beat note (see
+    /// hardware-notes/timestamp-methods.md). The stamp was DateTime.UtcNow's ticks before; reading the microsecond timer
+    /// instead holds no struct per edge (DateTime is one) and is the same clock as the pulse counter's.
     /// </summary>
     public sealed class PinEventEdgeSource : IDisposable
     {
-        /// <summary>Tick rate of the stamps, Hz.</summary>
-        public const double ClockHz = 10000000.0;
+        /// <summary>Tick rate of the stamps, Hz: whole microseconds.</summary>
+        public const double ClockHz = 1000000.0;
 
         private readonly GpioController controller;
         private readonly int pin;
         private readonly EdgeRing ring;
 
+        /// <summary>Opens <paramref name="pin"/> as an input and adds the stamp of every rising edge to <paramref name="ring"/>.</summary>
         public PinEventEdgeSource(GpioController controller, int pin, EdgeRing ring)
         {
             this.controller = controller;
@@ -30,9 +34,10 @@ namespace FreqReadout.Firmware.Board
 
         private void OnEdge(object sender, PinValueChangedEventArgs e)
         {
-            ring.Add((ulong)DateTime.UtcNow.Ticks);
+            ring.Add(HighResTimer.GetCurrent());
         }
 
+        /// <summary>Stops the events and closes the pin.</summary>
         public void Dispose()
         {
             controller.UnregisterCallbackForPinValueChangedEvent(pin, OnEdge);

@@ -24,16 +24,18 @@ internal sealed class DeviceModule : IDisposable
 
     private readonly PEReader pe;
     private readonly DeviceModule? corlib;
+    private readonly IReadOnlyDictionary<string, DeviceModule> references;
     private readonly DeviceTypeProvider provider;
     private readonly Dictionary<string, TypeDefinitionHandle> typesByFullName = new();
     private readonly Dictionary<EntityHandle, DeviceType> classified = new();
     private readonly Dictionary<MethodDefinitionHandle, string> methodNames = new();
 
-    private DeviceModule(string name, PEReader pe, DeviceModule? corlib)
+    private DeviceModule(string name, PEReader pe, DeviceModule? corlib, IReadOnlyDictionary<string, DeviceModule>? references = null)
     {
         Name = name;
         this.pe = pe;
         this.corlib = corlib;
+        this.references = references ?? new Dictionary<string, DeviceModule>();
         Reader = pe.GetMetadataReader();
         provider = new DeviceTypeProvider(this);
         foreach (TypeDefinitionHandle h in Reader.TypeDefinitions)
@@ -58,6 +60,23 @@ internal sealed class DeviceModule : IDisposable
     {
         var corlib = new DeviceModule(Path.GetFileName(mscorlibPath), new PEReader(File.ReadAllBytes(mscorlibPath).ToImmutableArray()), null);
         return new DeviceModule(name, new PEReader(image.ToImmutableArray()), corlib);
+    }
+
+    /// <summary>
+    /// Opens an assembly that also references other assemblies besides mscorlib (the board adapters reference the
+    /// firmware assembly and the compile-only shim): their types are classified from their own metadata.
+    /// </summary>
+    public static DeviceModule OpenWithReferences(string path, string mscorlibPath, IEnumerable<string> referencePaths)
+    {
+        var corlib = new DeviceModule(Path.GetFileName(mscorlibPath), new PEReader(File.ReadAllBytes(mscorlibPath).ToImmutableArray()), null);
+        var references = new Dictionary<string, DeviceModule>(StringComparer.Ordinal);
+        foreach (string referencePath in referencePaths)
+        {
+            var module = new DeviceModule(Path.GetFileName(referencePath), new PEReader(File.ReadAllBytes(referencePath).ToImmutableArray()), corlib);
+            references[module.Reader.GetString(module.Reader.GetAssemblyDefinition().Name)] = module;
+        }
+
+        return new DeviceModule(Path.GetFileName(path), new PEReader(File.ReadAllBytes(path).ToImmutableArray()), corlib, references);
     }
 
     /// <summary>Every method defined in the assembly.</summary>
@@ -256,6 +275,10 @@ internal sealed class DeviceModule : IDisposable
     {
         pe.Dispose();
         corlib?.Dispose();
+        foreach (DeviceModule referenced in references.Values)
+        {
+            referenced.Dispose();
+        }
     }
 
     private DeviceType ClassifyDefinition(TypeDefinitionHandle handle)
@@ -310,9 +333,14 @@ internal sealed class DeviceModule : IDisposable
         }
 
         string assembly = Reader.GetString(Reader.GetAssemblyReference((AssemblyReferenceHandle)scope).Name);
+        if (references.TryGetValue(assembly, out DeviceModule? referenced))
+        {
+            return referenced.Classify(Lookup(referenced, key, handle));
+        }
+
         if (assembly != "mscorlib" || corlib == null)
         {
-            throw new InvalidDataException(Name + ": type " + key + " comes from " + assembly + "; only mscorlib can be resolved");
+            throw new InvalidDataException(Name + ": type " + key + " comes from " + assembly + "; only mscorlib and the assemblies given as references can be resolved");
         }
 
         return corlib.Classify(Lookup(corlib, key, handle));
