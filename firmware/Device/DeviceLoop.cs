@@ -491,6 +491,19 @@ namespace FreqReadout.Firmware.Device
             return applied;
         }
 
+        /// <summary>
+        /// A new temperature sample from the board's sensor, deg C: the pipeline's tempco uses it from the next gate, and
+        /// with link = capture it goes to the PC as a temperature frame after the reads so far (the capture's temp_c).
+        /// </summary>
+        public void SetTemperature(double celsius)
+        {
+            pipeline.SetTemperature(celsius);
+            if (link != null && linkStarted && settings.Link == LinkMode.Capture)
+            {
+                link.SendTemperature(latestTick, celsius);
+            }
+        }
+
         /// <summary>Takes the settings text put in force since the last call, for the board to store; false when none.</summary>
         public bool TryTakeSettingsToStore(out string text)
         {

@@ -72,14 +72,22 @@ public sealed class RecordOverSerialTests : IDisposable
         using var stop = new CancellationTokenSource();
         Task deviceRun = Task.Run(() =>
         {
-            while (!stop.IsCancellationRequested && device.RunSome(steps: 16))
+            try
             {
+                while (!stop.IsCancellationRequested && device.RunSome(steps: 16))
+                {
+                }
+            }
+            catch (ObjectDisposedException)
+            {
+                // The pty was closed under a write the PC no longer reads: the device's writer was waiting on a full line.
             }
         });
 
         var settings = new RecordCommand.Settings { Port = pty.SlavePath, SendSettings = file };
         var (exit, _, error) = ConsoleCapture.Capture(() => new RecordCommand().Execute(null!, settings, CancellationToken.None));
         stop.Cancel();
+        pty.Dispose();    // nobody reads the line any more: release a device write that waits for room
         Assert.True(deviceRun.Wait(Deadline), "the device loop did not stop");
         Assert.True(exit == ExitCodes.Ok, error);
         Assert.Contains("the device took the settings", error);

@@ -35,7 +35,7 @@ public sealed class DeviceSettingsFormatterTests
             "beat_side=none\n" +
             "search_hz=0\n" +
             "tempco_ppm_per_k=0\n" +
-            "link=off\n" +
+            "link=capture\n" +
             "read_rate_hz=1000\n" +
             "stall_ms=50\n",
             Format(new DeviceSettingsValues()));
