@@ -551,9 +551,9 @@ namespace FreqReadout.Firmware.Device
             if (link != null && settings.Link != LinkMode.Off)
             {
                 link.SendReading(reading);
-                while (pipeline.TryTakeEvent(linkEvent))
+                if (pipeline.TryTakeEvent(linkEvent))
                 {
-                    link.SendEvent(linkEvent);
+                    link.SendEvent(linkEvent);    // at most one a gate; more wait in the pipeline's queue for the next gates
                 }
             }
 

@@ -3,15 +3,19 @@ namespace FreqReadout.Link
     /// <summary>
     /// The capture link's frame check: CRC-16/CCITT-FALSE (also catalogued as CRC-16/IBM-3740): polynomial 0x1021,
     /// initial value 0xFFFF, no reflection of input or output, no final XOR; the check value (the CRC of the ASCII bytes
-    /// "123456789") is 0x29B1. Computed bit by bit (8 shifts per byte, no table, so no static array to keep): O(n), nothing
-    /// allocates; the empty input gives the initial value 0xFFFF.
+    /// "123456789") is 0x29B1. Computed a byte at a time without a table (so no static array to keep): with
+    /// x = (crc >> 8) ^ b, then x ^= x >> 4, the register becomes (crc << 8) ^ (x << 12) ^ (x << 5) ^ x (mod 2^16), which
+    /// is the eight shifts of the bitwise form folded for this polynomial (a common embedded formulation, from memory;
+    /// tests check it against the bitwise form and the check value). O(n), about a quarter of the bitwise form's
+    /// operations; nothing allocates; the empty input gives the initial value 0xFFFF.
     /// </summary>
     public static class FrameCrc
     {
         /// <summary>Initial value of the register, and the CRC of no bytes.</summary>
         public const int InitialValue = 0xFFFF;
 
-        private const int Polynomial = 0x1021;
+        /// <summary>The generator polynomial, x^16 + x^12 + x^5 + 1 without its top term.</summary>
+        public const int Polynomial = 0x1021;
 
         /// <summary>The CRC of <paramref name="count"/> bytes of <paramref name="data"/> from <paramref name="offset"/>.</summary>
         /// <param name="data">The bytes.</param>
@@ -34,13 +38,9 @@ namespace FreqReadout.Link
             int end = offset + count;
             for (int i = offset; i < end; i++)
             {
-                crc ^= data[i] << 8;
-                for (int bit = 0; bit < 8; bit++)
-                {
-                    crc = (crc & 0x8000) != 0 ? (crc << 1) ^ Polynomial : crc << 1;
-                }
-
-                crc &= 0xFFFF;
+                int x = ((crc >> 8) ^ data[i]) & 0xFF;
+                x ^= x >> 4;
+                crc = ((crc << 8) ^ (x << 12) ^ (x << 5) ^ x) & 0xFFFF;
             }
 
             return crc;

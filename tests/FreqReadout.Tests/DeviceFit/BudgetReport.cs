@@ -46,12 +46,23 @@ internal static class BudgetReport
         double g = DeviceBudget.DefaultGatesPerSecond;
         double r = DeviceBudget.DefaultRefreshesPerSecond;
         sb.Append("Reads a second a board sustains with settings at their defaults (").Append(g.ToString(Inv)).Append(" gates/s from the 0.1 s gate, ").Append(r.ToString(Inv))
-          .Append(" display refreshes/s from the 0.5 s display interval): (operations a second - gates/s x case 4 - refreshes/s x case 6) / one read:\n\n");
-        foreach ((string input, long read) in new[] { ("edge input, one read = one edge (case 1)", edgeRead), ("snapshot input, one read = one snapshot (case 3)", snapshotRead) })
+          .Append(" display refreshes/s from the 0.5 s display interval):\n\n");
+        sb.Append("- edge input, one read = one edge (case 1, which counts a gate close with every edge): (operations a second - gates/s x case 4 - refreshes/s x case 6) / case 1: ");
+        sb.Append(Sustained(a.LowOpsPerSecond, g, gate, r, refresh, edgeRead)).Append(" at ").Append(low).Append(", ");
+        sb.Append(Sustained(a.HighOpsPerSecond, g, gate, r, refresh, edgeRead)).Append(" at ").Append(high).Append(".\n");
+
+        // Snapshot input with link = capture: the gate close (case 3 - case 10) once per gate, a batch (case 7) per 64
+        // reads, a status frame (case 8) a second and a header (case 9) every 5 s.
+        long ordinary = defaults[9].Ops;
+        long close = Math.Max(0, snapshotRead - ordinary);
+        long batch = defaults[6].Ops;
+        double fixedPerSecond = (g * (gate + close)) + (r * refresh) + defaults[7].Ops + (defaults[8].Ops / 5.0);
+        double perRead = ordinary + (batch / 64.0);
+        sb.Append("- snapshot input with link = capture: (operations a second - gates/s x (case 4 + the gate close, case 3 - case 10) - refreshes/s x case 6 - case 8 - case 9 / 5) / (case 10 + case 7 / 64): ");
+        foreach ((double ops, string label, string end) in new[] { (a.LowOpsPerSecond, low, ", "), (a.HighOpsPerSecond, high, ".\n") })
         {
-            sb.Append("- ").Append(input).Append(": ");
-            sb.Append(Sustained(a.LowOpsPerSecond, g, gate, r, refresh, read)).Append(" at ").Append(low).Append(", ");
-            sb.Append(Sustained(a.HighOpsPerSecond, g, gate, r, refresh, read)).Append(" at ").Append(high).Append(".\n");
+            double left = ops - fixedPerSecond;
+            sb.Append(left <= 0 ? "none (the gates and the link alone need more)" : (left / perRead).ToString("N0", Inv) + " reads a second").Append(" at ").Append(label).Append(end);
         }
 
         sb.Append("- the gate that completes a baseline capture (case 5) holds up the loop for ").Append(Time(defaults[4], a.HighOpsPerSecond)).Append(" to ")

@@ -46,6 +46,10 @@ internal static class DeviceBudget
             Excluded = ["DeviceLinkStreamer.FlushSnapshots", "DeviceLinkStreamer.FlushEdges"],
         },
         new("Link: the capture header encoded and queued (every 5 s)", "headers", ["DeviceLinkStreamer.SendHeader"]),
+        new("Ordinary paced snapshot step: buttons, hold switch, clock and pacer, one pulse-counter snapshot, wrap check, unwraps, its row added to the link's batch; no gate closes", "reads", ["DeviceLoop.Step"])
+        {
+            Excluded = ["DeviceLoop.StepEdges", "DeviceLoop.Publish", "SnapshotCounter.TryCloseGate", "SnapshotCounter.NoSignal", .. Rare],
+        },
     ];
 
     /// <summary>The device loop's one entry: every per-read and per-gate method is reached from it (for the per-method table and the loop checks).</summary>

@@ -118,7 +118,6 @@ internal static class DeviceLoopBounds
         // Link frames (docs/link-protocol.md): at most 246 bytes before stuffing (4 header + 240 payload + 2 CRC).
         new("ByteStuffing.Encode", 0, "frame bytes <= 4 + MaxPayloadBytes (240) + 2 = 246", 246, 246),
         new("FrameCrc.Continue", 0, "frame bytes <= 246", 246, 246),
-        new("FrameCrc.Continue", 1, "bits of a byte: 8", 8, 8),
         new("LinkFrameEncoder.TryEncode", 0, "payload bytes <= MaxPayloadBytes (240)", 240, 240),
         new("LinkPayloadWriter.VarUIntBytes", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),
         new("LinkPayloadWriter.WriteVarUInt", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),
@@ -126,6 +125,5 @@ internal static class DeviceLoopBounds
         new("LinkPayloadWriter.WriteAscii", 0, "text length <= MaxPayloadBytes (240), longer is refused first", 240, 240),
         new("SnapshotBatchPayload.Write", 0, "rows - 1 < SnapshotBatchPayload.MaxRows (64)", 64, 64),
         new("EdgeBatchPayload.Write", 0, "rows - 1 < EdgeBatchPayload.MaxRows (128)", 128, 128),
-        new("DeviceLoop.Publish", 0, "events taken per gate <= the pipeline's event queue (ReadoutPipeline.QueueCapacity = 16)", 16, 16),
     ];
 }

@@ -45,4 +45,29 @@ public class FrameCrcTests
                 flipped[bit / 8] ^= (byte)(1 << (bit % 8));
                 return whole == pieces && FrameCrc.Compute(flipped, 0, flipped.Length) != whole;
             });
+
+    // The byte-at-a-time form equals the textbook bitwise definition (shift left, XOR the polynomial when the top bit
+    // falls out; R. N. Williams, "A Painless Guide to CRC Error Detection Algorithms", 1993, section 8) on every input.
+    [Property(MaxTest = 500)]
+    public Property The_byte_wise_form_equals_the_bitwise_definition() =>
+        Prop.ForAll(
+            Gen.Choose(0, 300).SelectMany(n => Gen.ArrayOf(Gen.Choose(0, 255).Select(b => (byte)b), n)).ToArbitrary(),
+            data => FrameCrc.Compute(data, 0, data.Length) == Bitwise(data));
+
+    private static int Bitwise(byte[] data)
+    {
+        int crc = FrameCrc.InitialValue;
+        foreach (byte b in data)
+        {
+            crc ^= b << 8;
+            for (int bit = 0; bit < 8; bit++)
+            {
+                crc = (crc & 0x8000) != 0 ? (crc << 1) ^ FrameCrc.Polynomial : crc << 1;
+            }
+
+            crc &= 0xFFFF;
+        }
+
+        return crc;
+    }
 }
