@@ -114,6 +114,11 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
 
         using (channel)
         {
+            if (settings.Out != null)
+            {
+                Console.Error.WriteLine("record: caution: a readout that shows nothing is not proof that no live wiring, pipe or utility is there; verify before drilling or digging and follow local codes (hardware-notes/safety.md)");
+            }
+
             var view = new RecordingConsoleView(Console.Out, Console.Error, settings.Live);
             using var recorder = settings.Out != null ? new LinkCaptureRecorder(settings.Out, settings.Port, view) : null;
             return Run(channel, recorder, view, settings, settingsText, cancellationToken);

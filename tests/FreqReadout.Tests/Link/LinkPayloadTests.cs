@@ -260,4 +260,28 @@ public sealed class LinkPayloadTests
         w.WriteVarUInt(0);
         Assert.False(new EdgeBatchPayload().TryRead(ReaderOf(w)));
     }
+
+    [Fact]
+    public void The_protocol_page_states_each_fixed_payload_size_the_code_writes()
+    {
+        string page = File.ReadAllText(Path.Combine(FreqReadout.Tests.Docs.CliProcess.RepoRoot(), "docs", "link-protocol.md"));
+        var stated = System.Text.RegularExpressions.Regex.Matches(page, @"^### (\d) [a-z ]+ \((\d+) bytes\)$", System.Text.RegularExpressions.RegexOptions.Multiline)
+            .ToDictionary(m => int.Parse(m.Groups[1].Value), m => int.Parse(m.Groups[2].Value));
+        var w = new LinkPayloadWriter();
+        int Size(Action<LinkPayloadWriter> write)
+        {
+            w.Reset();
+            write(w);
+            return w.Length;
+        }
+
+        Assert.Equal(new Dictionary<int, int>
+        {
+            [LinkFrameType.CaptureHeader] = Size(new CaptureHeaderPayload().Write),
+            [LinkFrameType.Reading] = Size(new ReadingPayload().Write),
+            [LinkFrameType.Event] = Size(new EventPayload().Write),
+            [LinkFrameType.Temperature] = Size(new TemperaturePayload().Write),
+            [LinkFrameType.Status] = Size(new StatusPayload().Write),
+        }, stated);
+    }
 }

@@ -150,6 +150,8 @@ public sealed class PseudoTerminalPair : IDisposable
             }
             else if (errno != PtyNative.EINTR)
             {
+                // Dispose closes the slave before the master: a read or write racing it sees EIO, which is the disposal.
+                ObjectDisposedException.ThrowIf(_disposed, this);
                 throw PtyNative.Failure("write(master)", errno);
             }
         }
@@ -187,6 +189,8 @@ public sealed class PseudoTerminalPair : IDisposable
                 int errno = LastError();
                 if (errno != PtyNative.EAGAIN && errno != PtyNative.EINTR)
                 {
+                    // Dispose closes the slave before the master: a read or write racing it sees EIO, which is the disposal.
+                    ObjectDisposedException.ThrowIf(_disposed, this);
                     throw PtyNative.Failure("read(master)", errno);
                 }
             }
@@ -258,6 +262,8 @@ public sealed class PseudoTerminalPair : IDisposable
 
             if (ready < 0 && errno != PtyNative.EINTR)
             {
+                // Dispose closes the slave before the master: a read or write racing it sees EIO, which is the disposal.
+                ObjectDisposedException.ThrowIf(_disposed, this);
                 throw PtyNative.Failure("poll(master)", errno);
             }
 
