@@ -1,3 +1,4 @@
+using System.ComponentModel;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
@@ -5,8 +6,10 @@ using FreqReadout.Counting;
 using FreqReadout.Host.Calibration;
 using FreqReadout.Host.Captures;
 using FreqReadout.Host.Counting;
+using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
 using FreqReadout.Readout;
+using FreqReadout.Settings;
 using Spectre.Console;
 using Spectre.Console.Cli;
 
@@ -19,7 +22,8 @@ namespace FreqReadout.Host.Commands;
 /// (ppm/K with its standard error, least squares, <see cref="TempcoCalibration"/>). The device takes
 /// the number as its tempco_ppm_per_k setting; replay takes it as --tempco-ppm-per-k. Unless
 /// --persistent-shift-s is given, calibrate uses 3 s, so that a temperature step is soon re-baselined
-/// and the stretch after it counts as target-free again.
+/// and the stretch after it counts as target-free again. With --settings-out it also writes a device settings file
+/// (docs/settings-format.md) carrying the fitted tempco, through the same shared formatter the device reads.
 /// </summary>
 public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
 {
@@ -31,6 +35,10 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
 
     public sealed class Settings : ReadoutCommandSettings
     {
+        [CommandOption("--settings-out <FILE>")]
+        [Description("Also write a device settings file (docs/settings-format.md) with the fitted tempco and the capture's signal, beat side and search frequency, the gate and threshold as given here, every other key at its default; send it with `record --send-settings FILE`.")]
+        [FilePath]
+        public string? SettingsOut { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -39,6 +47,14 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
         if (options == null)
         {
             return CommandOutput.Fail(optionError!, CommandOutput.BadOption);
+        }
+
+        using var outputs = new OutputFileSet { StandardOutputInUse = settings.Json };
+        outputs.AddInput("the capture", settings.Capture);
+        OutputFile? settingsFile = settings.SettingsOut != null ? outputs.AddOutput("--settings-out", settings.SettingsOut, "the device settings") : null;
+        if (!outputs.TryPrepare(out OutputFileException? problem))
+        {
+            return CommandOutput.Fail(problem!.Message, problem.ExitCode);
         }
 
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
@@ -109,6 +125,30 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             if (span < MinUsefulSpanK)
             {
                 CommandOutput.Diagnostic($"warning: the temperature spans only {Num(span, "0.###")} K: the tempco is poorly determined");
+            }
+
+            if (settingsFile != null)
+            {
+                // The device's settings as calibrated: the readout these gates ran with, its tempco the fitted one.
+                readout.TempcoPpmPerK = fit.TempcoPpmPerK;
+                var values = new DeviceSettingsValues();
+                if (!values.TryTakeFrom(options, readout, out string? takeError) || !DeviceSettingsFormatter.TryFormat(values, out string text, out string formatError))
+                {
+                    return CommandOutput.Fail($"--settings-out {settings.SettingsOut}: these settings cannot be written for the device: {takeError ?? "format"}", CommandOutput.BadInput);
+                }
+
+                try
+                {
+                    byte[] bytes = Encoding.ASCII.GetBytes(text);
+                    settingsFile.Stream.Write(bytes, 0, bytes.Length);
+                    outputs.Commit();
+                }
+                catch (OutputFileException e)
+                {
+                    return CommandOutput.Fail(e.Message, e.ExitCode);
+                }
+
+                CommandOutput.Diagnostic($"calibrate: wrote {settings.SettingsOut} (tempco_ppm_per_k = {values.TempcoPpmPerK.ToString("0.##", CultureInfo.InvariantCulture)}); send it with: freqreadout record --port DEV --send-settings {settings.SettingsOut}");
             }
 
             if (settings.Json)
