@@ -13,6 +13,7 @@ namespace FreqReadout.Host.Recording;
 public sealed class RecordingConsoleView : IRecordingObserver
 {
     private const double LiveIntervalSeconds = 0.5;
+    private const long NoteIntervalMicroseconds = 10_000_000;
 
     private readonly TextWriter _out;
     private readonly TextWriter _error;
@@ -20,6 +21,12 @@ public sealed class RecordingConsoleView : IRecordingObserver
     private double _lastShownSeconds = double.NegativeInfinity;
     private ReadoutState _lastState = (ReadoutState)(-1);
     private TargetClass _lastClass = (TargetClass)(-1);
+    private int _settingsProblems;
+    private uint? _bootId;
+    private long _stalls;
+    private long _dropped;
+    private long _lost;
+    private long _lastNoteMicroseconds;
 
     /// <summary>A view writing live lines to <paramref name="output"/> (when <paramref name="live"/>) and notes to <paramref name="error"/>.</summary>
     public RecordingConsoleView(TextWriter output, TextWriter error, bool live)
@@ -69,9 +76,43 @@ public sealed class RecordingConsoleView : IRecordingObserver
         }
     }
 
-    /// <inheritdoc/>
+    /// <summary>
+    /// Notes on standard error what the device's status says is wrong: stored or sent settings that fell back to their
+    /// defaults (when the number changes), and new stalls, dropped reads or frames lost on the device (at most one note
+    /// every 10 s of the device's uptime, with the increases since the last note).
+    /// </summary>
     public void StatusReceived(StatusPayload status)
     {
+        if (status.SettingsProblems != _settingsProblems)
+        {
+            _settingsProblems = status.SettingsProblems;
+            if (_settingsProblems > 0)
+            {
+                _error.WriteLine($"record: the device reports {_settingsProblems} setting(s) that were invalid and fell back to their defaults");
+            }
+        }
+
+        if (status.BootId != _bootId)
+        {
+            _bootId = status.BootId;
+            _stalls = status.Stalls;
+            _dropped = status.ReadsDropped;
+            _lost = status.FramesLost;
+            _lastNoteMicroseconds = status.UptimeMicroseconds;
+            return;
+        }
+
+        long stalls = status.Stalls - _stalls;
+        long dropped = status.ReadsDropped - _dropped;
+        long lost = status.FramesLost - _lost;
+        if ((stalls > 0 || dropped > 0 || lost > 0) && status.UptimeMicroseconds - _lastNoteMicroseconds >= NoteIntervalMicroseconds)
+        {
+            _error.WriteLine($"record: device at {Num(status.UptimeMicroseconds / 1e6, "F0")} s: +{stalls} stalls (longest gap {Num(status.LongestGapMicroseconds / 1000.0, "F0")} ms), +{dropped} reads dropped, +{lost} frames lost");
+            _stalls = status.Stalls;
+            _dropped = status.ReadsDropped;
+            _lost = status.FramesLost;
+            _lastNoteMicroseconds = status.UptimeMicroseconds;
+        }
     }
 
     /// <inheritdoc/>

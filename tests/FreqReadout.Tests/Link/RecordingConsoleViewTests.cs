@@ -68,4 +68,23 @@ public sealed class RecordingConsoleViewTests
         r.HasFrequency = false;
         Assert.Contains("no signal", RecordingConsoleView.LiveLine(r));
     }
+
+    [Fact]
+    public void Device_troubles_from_its_status_are_noted_on_standard_error_at_most_every_10_s()
+    {
+        var error = new StringWriter { NewLine = "\n" };
+        var view = new RecordingConsoleView(TextWriter.Null, error, live: false);
+        view.StatusReceived(new StatusPayload { BootId = 1, UptimeMicroseconds = 1_000_000, SettingsProblems = 2 });
+        view.StatusReceived(new StatusPayload { BootId = 1, UptimeMicroseconds = 2_000_000, SettingsProblems = 2, Stalls = 1, LongestGapMicroseconds = 41_000 });    // too soon
+        view.StatusReceived(new StatusPayload { BootId = 1, UptimeMicroseconds = 12_000_000, SettingsProblems = 2, Stalls = 3, LongestGapMicroseconds = 41_000, FramesLost = 5 });
+        view.StatusReceived(new StatusPayload { BootId = 1, UptimeMicroseconds = 13_000_000, SettingsProblems = 2, Stalls = 3, FramesLost = 5 });    // nothing new
+        string[] lines = error.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal(
+            new[]
+            {
+                "record: the device reports 2 setting(s) that were invalid and fell back to their defaults",
+                "record: device at 12 s: +3 stalls (longest gap 41 ms), +0 reads dropped, +5 frames lost",
+            },
+            lines);
+    }
 }
