@@ -153,6 +153,11 @@ namespace FreqReadout.Firmware.Device
 
             this.link = link;
             this.inbox = inbox;
+            if (settings.SettingsText == null)
+            {
+                settings.TryDescribeInForce();
+            }
+
             if (settings.SettingsText != null)
             {
                 settingsCheck = SettingsCheck(settings.SettingsText);

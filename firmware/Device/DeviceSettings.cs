@@ -110,6 +110,29 @@ namespace FreqReadout.Firmware.Device
             return true;
         }
 
+        /// <summary>
+        /// Sets <see cref="SettingsText"/> to the canonical settings text of what is in force now (the counter and readout
+        /// values rounded to the format's steps, and link, read rate and stall limit), so that the status frame's check
+        /// and the settings frame describe the device even when no settings text was ever applied. False, and
+        /// <see cref="SettingsText"/> unchanged, when a value in force is outside what the format can hold.
+        /// </summary>
+        public bool TryDescribeInForce()
+        {
+            DeviceSettingsValues values = new DeviceSettingsValues();
+            values.LinkMode = Link;
+            values.ReadRateHz = ReadRateHz;
+            values.StallLimitMilliseconds = StallLimitMilliseconds;
+            string error;
+            string text;
+            if (!values.TryTakeFrom(Counter, Readout, out error) || !DeviceSettingsFormatter.TryFormat(values, out text, out error))
+            {
+                return false;
+            }
+
+            SettingsText = text;
+            return true;
+        }
+
         /// <summary>Checks every setting; the first bad one is named with its allowed range.</summary>
         public bool TryValidate(out string error)
         {

@@ -176,7 +176,14 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
             (recorder.RowsBeforeHeader > 0 ? $"; {recorder.RowsBeforeHeader} rows came before any capture header and are not recorded" : string.Empty));
         if (recorder.Captures.Count == 0)
         {
-            Console.Error.WriteLine($"record: no capture header arrived ({session.BytesReceived.ToString(CultureInfo.InvariantCulture)} bytes received), so nothing was written: check the port, the baud rate and that the firmware streams");
+            bool linkOff = recorder.LastSettingsText is string t && t.Replace(" ", string.Empty, StringComparison.Ordinal).Contains("\nlink=off", StringComparison.Ordinal);
+            Console.Error.WriteLine(linkOff
+                ? "record: the device's link setting is off, so it streams nothing: send settings with link = capture (record --port DEV --send-settings FILE)"
+                : $"record: no capture header arrived ({session.BytesReceived.ToString(CultureInfo.InvariantCulture)} bytes received), so nothing was written: check the port, the baud rate and that the firmware streams");
+        }
+        else if (recorder.RowsWritten == 0 && recorder.LastSettingsText is string s && s.Replace(" ", string.Empty, StringComparison.Ordinal).Contains("\nlink=readings", StringComparison.Ordinal))
+        {
+            Console.Error.WriteLine("record: the device's link setting is readings: it sends readings and events but not the reads a capture holds; send settings with link = capture");
         }
     }
 

@@ -6,8 +6,9 @@ using FreqReadout.Link;
 namespace FreqReadout.Host.Recording;
 
 /// <summary>
-/// Turns link frames (docs/link-protocol.md) into capture files as they arrive. A capture header opens a capture (the
-/// file given, then <c>NAME-2.EXT</c>, <c>NAME-3.EXT</c>... after each device reset), written in place through
+/// Turns link frames (docs/link-protocol.md) into capture files as they arrive. A capture header begins a capture, whose
+/// file is created with its first row (the file given, then <c>NAME-2.EXT</c>, <c>NAME-3.EXT</c>... after each device
+/// reset; a device that sends no rows leaves no empty file), written in place through
 /// <see cref="OutputFileSet"/>'s recording mode: rows reach the file at every batch, an existing file is refused, and
 /// whatever happens the file keeps every row received. A new boot id (in a header or a status frame) closes the capture
 /// and waits for the next header. Rows that arrive before any header are counted, not written, and
@@ -26,6 +27,9 @@ public sealed class LinkCaptureRecorder : IDisposable
     private readonly TimeProvider _time;
     private readonly LinkPayloadReader _reader = new();
     private readonly CaptureHeaderPayload _header = new();
+    private readonly CaptureHeaderPayload _known = new();
+    private bool _haveHeader;
+    private LinkCounts _countsAtHeader;
     private readonly SnapshotBatchPayload _snapshots = new();
     private readonly EdgeBatchPayload _edges = new();
     private readonly ReadingPayload _reading = new();
@@ -85,11 +89,15 @@ public sealed class LinkCaptureRecorder : IDisposable
                     CloseOpen(_open.BootId != _header.BootId ? DeviceReset : "new capture header", decoder);
                 }
 
-                if (_open == null)
+                if (_open == null && !(_haveHeader && OpenCapture.SameCapture(_known, _header)))
                 {
-                    Open(decoder);
+                    // The capture starts at this header; its file is created with the first row (no empty files).
+                    OpenCapture.CopyHeader(_header, _known);
+                    _haveHeader = true;
+                    _countsAtHeader = new LinkCounts(decoder.Frames - 1, decoder.CrcErrors, decoder.Malformed, decoder.SequenceGaps, _badPayloads);
                 }
 
+                HeaderWanted = false;
                 return;
             case LinkFrameType.SnapshotBatch:
                 if (!_snapshots.TryRead(_reader))
@@ -98,7 +106,7 @@ public sealed class LinkCaptureRecorder : IDisposable
                     return;
                 }
 
-                if (_open == null || !_open.Snapshots)
+                if (!TryOpenFor(snapshots: true, decoder))
                 {
                     RowsWithoutCapture(_snapshots.Count);
                     return;
@@ -118,7 +126,7 @@ public sealed class LinkCaptureRecorder : IDisposable
                     return;
                 }
 
-                if (_open == null || _open.Snapshots)
+                if (!TryOpenFor(snapshots: false, decoder))
                 {
                     RowsWithoutCapture(_edges.Count);
                     return;
@@ -175,12 +183,17 @@ public sealed class LinkCaptureRecorder : IDisposable
                     CloseOpen(DeviceReset, decoder);
                 }
 
+                if (_haveHeader && _known.BootId != _status.BootId)
+                {
+                    _haveHeader = false;    // that header was of the device before it restarted
+                }
+
                 if (_open != null)
                 {
                     _open.Status ??= new StatusPayload();
                     Copy(_status, _open.Status);
                 }
-                else if (_closedBootId != _status.BootId)
+                else if (!_haveHeader && _closedBootId != _status.BootId)
                 {
                     HeaderWanted = true;
                 }
@@ -238,21 +251,32 @@ public sealed class LinkCaptureRecorder : IDisposable
         return Path.Combine(folder, name + "-" + number.ToString(CultureInfo.InvariantCulture) + extension);
     }
 
-    private void Open(LinkFrameDecoder decoder)
+    /// <summary>Opens the capture the last header announced when rows of its kind arrive; true when a capture of that kind is open.</summary>
+    private bool TryOpenFor(bool snapshots, LinkFrameDecoder decoder)
+    {
+        if (_open == null && _haveHeader && _known.Snapshots == snapshots)
+        {
+            Open();
+        }
+
+        return _open != null && _open.Snapshots == snapshots;
+    }
+
+    private void Open()
     {
         string path = CapturePath(_outputPath, _captures.Count + 1);
         var metadata = new CaptureMetadata
         {
-            ClockHz = _header.ClockHz,
-            Kind = _header.Snapshots ? CaptureKind.Snapshots : CaptureKind.Edges,
-            Prescale = (int)Math.Min(_header.Prescale, CaptureMetadata.MaxPrescale),
-            TimerBits = _header.TimerBits,
-            CountBits = _header.CountBits,
-            Signal = _header.Signal,
-            BeatSide = _header.BeatSide,
-            SearchHz = _header.SearchHz > 0 ? _header.SearchHz : null,
+            ClockHz = _known.ClockHz,
+            Kind = _known.Snapshots ? CaptureKind.Snapshots : CaptureKind.Edges,
+            Prescale = (int)Math.Min(_known.Prescale, CaptureMetadata.MaxPrescale),
+            TimerBits = _known.TimerBits,
+            CountBits = _known.CountBits,
+            Signal = _known.Signal,
+            BeatSide = _known.BeatSide,
+            SearchHz = _known.SearchHz > 0 ? _known.SearchHz : null,
             StartedUtc = TruncateToSeconds(_time.GetUtcNow()),
-            Note = $"recorded by freqreadout record from {_source}, device boot id {_header.BootId.ToString(CultureInfo.InvariantCulture)}",
+            Note = $"recorded by freqreadout record from {_source}, device boot id {_known.BootId.ToString(CultureInfo.InvariantCulture)}",
         };
         metadata.ExtraColumns.Add(CaptureColumns.TemperatureC);
 
@@ -266,7 +290,7 @@ public sealed class LinkCaptureRecorder : IDisposable
             }
 
             var writer = new TextCaptureWriter(file.Stream, metadata, leaveOpen: true);
-            _open = new OpenCapture(outputs, file, writer, path, _header, decoder, _badPayloads, _rowsBeforeHeader);
+            _open = new OpenCapture(outputs, file, writer, path, _known, _countsAtHeader, _rowsBeforeHeader);
         }
         catch
         {
@@ -277,7 +301,7 @@ public sealed class LinkCaptureRecorder : IDisposable
         _captures.Add(path);
         HeaderWanted = false;
         _closedBootId = null;
-        _observer.CaptureOpened(path, _header);
+        _observer.CaptureOpened(path, _known);
     }
 
     private void CloseOpen(string why, LinkFrameDecoder decoder)
@@ -319,6 +343,7 @@ public sealed class LinkCaptureRecorder : IDisposable
             open.ReleaseWriter();
             open.Outputs.Commit();
             _closedBootId = open.BootId;
+            _haveHeader = false;
             _observer.CaptureClosed(open.Path, open.Rows, why);
         }
         finally
@@ -380,6 +405,9 @@ public sealed class LinkCaptureRecorder : IDisposable
         to.HoldActive = from.HoldActive;
     }
 
+    /// <summary>The link's counts at a moment (when a capture header arrived).</summary>
+    private readonly record struct LinkCounts(long Frames, long CrcErrors, long Malformed, long SequenceGaps, long BadPayloads);
+
     /// <summary>One capture being written.</summary>
     private sealed class OpenCapture : IDisposable
     {
@@ -390,7 +418,7 @@ public sealed class LinkCaptureRecorder : IDisposable
         private readonly double _searchHz;
         private bool _writerReleased;
 
-        public OpenCapture(OutputFileSet outputs, OutputFile file, TextCaptureWriter writer, string path, CaptureHeaderPayload header, LinkFrameDecoder decoder, long badPayloads, long rowsBeforeHeader)
+        public OpenCapture(OutputFileSet outputs, OutputFile file, TextCaptureWriter writer, string path, CaptureHeaderPayload header, LinkCounts atHeader, long rowsBeforeHeader)
         {
             Outputs = outputs;
             File = file;
@@ -403,11 +431,11 @@ public sealed class LinkCaptureRecorder : IDisposable
             _signal = (int)header.Signal;
             _side = (int)header.BeatSide;
             _searchHz = header.SearchHz;
-            FramesAtOpen = decoder.Frames - 1;    // the header that opened it counts
-            CrcErrorsAtOpen = decoder.CrcErrors;
-            MalformedAtOpen = decoder.Malformed;
-            GapsAtOpen = decoder.SequenceGaps;
-            BadPayloadsAtOpen = badPayloads;
+            FramesAtOpen = atHeader.Frames;    // counted from the header that began it (included)
+            CrcErrorsAtOpen = atHeader.CrcErrors;
+            MalformedAtOpen = atHeader.Malformed;
+            GapsAtOpen = atHeader.SequenceGaps;
+            BadPayloadsAtOpen = atHeader.BadPayloads;
             RowsBeforeHeaderAtOpen = rowsBeforeHeader;
         }
 
@@ -444,6 +472,25 @@ public sealed class LinkCaptureRecorder : IDisposable
         public StatusPayload? Status { get; set; }
 
         public List<KeyValuePair<long, double>> PendingTemperatures { get; } = new();
+
+        /// <summary>True when two headers describe the same capture (same boot, kind, clock, prescale, signal, side, search frequency).</summary>
+        public static bool SameCapture(CaptureHeaderPayload a, CaptureHeaderPayload b) =>
+            a.BootId == b.BootId && a.Snapshots == b.Snapshots && a.ClockHz == b.ClockHz && a.Prescale == b.Prescale
+            && a.Signal == b.Signal && a.BeatSide == b.BeatSide && a.SearchHz == b.SearchHz;
+
+        /// <summary>Copies every field of a header.</summary>
+        public static void CopyHeader(CaptureHeaderPayload from, CaptureHeaderPayload to)
+        {
+            to.BootId = from.BootId;
+            to.Snapshots = from.Snapshots;
+            to.ClockHz = from.ClockHz;
+            to.Prescale = from.Prescale;
+            to.TimerBits = from.TimerBits;
+            to.CountBits = from.CountBits;
+            to.Signal = from.Signal;
+            to.BeatSide = from.BeatSide;
+            to.SearchHz = from.SearchHz;
+        }
 
         public bool Matches(CaptureHeaderPayload header) =>
             header.BootId == BootId && header.Snapshots == Snapshots && header.ClockHz == _clockHz && header.Prescale == _prescale

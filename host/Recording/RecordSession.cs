@@ -27,6 +27,8 @@ public sealed class RecordSession
     private long _lastFlush;
     private long _lastRequest;
     private bool _requested;
+    private bool _askedWhySilent;
+    private readonly long _started;
 
     /// <summary>A session over <paramref name="channel"/>, recording when <paramref name="recorder"/> is given.</summary>
     public RecordSession(ILinkChannel channel, LinkCaptureRecorder? recorder, TimeProvider? time = null)
@@ -35,7 +37,11 @@ public sealed class RecordSession
         _recorder = recorder;
         _time = time ?? TimeProvider.System;
         _lastFlush = _time.GetTimestamp();
+        _started = _lastFlush;
     }
+
+    /// <summary>After this long without a frame the session asks the device for its settings and status (a device whose link setting is off sends only what it is asked for).</summary>
+    public static readonly TimeSpan SilenceBeforeAsking = TimeSpan.FromSeconds(2);
 
     /// <summary>The frame decoder (its counts: frames, CRC errors, malformed stretches, sequence gaps).</summary>
     public LinkFrameDecoder Decoder => _decoder;
@@ -133,6 +139,18 @@ public sealed class RecordSession
             {
                 _lastFlush = _time.GetTimestamp();
                 _recorder.FlushToDisk();
+            }
+
+            if (!_askedWhySilent && _decoder.Frames == 0 && _time.GetElapsedTime(_started) >= SilenceBeforeAsking)
+            {
+                _askedWhySilent = true;
+                foreach (int wanted in new[] { LinkFrameType.Settings, LinkFrameType.Status })
+                {
+                    _request.WantedType = wanted;
+                    _payload.Reset();
+                    _request.Write(_payload);
+                    Send(LinkFrameType.Request);
+                }
             }
 
             if (_recorder.HeaderWanted && (!_requested || _time.GetElapsedTime(_lastRequest) >= Second))

@@ -6,6 +6,7 @@ using FreqReadout.Host.Captures;
 using FreqReadout.Host.Simulation;
 using FreqReadout.Link;
 using FreqReadout.Readout;
+using FreqReadout.Settings;
 using FreqReadout.Tests.Simulation;
 using Moq;
 
@@ -31,7 +32,7 @@ internal sealed class DeviceLinkHarness
         return (simulator.Metadata, rows.Rows);
     });
 
-    public DeviceLinkHarness(uint bootId = 0x5EED0001, int queueSlots = 64, ILinkPort? port = null)
+    public DeviceLinkHarness(uint bootId = 0x5EED0001, int queueSlots = 64, ILinkPort? port = null, LinkMode link = LinkMode.Capture)
     {
         (Metadata, Rows) = DemoSnapshots.Value;
         Port = new MemoryLinkPort();
@@ -50,7 +51,7 @@ internal sealed class DeviceLinkHarness
         };
         Streamer = new DeviceLinkStreamer(Queue, header);
         var counter = new CounterSettings { ClockHz = Metadata.ClockHz, Prescale = Metadata.Prescale, GateSeconds = 0.1 };
-        Settings = new DeviceSettings(counter, new ReadoutSettings()) { Input = InputKind.Snapshots, TimerBits = Metadata.TimerBits, CountBits = Metadata.CountBits, BootId = bootId };
+        Settings = new DeviceSettings(counter, new ReadoutSettings()) { Input = InputKind.Snapshots, TimerBits = Metadata.TimerBits, CountBits = Metadata.CountBits, BootId = bootId, Link = link };
         Counter = new RowPulseCounter(Rows);
         Loop = new DeviceLoop(Settings, Counter, null, new Mock<IDisplayPort>().Object, new Mock<IButtonPort>().Object, Streamer, Inbox);
     }

@@ -105,6 +105,36 @@ public sealed class RecordOverSerialTests : IDisposable
         Assert.Equal(device.Settings.SettingsText, stored);
     }
 
+    [PseudoTerminalFact]
+    public void A_device_whose_link_is_off_is_asked_why_it_is_silent_and_record_says_what_to_change()
+    {
+        using var pty = new PseudoTerminalPair();
+        var device = new DeviceLinkHarness(port: new PseudoTerminalLinkPort(pty), link: LinkMode.Off);
+        using var stop = new CancellationTokenSource();
+        Task deviceRun = Task.Run(() =>
+        {
+            try
+            {
+                while (!stop.IsCancellationRequested && device.RunSome(steps: 16))
+                {
+                    Thread.Sleep(1);    // about 16 reads a millisecond: the rows last the few seconds record listens
+                }
+            }
+            catch (ObjectDisposedException)
+            {
+            }
+        });
+
+        string output = Path.Combine(_dir, "silent.csv");
+        var (exit, _, error) = ConsoleCapture.RunMain("record", "--port", pty.SlavePath, "--out", output, "--seconds", "4");
+        stop.Cancel();
+        pty.Dispose();
+        Assert.True(deviceRun.Wait(Deadline), "the device loop did not stop");
+        Assert.True(exit == ExitCodes.Ok, error);
+        Assert.True(error.Contains("the device's link setting is off, so it streams nothing: send settings with link = capture"), error);
+        Assert.False(File.Exists(output));
+    }
+
     private static List<string> ReplayEvents(string capture)
     {
         var (exit, output, error) = ConsoleCapture.RunMain("replay", capture, "--json");
