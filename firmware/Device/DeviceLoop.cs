@@ -45,7 +45,7 @@ namespace FreqReadout.Firmware.Device
         private long nextStatusTick;
         private long nextHeaderTick;
         private long reads;
-        private int settingsCheck;
+        private uint settingsCheck;
         private string settingsToStore;
         private bool lastHold;
         private long gates;
@@ -194,7 +194,7 @@ namespace FreqReadout.Firmware.Device
             get { return reads; }
         }
 
-        /// <summary>The read pacer (stalls, missed deadlines, longest gap); null when the loop is not paced.</summary>
+        /// <summary>The read pacer (stalls, missed deadlines, longest gap); null when the loop is not paced. It runs on the clock's ticks: its "microseconds" are ticks of the counter settings' clock (whole microseconds on a board, 1 MHz); the status frame converts.</summary>
         public ReadPacer Pacer
         {
             get { return pacer; }
@@ -537,7 +537,7 @@ namespace FreqReadout.Firmware.Device
             link.SendStatus();
         }
 
-        private static int SettingsCheck(string text)
+        private static uint SettingsCheck(string text)
         {
             byte[] bytes = new byte[text.Length];
             for (int i = 0; i < text.Length; i++)

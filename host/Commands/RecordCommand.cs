@@ -136,13 +136,13 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
                 if (!session.TrySendSettings(settingsText, ConfirmTimeout, cancellationToken))
                 {
                     Console.Error.WriteLine(session.HasStatus
-                        ? $"error: the device did not confirm the settings within {ConfirmTimeout.TotalSeconds:0} s: its status reports settings check 0x{session.LastStatus.SettingsCheck:X4}, the file's is 0x{FrameCheck(settingsText):X4} (it may have refused them; its settings frame shows what is in force)"
+                        ? $"error: the device did not confirm the settings within {ConfirmTimeout.TotalSeconds:0} s: its status reports settings check 0x{session.LastStatus.SettingsCheck:X8}, the file's is 0x{FrameCheck(settingsText):X8} (it may have refused them; its settings frame shows what is in force)"
                         : $"error: no status frame from the device within {ConfirmTimeout.TotalSeconds:0} s ({session.BytesReceived.ToString(CultureInfo.InvariantCulture)} bytes received): check the port, the baud rate and that the firmware streams");
                     recorder?.Close("settings not confirmed", session.Decoder);
                     return ExitCodes.DataError;
                 }
 
-                Console.Error.WriteLine($"record: the device took the settings (status: settings check 0x{session.LastStatus.SettingsCheck:X4}, {session.LastStatus.SettingsProblems} problems, boot id {session.LastStatus.BootId})");
+                Console.Error.WriteLine($"record: the device took the settings (status: settings check 0x{session.LastStatus.SettingsCheck:X8}, {session.LastStatus.SettingsProblems} problems, boot id {session.LastStatus.BootId})");
                 if (recorder == null)
                 {
                     return ExitCodes.Ok;
@@ -187,7 +187,7 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
         }
     }
 
-    private static int FrameCheck(string text)
+    private static uint FrameCheck(string text)
     {
         var payload = new LinkPayloadWriter();
         payload.WriteAscii(text);

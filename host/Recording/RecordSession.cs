@@ -82,7 +82,7 @@ public sealed class RecordSession
     /// <summary>
     /// Sends a settings text (ASCII, at most <see cref="LinkFrameEncoder.MaxPayloadBytes"/> bytes) and asks for the
     /// status; true when, within <paramref name="timeout"/>, a status frame arrived whose settings check is the
-    /// CRC-16/CCITT-FALSE of the text sent (the device took the settings). Frames keep being recorded meanwhile.
+    /// CRC-32 (FrameCrc) of the text sent (the device took the settings). Frames keep being recorded meanwhile.
     /// </summary>
     public bool TrySendSettings(string text, TimeSpan timeout, CancellationToken cancellationToken)
     {
@@ -93,7 +93,7 @@ public sealed class RecordSession
             throw new ArgumentException($"the settings text is {text.Length} bytes; a frame holds at most {LinkFrameEncoder.MaxPayloadBytes}", nameof(text));
         }
 
-        int expected = FrameCrc.Compute(_payload.Buffer, 0, _payload.Length);
+        uint expected = FrameCrc.Compute(_payload.Buffer, 0, _payload.Length);
         Send(LinkFrameType.Settings);
         long start = _time.GetTimestamp();
         long lastAsk = long.MinValue;

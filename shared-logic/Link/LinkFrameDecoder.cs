@@ -67,7 +67,9 @@ namespace FreqReadout.Link
                 return false;
             }
 
-            if (FrameCrc.Compute(raw, 0, length) != 0)
+            int body = length - LinkFrameEncoder.CrcBytes;
+            uint stated = (uint)(raw[body] | (raw[body + 1] << 8) | (raw[body + 2] << 16)) | ((uint)raw[body + 3] << 24);
+            if (FrameCrc.Compute(raw, 0, body) != stated)
             {
                 CrcErrors++;
                 return false;

@@ -3,7 +3,7 @@ namespace FreqReadout.Link
     /// <summary>
     /// Writes frames of the capture link (docs/link-protocol.md): version (1 byte), frame type (1 byte), sequence number
     /// (2 bytes, little-endian, one more per frame written, modulo 65536), payload (0 to <see cref="MaxPayloadBytes"/>
-    /// bytes), CRC-16/CCITT-FALSE of all of that (2 bytes, high byte first, so that the CRC of the whole frame is 0), then
+    /// bytes), CRC-32 (<see cref="FrameCrc"/>) of all of that (4 bytes, little-endian), then
     /// COBS-stuffed (<see cref="ByteStuffing"/>) and ended by one zero byte. Its buffer is made once; writing a frame
     /// allocates nothing and costs O(payload). One encoder per link: it owns the sequence numbers.
     /// </summary>
@@ -18,8 +18,8 @@ namespace FreqReadout.Link
         /// <summary>Bytes before the payload: version, type, sequence number.</summary>
         public const int HeaderBytes = 4;
 
-        /// <summary>Bytes of the frame check after the payload.</summary>
-        public const int CrcBytes = 2;
+        /// <summary>Bytes of the frame check after the payload (CRC-32, little-endian).</summary>
+        public const int CrcBytes = 4;
 
         /// <summary>Longest frame on the wire: header, payload and CRC stuffed (one code byte more, as they stay under 254 bytes), and the delimiter.</summary>
         public const int MaxWireBytes = HeaderBytes + MaxPayloadBytes + CrcBytes + 2;
@@ -73,9 +73,11 @@ namespace FreqReadout.Link
             }
 
             int length = HeaderBytes + count;
-            int crc = FrameCrc.Compute(raw, 0, length);
-            raw[length] = (byte)(crc >> 8);
-            raw[length + 1] = (byte)(crc & 0xFF);
+            uint crc = FrameCrc.Compute(raw, 0, length);
+            raw[length] = (byte)(crc & 0xFF);
+            raw[length + 1] = (byte)((crc >> 8) & 0xFF);
+            raw[length + 2] = (byte)((crc >> 16) & 0xFF);
+            raw[length + 3] = (byte)(crc >> 24);
             length += CrcBytes;
 
             int n = ByteStuffing.Encode(raw, 0, length, destination, destinationOffset);

@@ -5,13 +5,13 @@ namespace FreqReadout.Link
     /// request). Every count runs from the device's start. Layout: boot id (u32), uptime (µs, i64), reads taken (i64),
     /// reads dropped (i64: the pulse counter gave a step no wrap explains), wraps mended (i64), loop stalls (i64), longest
     /// gap between reads (µs, i64), deadlines missed (i64), link frames lost (i64: the send queue was full), rejected
-    /// timer values (i64), the settings' check (u16: CRC-16/CCITT-FALSE of the settings text in force), settings problems
+    /// timer values (i64), the settings' check (u32: the CRC-32 of <see cref="FrameCrc"/> over the settings text in force), settings problems
     /// (1 byte: stored settings that fell back to defaults), flags (1 byte: 1 hold).
     /// </summary>
     public sealed class StatusPayload
     {
         /// <summary>Bytes of the layout.</summary>
-        public const int Bytes = 4 + (9 * 8) + 2 + 1 + 1;
+        public const int Bytes = 4 + (9 * 8) + 4 + 1 + 1;
 
         /// <summary>Changes at every start of the device.</summary>
         public uint BootId { get; set; }
@@ -43,8 +43,8 @@ namespace FreqReadout.Link
         /// <summary>Timer or count values the unwrapper refused.</summary>
         public long RejectedTicks { get; set; }
 
-        /// <summary>CRC-16/CCITT-FALSE of the settings text in force (its ASCII bytes).</summary>
-        public int SettingsCheck { get; set; }
+        /// <summary>The CRC-32 (<see cref="FrameCrc"/>) of the settings text in force (its ASCII bytes).</summary>
+        public uint SettingsCheck { get; set; }
 
         /// <summary>Stored settings that were invalid and fell back to their defaults, 0-255.</summary>
         public int SettingsProblems { get; set; }
@@ -65,7 +65,7 @@ namespace FreqReadout.Link
             writer.WriteInt64(MissedDeadlines);
             writer.WriteInt64(FramesLost);
             writer.WriteInt64(RejectedTicks);
-            writer.WriteUInt16(SettingsCheck);
+            writer.WriteUInt32(SettingsCheck);
             writer.WriteByte(SettingsProblems > 255 ? 255 : SettingsProblems);
             writer.WriteByte(HoldActive ? 1 : 0);
         }
@@ -83,12 +83,12 @@ namespace FreqReadout.Link
             long missed;
             long lost;
             long rejected;
-            int check;
+            uint check;
             int problems;
             int flags;
             if (!reader.TryReadUInt32(out boot) || !reader.TryReadInt64(out uptime) || !reader.TryReadInt64(out reads) || !reader.TryReadInt64(out dropped)
                 || !reader.TryReadInt64(out mended) || !reader.TryReadInt64(out stalls) || !reader.TryReadInt64(out gap) || !reader.TryReadInt64(out missed)
-                || !reader.TryReadInt64(out lost) || !reader.TryReadInt64(out rejected) || !reader.TryReadUInt16(out check)
+                || !reader.TryReadInt64(out lost) || !reader.TryReadInt64(out rejected) || !reader.TryReadUInt32(out check)
                 || !reader.TryReadByte(out problems) || !reader.TryReadByte(out flags))
             {
                 return false;

@@ -115,9 +115,10 @@ internal static class DeviceLoopBounds
         new("QuantisationErrorModel.RegressionDeterministicVariance", 0, "harmonics m <= sqrt(N) + 5, N <= 2^20", 105, 1029),
         new("ScalarMath.Exp", 1, "binary digits of |k| <= 1075 < 2^11: 11", 11, 11),
 
-        // Link frames (docs/link-protocol.md): at most 246 bytes before stuffing (4 header + 240 payload + 2 CRC).
-        new("ByteStuffing.Encode", 0, "frame bytes <= 4 + MaxPayloadBytes (240) + 2 = 246", 246, 246),
-        new("FrameCrc.Continue", 0, "frame bytes <= 246", 246, 246),
+        // Link frames (docs/link-protocol.md): at most 248 bytes before stuffing (4 header + 240 payload + 4 CRC).
+        new("ByteStuffing.Encode", 0, "frame bytes <= 4 + MaxPayloadBytes (240) + 4 = 248", 248, 248),
+        new("FrameCrc.Continue", 0, "frame bytes <= 244 (the CRC covers header and payload)", 244, 244),
+        new("FrameCrc.Continue", 1, "bits of a byte: 8", 8, 8),
         new("LinkFrameEncoder.TryEncode", 0, "payload bytes <= MaxPayloadBytes (240)", 240, 240),
         new("LinkPayloadWriter.VarUIntBytes", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),
         new("LinkPayloadWriter.WriteVarUInt", 0, "7-bit groups of a 64-bit value - 1 <= 9", 9, 9),

@@ -136,7 +136,7 @@ public sealed class LinkPayloadTests
         Assert.Equivalent(t, t2, strict: true);
 
         w.Reset();
-        var s = new StatusPayload { BootId = 7, UptimeMicroseconds = 3_600_000_000, Reads = 3_600_000, ReadsDropped = 2, WrapsMended = 55, Stalls = 3, LongestGapMicroseconds = 41_000, MissedDeadlines = 12, FramesLost = 4, RejectedTicks = 1, SettingsCheck = 0x29B1, SettingsProblems = 2, HoldActive = true };
+        var s = new StatusPayload { BootId = 7, UptimeMicroseconds = 3_600_000_000, Reads = 3_600_000, ReadsDropped = 2, WrapsMended = 55, Stalls = 3, LongestGapMicroseconds = 41_000, MissedDeadlines = 12, FramesLost = 4, RejectedTicks = 1, SettingsCheck = 0xCBF43926, SettingsProblems = 2, HoldActive = true };
         s.Write(w);
         Assert.Equal(StatusPayload.Bytes, w.Length);
         var s2 = new StatusPayload();
