@@ -88,20 +88,21 @@ namespace FreqReadout.Firmware.Device
             bool moved = reading.BaselineDisturbed;
             bool hold = reading.HoldActive && (reading.TargetPresent || reading.State != ReadoutState.Hold);
 
-            string line = PrimaryWord(reading, false) + Warnings(beat, moved, hold, 0);
+            string primary = PrimaryWord(reading, false);
+            string line = primary + Warnings(beat, moved, hold, 0);
             if (line.Length > width)
             {
-                line = PrimaryWord(reading, false) + Warnings(beat, moved, hold, 1);
-            }
-
-            if (line.Length > width)
-            {
-                line = PrimaryWord(reading, true) + Warnings(beat, moved, hold, 1);
-            }
-
-            if (line.Length > width)
-            {
-                line = PrimaryWord(reading, true) + Warnings(beat, moved, hold, 2);
+                string shortWarnings = Warnings(beat, moved, hold, 1);
+                line = primary + shortWarnings;
+                if (line.Length > width)
+                {
+                    primary = PrimaryWord(reading, true);
+                    line = primary + shortWarnings;
+                    if (line.Length > width)
+                    {
+                        line = primary + Warnings(beat, moved, hold, 2);
+                    }
+                }
             }
 
             return Fit(line, width);
