@@ -124,7 +124,7 @@ namespace FreqReadout.Firmware.Device
             string line = DisplayNumber.Count(readsPerSecond, 4) + "/s";
             if (width >= WideWidth)
             {
-                long gapMilliseconds = longestGapMicroseconds < 0 ? -1 : (longestGapMicroseconds + 500) / 1000;
+                long gapMilliseconds = longestGapMicroseconds < 0 ? -1 : (longestGapMicroseconds / 1000) + (longestGapMicroseconds % 1000 >= 500 ? 1 : 0);
                 line += " S" + DisplayNumber.Count(stalls, 2) + " M" + DisplayNumber.Count(missedDeadlines, 2)
                     + " " + DisplayNumber.Count(gapMilliseconds, 3) + "ms";
             }

@@ -198,6 +198,8 @@ public class DisplayTextTests
         Assert.Equal("1000/s S 3 M12  45ms", DisplayText.HealthLine(1000, 3, 12, 44_500, 20));
         Assert.Equal("1000/s S 3 M12 999ms", DisplayText.HealthLine(1000, 3, 12, 999_499, 20));
         Assert.Equal("   ?/s S  ? M  ?", DisplayText.HealthLine(-1, -1, -1, 0, 16));
+        Assert.Equal("999+/s S9+ M9+ 99+ms", DisplayText.HealthLine(long.MaxValue, long.MaxValue, long.MaxValue, long.MaxValue, 20));
+        Assert.Equal("   ?/s S ? M ?   ?ms", DisplayText.HealthLine(long.MinValue, -1, -1, -1, 20));
     }
 
     // Widths, padding, character set, culture.
@@ -217,6 +219,49 @@ public class DisplayTextTests
             Assert.Equal(new string(' ', width - 4), after[4..]);
             Assert.EndsWith("      ", DisplayText.ShiftLine(narrow, width));
         }
+    }
+
+    [Theory]
+    [InlineData(20, 4)]
+    [InlineData(16, 2)]
+    public void Through_the_LCD_encoder_the_display_shows_each_line_exactly_even_after_a_longer_one(int columns, int rows)
+    {
+        var encoder = new FreqReadout.Firmware.Board.Hd44780Pcf8574Encoder(columns, rows);
+        var model = new Hd44780Model();
+        foreach (int nibble in new[] { 0x30, 0x30, 0x30, 0x20 })
+        {
+            model.Feed(encoder.Buffer, encoder.EncodeInitNibble(nibble));
+        }
+
+        foreach (int instruction in new[] { 0x28, 0x08, 0x01, 0x06, 0x0C })
+        {
+            model.Feed(encoder.Buffer, encoder.EncodeInstruction(instruction));
+        }
+
+        encoder.ClearedAll();
+        Reading[] sequence =
+        [
+            Make(state: ReadoutState.Target, targetPresent: true, targetClass: TargetClass.NonFerrous, shiftHz: -1234.56, shiftPpm: -123.4, holdActive: true, belowBeatFloor: true, disturbed: true),
+            Make(state: ReadoutState.Hold, holdActive: true, hasPpm: false, shiftHz: 0.5),
+            Make(state: ReadoutState.NoSignal, hasFrequency: false, hasShift: false),
+        ];
+        int rowOfStatus = rows >= 4 ? 2 : 1;
+        int statusAddress = rowOfStatus == 2 ? columns : 0x40;   // 2-line DDRAM map: row 3 follows row 1, row 2 at 0x40
+        foreach (Reading r in sequence)
+        {
+            string shift = DisplayText.ShiftLine(r, columns);
+            string status = DisplayText.StatusLine(r, columns);
+            int row = rowOfStatus - 1;
+            model.Feed(encoder.Buffer, encoder.EncodeRow(row, shift));
+            encoder.Sent(shift);
+            model.Feed(encoder.Buffer, encoder.EncodeRow(rowOfStatus, status));
+            encoder.Sent(status);
+            Assert.Equal(shift, model.Text(row == 1 ? 0x40 : 0x00, columns));
+            Assert.Equal(status, model.Text(statusAddress, columns));
+        }
+
+        Assert.Equal("check input".PadRight(columns), model.Text(rows >= 4 ? 0x40 : 0x00, columns));
+        Assert.Empty(model.Violations);
     }
 
     [Fact]
