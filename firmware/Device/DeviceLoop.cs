@@ -570,7 +570,7 @@ namespace FreqReadout.Firmware.Device
                 lastShownState = reading.State;
                 lastShownClass = reading.Class;
                 displayUpdates++;
-                display.Show(DisplayText.FrequencyLine(reading), DisplayText.ShiftLine(reading), DisplayText.StatusLine(reading));
+                display.Show(DisplayText.FrequencyLine(reading, display.LineWidth), DisplayText.ShiftLine(reading, display.LineWidth), DisplayText.StatusLine(reading, display.LineWidth));
             }
         }
     }

@@ -49,6 +49,7 @@ public class DeviceLoopTests
     {
         var source = new QueueEdgeSource();
         var display = new Mock<IDisplayPort>();
+        display.SetupGet(d => d.LineWidth).Returns(20);
         string? line1 = null;
         display.Setup(d => d.Show(It.IsAny<string>(), It.IsAny<string>(), It.IsAny<string>()))
             .Callback<string, string, string>((a, b, c) => line1 = a);
@@ -64,7 +65,7 @@ public class DeviceLoopTests
         Assert.True(loop.TryGetLastReading(r));
         Assert.True(r.HasFrequency);
         Assert.InRange(r.FrequencyHz, 12_499.9, 12_500.1); // truth of the generated edges, +-1 tick jitter
-        Assert.Equal("F 12500.0 Hz", line1);
+        Assert.Equal("F    12500.0 Hz     ", line1);
         // 20 gates of 0.1 s, refreshed every 0.5 s and on each change of state: far fewer refreshes than gates.
         display.Verify(d => d.Show(It.IsAny<string>(), It.IsAny<string>(), It.IsAny<string>()), Times.Exactly((int)loop.DisplayUpdates));
         Assert.InRange(loop.DisplayUpdates, 3, 10);
@@ -124,18 +125,19 @@ public class DeviceLoopTests
     {
         var source = new QueueEdgeSource();
         var display = new Mock<IDisplayPort>();
+        display.SetupGet(d => d.LineWidth).Returns(20);
         string? line1 = null;
         display.Setup(d => d.Show(It.IsAny<string>(), It.IsAny<string>(), It.IsAny<string>()))
             .Callback<string, string, string>((a, b, c) => line1 = a);
         var loop = new DeviceLoop(Settings(), source, source, display.Object, new Mock<IButtonPort>().Object);
         Feed(source, 0, 1, _ => 10_000.0, 32, new Random(4));
         Run(loop, source);
-        Assert.StartsWith("F 10000", line1);
+        Assert.StartsWith("F    10000", line1);
 
         source.NowRaw = (0xFFFF_F000UL + 3_000_000UL) & 0xFFFF_FFFFUL; // 2 s after the last edge
         loop.Step();
 
-        Assert.Equal("F --- no signal", line1);
+        Assert.Equal("F        --- Hz     ", line1);
         var r = new Reading();
         Assert.True(loop.TryGetLastReading(r));
         Assert.False(r.HasFrequency);
