@@ -197,9 +197,17 @@ public class DeviceLoopHealthTests
         Assert.True(rig.Queue.FramesLost > 50, "lost: " + rig.Queue.FramesLost);
         Assert.True(rig.Loop.Gates >= 29);
 
+        // Once the port lets go, the writer drains what is queued (wait for it: under load the thread may only just start).
         release.Set();
+        var deadline = DateTime.UtcNow + TimeSpan.FromSeconds(30);
+        while (rig.Queue.Queued > 0 && DateTime.UtcNow < deadline)
+        {
+            Thread.Sleep(5);
+        }
+
         stop.Cancel();
         Assert.True(writer.Join(TimeSpan.FromSeconds(30)), "the writer thread did not finish");
+        Assert.Equal(0, rig.Queue.Queued);
         Assert.True(port.Writes >= 1);
     }
 
