@@ -1,36 +1,58 @@
 using System.Device.Gpio;
+using FreqReadout.Firmware.Device;
 using FreqReadout.Firmware.Ports;
 
 namespace FreqReadout.Firmware.Board
 {
-    /// <summary>Re-baseline push button (to ground, pull-up) and an optional hold switch (to ground, pull-up).</summary>
+    /// <summary>
+    /// The push button (to ground, internal pull-up) through a <see cref="ButtonDebouncer"/>: a short press asks for a
+    /// re-baseline, a press held over a second toggles hold. An optional hold switch (to ground, pull-up), debounced
+    /// the same way, replaces the toggled hold when wired. Times come from the clock passed in (us,
+    /// <see cref="HighResClockPort"/>).
+    /// </summary>
     public sealed class GpioButtons : IButtonPort
     {
-        private readonly GpioPin rebaseline;
-        private readonly GpioPin hold;
-        private bool wasDown;
+        private readonly GpioPin button;
+        private readonly GpioPin holdSwitch;
+        private readonly IClockPort clock;
+        private readonly ButtonDebouncer buttonDebouncer = new ButtonDebouncer();
+        private readonly ButtonDebouncer switchDebouncer = new ButtonDebouncer();
 
-        /// <summary>Opens the button pins with pull-ups; <paramref name="holdPin"/> &lt; 0 when the board has no hold switch.</summary>
-        public GpioButtons(GpioController controller, int rebaselinePin, int holdPin)
+        /// <summary>Opens the pins with pull-ups; <paramref name="holdPin"/> &lt; 0 when the board has no hold switch. <paramref name="clock"/> reads whole microseconds.</summary>
+        public GpioButtons(GpioController controller, int buttonPin, int holdPin, IClockPort clock)
         {
-            rebaseline = controller.OpenPin(rebaselinePin, PinMode.InputPullUp);
-            hold = holdPin >= 0 ? controller.OpenPin(holdPin, PinMode.InputPullUp) : null;
+            if (clock == null)
+            {
+                throw new System.ArgumentNullException("clock");
+            }
+
+            this.clock = clock;
+            button = controller.OpenPin(buttonPin, PinMode.InputPullUp);
+            holdSwitch = holdPin >= 0 ? controller.OpenPin(holdPin, PinMode.InputPullUp) : null;
         }
 
         /// <inheritdoc />
         public bool TryTakeRebaselinePress()
         {
-            bool down = IsLow(rebaseline);
-            bool pressed = down && !wasDown;
-            wasDown = down;
-            return pressed;
+            // The loop calls this once a step, before TryReadHold: both pins are sampled here.
+            ulong now;
+            if (clock.TryReadNow(out now))
+            {
+                buttonDebouncer.Update(IsLow(button), (long)now);
+                if (holdSwitch != null)
+                {
+                    switchDebouncer.Update(IsLow(holdSwitch), (long)now);
+                }
+            }
+
+            return buttonDebouncer.TryTakeShortPress();
         }
 
         /// <inheritdoc />
         public bool TryReadHold(out bool on)
         {
-            on = hold != null && IsLow(hold);
-            return hold != null;
+            on = holdSwitch != null ? switchDebouncer.IsDown : buttonDebouncer.HoldOn;
+            return true;
         }
 
         private static bool IsLow(GpioPin pin)

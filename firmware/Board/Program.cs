@@ -58,6 +58,7 @@ namespace FreqReadout.Firmware.Board
             };
 
             var gpio = new GpioController();
+            var clock = new HighResClockPort();
             var display = new I2cCharacterLcd(21, 22, I2cCharacterLcd.Pcf8574Address, 20, 4);
             var queue = new LinkSendQueue(SendQueueSlots);
             var inbox = new LinkInbox();
@@ -71,7 +72,7 @@ namespace FreqReadout.Firmware.Board
                 BeatSide = settings.Readout.BeatSide,
                 SearchHz = settings.Readout.SearchHz,
             };
-            var loop = new DeviceLoop(settings, new PulseCounterPort(26), new HighResClockPort(), display, new GpioButtons(gpio, 0, -1), new DeviceLinkStreamer(queue, header), inbox);
+            var loop = new DeviceLoop(settings, new PulseCounterPort(26), clock, display, new GpioButtons(gpio, 0, -1, clock), new DeviceLinkStreamer(queue, header), inbox);
             new Thread(new LinkWriter(worker).Run).Start();
 
             long healthDue = (long)HighResTimer.GetCurrent() + HealthIntervalMicroseconds;
