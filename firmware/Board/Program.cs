@@ -39,6 +39,15 @@ namespace FreqReadout.Firmware.Board
         /// <summary>Frames the send queue holds: at 1000 reads a second a batch of 64 reads leaves every 64 ms, so 32 slots ride out a 1 s hold-up of the port with the readings.</summary>
         public const int SendQueueSlots = 32;
 
+        /// <summary>The buzzer's pin (PWM, hardware-notes/peripherals.md).</summary>
+        public const int BuzzerPin = 25;
+
+        /// <summary>
+        /// A steady alert tone sounded whatever the readings say, Hz; 0 (normal) = off. Set it (e.g. 1500) and deploy only
+        /// for the supply-pulling check of hardware-notes/peripherals.md.
+        /// </summary>
+        public const int ForcedAlertToneHz = 0;
+
         /// <summary>Time between health lines on the LCD, us.</summary>
         public const long HealthIntervalMicroseconds = 5000000;
 
@@ -74,13 +83,22 @@ namespace FreqReadout.Firmware.Board
             };
             var loop = new DeviceLoop(settings, new PulseCounterPort(26), clock, display, new GpioButtons(gpio, 0, -1, clock), new DeviceLinkStreamer(queue, header), inbox);
             new Thread(new LinkWriter(worker).Run).Start();
+            var buzzer = new PwmBuzzer(BuzzerPin);
+            var alert = new AlertPattern { ForcedToneHz = ForcedAlertToneHz };
+            var lastReading = new Reading();    // preallocated: the loop copies its last reading in when a gate closes
 
             long healthDue = (long)HighResTimer.GetCurrent() + HealthIntervalMicroseconds;
             long healthReads = 0;
             while (true)
             {
-                loop.Step();
+                int closed = loop.Step();
                 long now = (long)HighResTimer.GetCurrent();
+                if (closed > 0 && loop.TryGetLastReading(lastReading))
+                {
+                    alert.Update(lastReading, now);
+                }
+
+                alert.Drive(buzzer, now);    // touches the PWM only when the tone changes (chopping, a new reading)
                 if (now >= healthDue)
                 {
                     ShowHealth(display, loop, loop.Reads - healthReads);

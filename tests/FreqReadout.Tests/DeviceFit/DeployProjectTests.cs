@@ -43,6 +43,9 @@ public class DeployProjectTests
         new("nanoFramework.System.Device.I2c", "1.1.29", "System.Device.I2c",
             "nanoframework/System.Device.I2c, nanoFramework.System.Device.I2c.nuspec, tag v1.1.29 (ac5858c8be7d7b917854328ebc023c8bf66dbfee)",
             ["nanoFramework.CoreLibrary 1.17.11"]),
+        new("nanoFramework.System.Device.Pwm", "1.1.23", "System.Device.Pwm",
+            "nanoframework/System.Device.Pwm, nanoFramework.System.Device.Pwm.nuspec, tag v1.1.23 (8f14504caeb537dd541fe0f2c8eeb77979cd3654)",
+            ["nanoFramework.CoreLibrary 1.17.11"]),
     ];
 
     private static string FirmwareDir => Path.Combine(BoardAssemblyPaths.RepositoryRoot(), "firmware");
