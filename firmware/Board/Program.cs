@@ -85,6 +85,9 @@ namespace FreqReadout.Firmware.Board
             new Thread(new LinkWriter(worker).Run).Start();
             var buzzer = new PwmBuzzer(BuzzerPin);
             var alert = new AlertPattern { ForcedToneHz = ForcedAlertToneHz };
+            // Optional TMP102 beside the oscillator on the LCD's I2C bus (created after the LCD, which routes the pins); a
+            // board without one only counts failed polls, once a second.
+            var temperature = new TemperaturePoller(new Tmp102Sensor(Tmp102Conversion.DefaultAddress), TemperaturePoller.DefaultIntervalMicroseconds);
             var lastReading = new Reading();    // preallocated: the loop copies its last reading in when a gate closes
 
             long healthDue = (long)HighResTimer.GetCurrent() + HealthIntervalMicroseconds;
@@ -98,7 +101,13 @@ namespace FreqReadout.Firmware.Board
                     alert.Update(lastReading, now);
                 }
 
-                alert.Drive(buzzer, now);    // touches the PWM only when the tone changes (chopping, a new reading)
+                alert.Drive(buzzer, now);
+                double celsius;
+                if (temperature.TryPoll(now, out celsius))
+                {
+                    loop.SetTemperature(celsius);    // tempco and the capture's temp_c
+                }
+    // touches the PWM only when the tone changes (chopping, a new reading)
                 if (now >= healthDue)
                 {
                     ShowHealth(display, loop, loop.Reads - healthReads);
