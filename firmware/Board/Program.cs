@@ -12,9 +12,10 @@ namespace FreqReadout.Firmware.Board
 {
     /// <summary>
     /// Entry point for a classic ESP32: the conditioned search oscillator (or beat note) on GPIO 26 through the
-    /// hardware pulse counter, the re-baseline button on GPIO 0 (the BOOT button of most boards), a 20x4 I2C character
+    /// hardware pulse counter, the button on GPIO 0 (the BOOT button of most boards: a short press re-baselines, a long one toggles hold), a 20x4 I2C character
     /// LCD on GPIO 21 (SDA) and 22 (SCL), the link to the PC on COM2 (TX GPIO 17, RX GPIO 16, 921600 baud) through a
-    /// USB-UART adapter. Wiring: hardware-notes/build-and-flash.md.
+    /// USB-UART adapter, a piezo buzzer on GPIO 25 (PWM), an optional TMP102 on the LCD's I2C bus, settings and a boot
+    /// counter in the internal flash's file system. Wiring: hardware-notes/build-and-flash.md and hardware-notes/peripherals.md.
     /// <para>
     /// Pacing: the device loop reads the pulse counter on deadlines of <c>HighResTimer.GetCurrent()</c> (whole
     /// microseconds, the pulse counter's own time base; <see cref="HighResClockPort"/>) at the settings' read_rate_hz
@@ -54,17 +55,19 @@ namespace FreqReadout.Firmware.Board
         /// <summary>Starts the readout and runs it for ever.</summary>
         public static void Main()
         {
-            // Read jitter: the native read takes the count, then the time, in two calls a few us apart, and an
-            // interrupt between them adds more: 2 us rms is an estimate until a board measures it.
-            var counterSettings = new CounterSettings { ClockHz = PulseCounterPort.ClockHz, GateSeconds = 0.2, JitterTicks = 2 };
-            var settings = new DeviceSettings(counterSettings, new ReadoutSettings())
+            // Stored settings first, before the loop is built: a bad stored value falls back to its default and is counted
+            // (the status frame's settings problems); a missing or unreadable file leaves the defaults (SettingsStorage).
+            var storage = new SettingsStorage(new FlashSettingsStore());
+            DeviceSettings settings = DefaultSettings();
+            if (storage.LoadInto(settings, null) == StoredSettingsResult.Rejected)
             {
-                Input = InputKind.Snapshots,
-                TimerBits = 64,
-                CountBits = 64,
-                CountWrapSpan = PulseCounterPort.WrapSpanCounts,
-                BootId = (uint)new Random().Next(),    // no stored boot counter yet: a number drawn at start tells a reset
-            };
+                int problems = settings.SettingsProblems;
+                settings = DefaultSettings();    // values that together fail the checks: start from the defaults
+                settings.SettingsProblems = problems + 1;
+            }
+
+            // The stored boot counter, incremented; a number drawn at start when the flash cannot keep it.
+            settings.BootId = storage.NextBootId((uint)new Random().Next());
 
             var gpio = new GpioController();
             var clock = new HighResClockPort();
@@ -101,13 +104,14 @@ namespace FreqReadout.Firmware.Board
                     alert.Update(lastReading, now);
                 }
 
-                alert.Drive(buzzer, now);
+                storage.SaveFrom(loop);    // settings the PC sent, once in force: rare, a flash write
+                alert.Drive(buzzer, now);    // touches the PWM only when the tone changes (chopping, a new reading)
                 double celsius;
                 if (temperature.TryPoll(now, out celsius))
                 {
                     loop.SetTemperature(celsius);    // tempco and the capture's temp_c
                 }
-    // touches the PWM only when the tone changes (chopping, a new reading)
+
                 if (now >= healthDue)
                 {
                     ShowHealth(display, loop, loop.Reads - healthReads);
@@ -121,6 +125,20 @@ namespace FreqReadout.Firmware.Board
                     Thread.Sleep(LoopSleep.MillisecondsToSleep(wait));
                 }
             }
+        }
+
+        private static DeviceSettings DefaultSettings()
+        {
+            // Read jitter: the native read takes the count, then the time, in two calls a few us apart, and an
+            // interrupt between them adds more: 2 us rms is an estimate until a board measures it.
+            var counterSettings = new CounterSettings { ClockHz = PulseCounterPort.ClockHz, GateSeconds = 0.2, JitterTicks = 2 };
+            return new DeviceSettings(counterSettings, new ReadoutSettings())
+            {
+                Input = InputKind.Snapshots,
+                TimerBits = 64,
+                CountBits = 64,
+                CountWrapSpan = PulseCounterPort.WrapSpanCounts,
+            };
         }
 
         private static void ShowHealth(I2cCharacterLcd display, DeviceLoop loop, long readsInInterval)
