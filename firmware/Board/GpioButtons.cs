@@ -5,54 +5,49 @@ using FreqReadout.Firmware.Ports;
 namespace FreqReadout.Firmware.Board
 {
     /// <summary>
-    /// The push button (to ground, internal pull-up) through a <see cref="ButtonDebouncer"/>: a short press asks for a
-    /// re-baseline, a press held over a second toggles hold. An optional hold switch (to ground, pull-up), debounced
-    /// the same way, replaces the toggled hold when wired. Times come from the clock passed in (us,
-    /// <see cref="HighResClockPort"/>).
+    /// The push button (to ground, internal pull-up) and an optional hold switch (to ground, pull-up) as the loop's button
+    /// port: the pins' raw levels (<see cref="IButtonLevelPort"/>) go through <see cref="DebouncedButtons"/> on the
+    /// microsecond clock passed in (<see cref="HighResClockPort"/>): a short press asks for a re-baseline, a press held
+    /// over a second toggles hold, a wired hold switch replaces the toggle (hardware-notes/peripherals.md).
     /// </summary>
-    public sealed class GpioButtons : IButtonPort
+    public sealed class GpioButtons : IButtonPort, IButtonLevelPort
     {
         private readonly GpioPin button;
         private readonly GpioPin holdSwitch;
-        private readonly IClockPort clock;
-        private readonly ButtonDebouncer buttonDebouncer = new ButtonDebouncer();
-        private readonly ButtonDebouncer switchDebouncer = new ButtonDebouncer();
+        private readonly DebouncedButtons debounced;
 
         /// <summary>Opens the pins with pull-ups; <paramref name="holdPin"/> &lt; 0 when the board has no hold switch. <paramref name="clock"/> reads whole microseconds.</summary>
         public GpioButtons(GpioController controller, int buttonPin, int holdPin, IClockPort clock)
         {
-            if (clock == null)
-            {
-                throw new System.ArgumentNullException("clock");
-            }
-
-            this.clock = clock;
             button = controller.OpenPin(buttonPin, PinMode.InputPullUp);
             holdSwitch = holdPin >= 0 ? controller.OpenPin(holdPin, PinMode.InputPullUp) : null;
+            debounced = new DebouncedButtons(this, clock);
         }
 
         /// <inheritdoc />
         public bool TryTakeRebaselinePress()
         {
-            // The loop calls this once a step, before TryReadHold: both pins are sampled here.
-            ulong now;
-            if (clock.TryReadNow(out now))
-            {
-                buttonDebouncer.Update(IsLow(button), (long)now);
-                if (holdSwitch != null)
-                {
-                    switchDebouncer.Update(IsLow(holdSwitch), (long)now);
-                }
-            }
-
-            return buttonDebouncer.TryTakeShortPress();
+            return debounced.TryTakeRebaselinePress();
         }
 
         /// <inheritdoc />
         public bool TryReadHold(out bool on)
         {
-            on = holdSwitch != null ? switchDebouncer.IsDown : buttonDebouncer.HoldOn;
+            return debounced.TryReadHold(out on);
+        }
+
+        /// <inheritdoc />
+        public bool TryReadButtonDown(out bool down)
+        {
+            down = IsLow(button);
             return true;
+        }
+
+        /// <inheritdoc />
+        public bool TryReadHoldSwitchOn(out bool on)
+        {
+            on = holdSwitch != null && IsLow(holdSwitch);
+            return holdSwitch != null;
         }
 
         private static bool IsLow(GpioPin pin)
