@@ -1,5 +1,5 @@
 // COMPILE-ONLY SHIM (FreqReadout.BoardShim.CompileOnly): never deployed, never run; every body throws.
-// Signature as declared in nanoframework/nanoFramework.Hardware.Esp32, nanoFramework.Hardware.Esp32/DeviceTypePins.cs, tag v1.6.34: value = device type x 0x10000 + device index x 0x100 + signal (SERIAL 3, I2C 2) (written from the signature; no implementation copied).
+// Signature as declared in nanoframework/nanoFramework.Hardware.Esp32, nanoFramework.Hardware.Esp32/DeviceTypePins.cs, tag v1.6.34: value = device type x 0x10000 + device index x 0x100 + signal (SERIAL 3, I2C 2, PWM 4) (written from the signature; no implementation copied).
 namespace nanoFramework.Hardware.Esp32
 {
     /// <summary>Shim of nanoFramework's ESP32 DeviceFunction: only the values firmware/Board/ uses, with the real numbers.</summary>
@@ -22,5 +22,8 @@ namespace nanoFramework.Hardware.Esp32
 
         /// <summary>UART of COM2, receive.</summary>
         COM2_RX = 0x30201,
+
+        /// <summary>PWM channel 1 (DeviceTypes.PWM 4 x 0x10000 + index 1 x 0x100).</summary>
+        PWM1 = 0x40100,
     }
 }

@@ -19,6 +19,12 @@ namespace System.Device.I2c
             throw new NotImplementedException("compile-only shim");
         }
 
+        /// <summary>Writes then reads in one transaction, with a repeated start (shim: throws). Takes and returns structs (SpanByte, I2cTransferResult).</summary>
+        public I2cTransferResult WriteRead(SpanByte writeBuffer, SpanByte readBuffer)
+        {
+            throw new NotImplementedException("compile-only shim");
+        }
+
         /// <summary>Releases the device (shim: throws).</summary>
         public void Dispose()
         {

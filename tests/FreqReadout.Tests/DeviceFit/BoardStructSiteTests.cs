@@ -14,6 +14,8 @@ public class BoardStructSiteTests
         ["PulseCounterPort.TryReadSnapshot: local of type GpioPulseCount"] = "GpioPulseCounter.Read() returns the struct GpioPulseCount",
         ["I2cCharacterLcd.Send: local of type I2cTransferResult"] = "I2cDevice.Write returns the struct I2cTransferResult",
         ["I2cCharacterLcd.Send: newobj SpanByte"] = "I2cDevice.Write takes the struct SpanByte",
+        ["Tmp102Sensor.TryReadCelsius: local of type I2cTransferResult"] = "I2cDevice.WriteRead returns the struct I2cTransferResult (once a second)",
+        ["Tmp102Sensor.TryReadCelsius: newobj SpanByte"] = "I2cDevice.WriteRead takes two structs SpanByte (once a second)",
     };
 
     [Fact]

@@ -65,10 +65,12 @@ internal static class BudgetReport
             sb.Append(left <= 0 ? "none (the gates and the link alone need more)" : (left / perRead).ToString("N0", Inv) + " reads a second").Append(" at ").Append(label).Append(end);
         }
 
+        sb.Append("- the board's own additions are not in these two lines: add case 11 to every step (read) and case 12 to every gate (")
+          .Append(Ops(defaults[10])).Append(" and ").Append(Ops(defaults[11])).Append(" IL ops).\n");
         sb.Append("- the gate that completes a baseline capture (case 5) holds up the loop for ").Append(Time(defaults[4], a.HighOpsPerSecond)).Append(" to ")
           .Append(Time(defaults[4], a.LowOpsPerSecond)).Append(" (no_signal_s default 0.5 s, gate 0.1 s).\n\n");
 
-        sb.Append("Per method (every device method reached from `DeviceLoop.Step`; worst case including what it calls):\n\n");
+        sb.Append("Per method (every device method reached from `DeviceLoop.Step`, the link's rare work and the board's additions of cases 11 and 12; worst case including what it calls):\n\n");
         sb.Append("| method | IL instructions | loops: bound | IL ops, defaults | IL ops, limits |\n");
         sb.Append("|---|---:|---|---:|---:|\n");
         counter.Count(DeviceBudget.Entries, CostProfile.Defaults, DeviceBudget.NeverCounted);

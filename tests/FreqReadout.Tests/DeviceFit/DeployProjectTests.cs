@@ -43,6 +43,12 @@ public class DeployProjectTests
         new("nanoFramework.System.Device.I2c", "1.1.29", "System.Device.I2c",
             "nanoframework/System.Device.I2c, nanoFramework.System.Device.I2c.nuspec, tag v1.1.29 (ac5858c8be7d7b917854328ebc023c8bf66dbfee)",
             ["nanoFramework.CoreLibrary 1.17.11"]),
+        new("nanoFramework.System.Device.Pwm", "1.1.23", "System.Device.Pwm",
+            "nanoframework/System.Device.Pwm, nanoFramework.System.Device.Pwm.nuspec, tag v1.1.23 (8f14504caeb537dd541fe0f2c8eeb77979cd3654)",
+            ["nanoFramework.CoreLibrary 1.17.11"]),
+        new("nanoFramework.System.IO.FileSystem", "1.1.85", "System.IO.FileSystem",
+            "nanoframework/System.IO.FileSystem, nanoFramework.System.IO.FileSystem.nuspec, tag v1.1.85 (c08267d758a6cb422cac47f811612bde3880be73)",
+            ["nanoFramework.CoreLibrary 1.17.11", "nanoFramework.Runtime.Events 1.11.32", "nanoFramework.System.IO.Streams 1.1.94", "nanoFramework.System.Text 1.3.42"]),
     ];
 
     private static string FirmwareDir => Path.Combine(BoardAssemblyPaths.RepositoryRoot(), "firmware");

@@ -52,10 +52,14 @@ internal static class DeviceBudget
         {
             Excluded = ["DeviceLoop.StepEdges", "DeviceLoop.Publish", "SnapshotCounter.TryCloseGate", "SnapshotCounter.NoSignal", .. Rare],
         },
+        new("Board's per-step additions (Program, GpioButtons): the button port's work behind the loop's two port calls (DebouncedButtons: clock, both pin levels, two ButtonDebouncer updates), AlertPattern.Drive with its port call, TemperaturePoller.TryPoll (worst case: the once-a-second sensor read, a port call)", "steps", ["DebouncedButtons.TryTakeRebaselinePress", "DebouncedButtons.TryReadHold", "AlertPattern.Drive", "TemperaturePoller.TryPoll"]),
+        new("Board's per-gate addition (Program): DeviceLoop.TryGetLastReading into the preallocated reading and AlertPattern.Update", "gates", ["DeviceLoop.TryGetLastReading", "AlertPattern.Update"]),
     ];
 
-    /// <summary>The device loop's one entry: every per-read and per-gate method is reached from it (for the per-method table and the loop checks).</summary>
-    public static IReadOnlyList<string> Entries { get; } = ["DeviceLoop.Step", "DeviceLinkStreamer.FlushSnapshots", "DeviceLoop.SendStatus", "DeviceLinkStreamer.SendHeader"];
+    /// <summary>The device loop's entries and the board's per-step and per-gate additions: every per-read and per-gate method is reached from them (for the per-method table and the loop checks).</summary>
+    public static IReadOnlyList<string> Entries { get; } =
+        ["DeviceLoop.Step", "DeviceLinkStreamer.FlushSnapshots", "DeviceLoop.SendStatus", "DeviceLinkStreamer.SendHeader",
+         "DebouncedButtons.TryTakeRebaselinePress", "DebouncedButtons.TryReadHold", "AlertPattern.Drive", "TemperaturePoller.TryPoll", "DeviceLoop.TryGetLastReading", "AlertPattern.Update"];
 
     /// <summary>Default gate rate (CounterSettings.GateSeconds default 0.1 s) used in the sustained-rate lines.</summary>
     public const double DefaultGatesPerSecond = 10;

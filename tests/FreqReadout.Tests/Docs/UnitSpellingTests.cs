@@ -12,8 +12,19 @@ public sealed class UnitSpellingTests
     /// <summary>Other spellings of a temperature unit: a degree sign, degree(s), Celsius, degC, or "20 C" / "(-100, 200) C".</summary>
     private static readonly Regex OtherSpelling = new(@"°|\bdegrees?\b(?! of freedom)|Celsius|\bdegC\b|(\d|\)|\])\sC\b(?!\+\+)", RegexOptions.Compiled);
 
+    /// <summary>A code span that only names a member (`ITemperaturePort.TryReadCelsius`, `Foo.Bar(int)`): code, not a unit written in prose.</summary>
+    private static readonly Regex IdentifierSpan = new(@"`[A-Za-z_][A-Za-z0-9_.]*(\([A-Za-z0-9_., ]*\))?`", RegexOptions.Compiled);
+
     internal static IEnumerable<string> Offending(string text) =>
-        text.Split('\n').Where(l => OtherSpelling.IsMatch(l.Replace("L C", string.Empty, StringComparison.Ordinal)));
+        text.Split('\n').Where(l => OtherSpelling.IsMatch(IdentifierSpan.Replace(l.Replace("L C", string.Empty, StringComparison.Ordinal), string.Empty)));
+
+    [Fact]
+    public void Member_names_in_code_spans_are_not_units_but_prose_still_is()
+    {
+        Assert.Empty(Offending("| `ITemperaturePort.TryReadCelsius` | 50 (port) | 11: 1 |"));
+        Assert.Single(Offending("reads the temperature in Celsius from `ITemperaturePort.TryReadCelsius`"));
+        Assert.Single(Offending("`temp 20 C`"));
+    }
 
     public static TheoryData<string> Commands() => new() { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil" };
 
