@@ -485,6 +485,17 @@ namespace FreqReadout.Firmware.Device
 
             if (link != null)
             {
+                if (applied)
+                {
+                    // The capture's metadata follows the signal settings: a changed header starts a new capture on the PC.
+                    FreqReadout.Link.CaptureHeaderPayload header = link.Header;
+                    header.Signal = settings.Readout.Signal;
+                    header.BeatSide = settings.Readout.BeatSide;
+                    header.SearchHz = settings.Readout.SearchHz;
+                    link.Flush();
+                    link.SendHeader();
+                }
+
                 if (settings.SettingsText != null)
                 {
                     link.SendSettings(settings.SettingsText);

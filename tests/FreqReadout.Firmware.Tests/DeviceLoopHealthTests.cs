@@ -211,6 +211,39 @@ public class DeviceLoopHealthTests
         Assert.True(port.Writes >= 1);
     }
 
+    [Fact]
+    public void New_signal_settings_from_the_pc_send_a_new_capture_header_the_settings_and_a_status()
+    {
+        var rig = new Rig();
+        rig.Run(untilMicroseconds: 1_000_000, stepMicroseconds: 1000);
+        Assert.True(rig.Loop.ApplySettingsText("# freqreadout settings 1\nsignal = beat\nbeat_side = below\nsearch_hz = 98000\n"));
+        rig.Run(untilMicroseconds: 1_100_000, stepMicroseconds: 1000);
+
+        var decoder = new LinkFrameDecoder();
+        var frame = new LinkFrame();
+        var reader = new LinkPayloadReader();
+        var header = new CaptureHeaderPayload();
+        var types = new List<int>();
+        foreach (byte b in ((CollectingPort)rig.Port).Bytes.ToArray())
+        {
+            if (decoder.Push(b, frame))
+            {
+                types.Add(frame.FrameType);
+                if (frame.FrameType == LinkFrameType.CaptureHeader)
+                {
+                    reader.Reset(frame.Payload, frame.PayloadLength);
+                    Assert.True(header.TryRead(reader));
+                }
+            }
+        }
+
+        Assert.Equal(FreqReadout.Counting.SignalKind.Beat, header.Signal);    // the last header sent
+        Assert.Equal(FreqReadout.Counting.BeatSide.Below, header.BeatSide);
+        Assert.Equal(98000, header.SearchHz);
+        int last = types.LastIndexOf(LinkFrameType.CaptureHeader);
+        Assert.Equal(new[] { LinkFrameType.CaptureHeader, LinkFrameType.Settings, LinkFrameType.Status }, types.Skip(last).Take(3));
+    }
+
     private sealed class BlockingPort : ILinkPort
     {
         private readonly ManualResetEventSlim _release;
