@@ -230,7 +230,8 @@ public sealed class DeviceToRecordingTests : IDisposable
         Assert.InRange(deviceLost, 1, device.Queue.FramesLost);
     }
 
-    private static List<string> ReplayEvents(string capture)
+    /// <summary>The events of <c>replay --json</c> on a capture: start, end, peak shift and class, as text to compare.</summary>
+    internal static List<string> ReplayEvents(string capture)
     {
         var (exit, output, error) = ConsoleCapture.RunMain("replay", capture, "--json");
         Assert.True(exit == 0, error);

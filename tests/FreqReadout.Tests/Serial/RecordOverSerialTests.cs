@@ -1,4 +1,3 @@
-using System.Text.Json;
 using FreqReadout.Host.Captures;
 using FreqReadout.Host.Commands;
 using FreqReadout.Host.Recording;
@@ -59,7 +58,7 @@ public sealed class RecordOverSerialTests : IDisposable
 
         string source = Path.Combine(_dir, "source.csv");
         device.WriteSource(source);
-        Assert.Equal(ReplayEvents(source), ReplayEvents(recording));
+        Assert.Equal(DeviceToRecordingTests.ReplayEvents(source), DeviceToRecordingTests.ReplayEvents(recording));
     }
 
     [PseudoTerminalFact]
@@ -133,15 +132,5 @@ public sealed class RecordOverSerialTests : IDisposable
         Assert.True(exit == ExitCodes.Ok, error);
         Assert.True(error.Contains("the device's link setting is off, so it streams nothing: send settings with link = capture"), error);
         Assert.False(File.Exists(output));
-    }
-
-    private static List<string> ReplayEvents(string capture)
-    {
-        var (exit, output, error) = ConsoleCapture.RunMain("replay", capture, "--json");
-        Assert.True(exit == 0, error);
-        using var json = JsonDocument.Parse(output);
-        return json.RootElement.GetProperty("events").EnumerateArray()
-            .Select(e => $"{e.GetProperty("start_s").GetDouble():R} {e.GetProperty("end_s").GetDouble():R} {e.GetProperty("peak_shift_hz").GetDouble():R} {e.GetProperty("class").GetString()}")
-            .ToList();
     }
 }
