@@ -9,7 +9,9 @@ namespace FreqReadout.Firmware.Board
     /// Rising edges from managed pin-change events, stamped in software with <c>HighResTimer.GetCurrent()</c> (whole
     /// microseconds, so the capture's clock_hz is 1 MHz and the time is 64 bits) when the handler runs. Managed events
     /// carry no hardware timestamp (the native side stamps them with the 10 ms tick and the listener drops it) and
-    /// arrive milliseconds late: use only for a heavily divided signal or a low beat note (see
+    /// arrive milliseconds late through a native queue shared with every other event; both edges are queued whatever
+    /// the event type asks, so the handler skips the falling ones. Use only for a heavily divided signal or a low beat
+    /// note (see
     /// hardware-notes/timestamp-methods.md). The stamp was DateTime.UtcNow's ticks before; reading the microsecond timer
     /// instead holds no struct per edge (DateTime is one) and is the same clock as the pulse counter's.
     /// </summary>
@@ -34,6 +36,12 @@ namespace FreqReadout.Firmware.Board
 
         private void OnEdge(object sender, PinValueChangedEventArgs e)
         {
+            // nanoFramework arms both edges whatever the event type asked for (and queues both): skip the falling ones.
+            if (e.ChangeType != PinEventTypes.Rising)
+            {
+                return;
+            }
+
             ring.Add(HighResTimer.GetCurrent());
         }
 
