@@ -78,6 +78,14 @@ public sealed class OutputKeysDocumentedTests : IClassFixture<SimulatedDemoCaptu
     }
 
     [Fact]
+    public void Stability_json_keys_are_the_documented_ones()
+    {
+        var printed = new SortedSet<string>(StringComparer.Ordinal);
+        DocTables.AddDocument(Run("stability", _sim.CapturePath, "--json"), printed);
+        AssertSame("stability --json", DocTables.Keys("json-output.md", "keys: stability"), printed);
+    }
+
+    [Fact]
     public void Coil_json_keys_are_the_documented_ones_and_always_present()
     {
         var printed = new SortedSet<string>(StringComparer.Ordinal);
