@@ -156,7 +156,7 @@ public static class Program
     }
 
     /// <summary>The top-level command names (commands and branches) in the order they are registered.</summary>
-    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "record", "bench" };
+    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "tune", "record", "bench" };
 
     /// <summary>The command tree; tests run commands through this too.</summary>
     public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
@@ -222,6 +222,12 @@ public static class Program
             {
                 config.AddCommand<StabilityCommand>("stability")
                     .WithDescription("Allan and modified Allan deviation of an edge capture taken with no target, with intervals, noise types and the gate they recommend.");
+            }
+
+            if (Wanted("tune"))
+            {
+                config.AddCommand<TuneCommand>("tune")
+                    .WithDescription("Replay a capture once per value of one setting, in parallel, and tabulate the events, classes and re-baselines each finds; optionally write the device settings file for the value picked.");
             }
 
             if (Wanted("record"))

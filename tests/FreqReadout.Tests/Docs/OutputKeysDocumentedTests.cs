@@ -86,6 +86,14 @@ public sealed class OutputKeysDocumentedTests : IClassFixture<SimulatedDemoCaptu
     }
 
     [Fact]
+    public void Tune_json_keys_are_the_documented_ones()
+    {
+        var printed = new SortedSet<string>(StringComparer.Ordinal);
+        DocTables.AddDocument(Run("tune", _sim.CapturePath, "--vary", "threshold_sigma=1:5:4", "--json"), printed);
+        AssertSame("tune --json", DocTables.Keys("json-output.md", "keys: tune"), printed);
+    }
+
+    [Fact]
     public void Coil_json_keys_are_the_documented_ones_and_always_present()
     {
         var printed = new SortedSet<string>(StringComparer.Ordinal);
