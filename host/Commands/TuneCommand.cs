@@ -31,6 +31,11 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
         [Description("The setting to vary and its range, e.g. threshold_sigma=4:10:0.5; KEY is threshold_sigma, hysteresis_sigma, min_duration_s, release_s, persistent_shift_s, unclear_band_sigma, lock_check_s or gate_s; at most 200 values.")]
         public string? Vary { get; set; }
 
+        [CommandOption("--truth <FILE>")]
+        [Description("A simulation's truth file (simulate --truth): each value is also scored: passes found, classed right, false events (matched as demo matches them).")]
+        [FilePath]
+        public string? Truth { get; set; }
+
         [CommandOption("--pick <VALUE>")]
         [Description("With --settings-out: the value to write (one of the varied values).")]
         public double? Pick { get; set; }
@@ -71,6 +76,7 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
 
         using var outputs = new OutputFileSet { StandardOutputInUse = settings.Json };
         outputs.AddInput("the capture", settings.Capture);
+        outputs.AddInput("the truth file", settings.Truth);
         OutputFile? settingsFile = settings.SettingsOut != null ? outputs.AddOutput("--settings-out", settings.SettingsOut, "the device settings") : null;
         if (!outputs.TryPrepare(out OutputFileException? problem))
         {
@@ -100,10 +106,16 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
             }
         }
 
+        TruthPasses? truth = null;
+        if (settings.Truth != null && !TruthPasses.TryLoad(settings.Truth, out truth, out string? truthError))
+        {
+            return CommandOutput.Fail(truthError!, CommandOutput.BadInput);
+        }
+
         var rows = new TuneRow[variation.Values.Count];
         Parallel.For(0, rows.Length, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount, CancellationToken = cancellationToken }, i =>
         {
-            rows[i] = RunOne(settings, variation, variation.Values[i], baseReadout, metadata, cancellationToken);
+            rows[i] = RunOne(settings, variation, variation.Values[i], baseReadout, metadata, truth, cancellationToken);
         });
 
         if (settingsFile != null)
@@ -140,17 +152,30 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
 
         var console = CommandOutput.Stdout();
         var table = new Table().AddColumns(variation.Key, "events", "ferrous", "non-ferrous", "unclear", "re-baselines", "gates", "warnings");
+        if (truth != null)
+        {
+            table.AddColumns($"found of {truth.PeakSeconds.Count}", "class right", "false events");
+        }
+
         foreach (TuneRow r in rows)
         {
             string value = r.Value.ToString("R", CultureInfo.InvariantCulture);
+            var cells = new List<string>();
             if (r.Error != null)
             {
-                table.AddRow(value, Markup.Escape("not run: " + r.Error), string.Empty, string.Empty, string.Empty, string.Empty, string.Empty, string.Empty);
+                cells.Add(Markup.Escape("not run: " + r.Error));
+                cells.AddRange(Enumerable.Repeat(string.Empty, 6 + (truth != null ? 3 : 0)));
             }
             else
             {
-                table.AddRow(value, N(r.Events), N(r.Ferrous), N(r.NonFerrous), N(r.Unclear), N(r.Rebaselines), N(r.Gates), N(r.Warnings));
+                cells.AddRange(new[] { N(r.Events), N(r.Ferrous), N(r.NonFerrous), N(r.Unclear), N(r.Rebaselines), N(r.Gates), N(r.Warnings) });
+                if (truth != null)
+                {
+                    cells.AddRange(new[] { N(r.PassesFound ?? 0), N(r.ClassRight ?? 0), N(r.FalseEvents ?? 0) });
+                }
             }
+
+            table.AddRow(new[] { value }.Concat(cells).ToArray());
         }
 
         console.Write(table);
@@ -158,7 +183,7 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
         return ExitCodes.Ok;
     }
 
-    private static TuneRow RunOne(Settings settings, TuneVariation variation, double value, ReadoutSettings baseReadout, CaptureMetadata metadata, CancellationToken cancellationToken)
+    private static TuneRow RunOne(Settings settings, TuneVariation variation, double value, ReadoutSettings baseReadout, CaptureMetadata metadata, TruthPasses? truth, CancellationToken cancellationToken)
     {
         CounterSettings counter = settings.BuildOptions(out _)!;
         ReadoutSettings readout = baseReadout.Clone();
@@ -193,7 +218,16 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
         }
 
         int Count(TargetClass c) => report.Events.Count(e => e.Event.Class == c);
-        return new TuneRow(value, null, report.Gates, report.Events.Count, Count(TargetClass.Ferrous), Count(TargetClass.NonFerrous), Count(TargetClass.Unclear), report.Rebaselines.Count, report.Warnings.Count);
+        var row = new TuneRow(value, null, report.Gates, report.Events.Count, Count(TargetClass.Ferrous), Count(TargetClass.NonFerrous), Count(TargetClass.Unclear), report.Rebaselines.Count, report.Warnings.Count);
+        if (truth == null)
+        {
+            return row;
+        }
+
+        ReplayEvent?[] matched = PassMatching.Match(truth.PeakSeconds, report.Events, FreqReadout.Host.Demo.DemoRun.MatchWindowSeconds);
+        int found = matched.Count(e => e != null);
+        int right = matched.Where((e, i) => e != null && e.ClassName == truth.SignRuleClasses[i]).Count();
+        return row with { PassesFound = found, ClassRight = right, FalseEvents = report.Events.Count - found };
     }
 
     private static string ToJson(TuneVariation variation, IReadOnlyList<TuneRow> rows)
@@ -224,6 +258,9 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
                 w.WriteNumber("unclear", r.Unclear);
                 w.WriteNumber("rebaselines", r.Rebaselines);
                 w.WriteNumber("warnings", r.Warnings);
+                Nullable(w, "passes_found", r.PassesFound);
+                Nullable(w, "class_right", r.ClassRight);
+                Nullable(w, "false_events", r.FalseEvents);
                 w.WriteEndObject();
             }
 
@@ -232,6 +269,18 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
         }
 
         return Encoding.UTF8.GetString(stream.ToArray());
+    }
+
+    private static void Nullable(Utf8JsonWriter w, string key, int? value)
+    {
+        if (value is int v)
+        {
+            w.WriteNumber(key, v);
+        }
+        else
+        {
+            w.WriteNull(key);
+        }
     }
 
     private static string N(long v) => v.ToString(CultureInfo.InvariantCulture);

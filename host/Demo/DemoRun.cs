@@ -76,25 +76,16 @@ public static class DemoRun
             report = session.Run(source, cancellationToken);
         }
 
+        var passes = truth.Targets.SelectMany(t => t.Passes.Select(p => (Target: t, Pass: p))).ToList();
+        ReplayEvent?[] matched = PassMatching.Match(passes.Select(x => x.Pass.PeakTimeS).ToList(), report.Events, MatchWindowSeconds);
         var matches = new List<DemoPassMatch>();
-        var used = new HashSet<ReplayEvent>();
-        foreach (TargetTruth target in truth.Targets)
+        for (int i = 0; i < passes.Count; i++)
         {
-            foreach (PassTruth pass in target.Passes)
-            {
-                ReplayEvent? best = report.Events
-                    .Where(e => !used.Contains(e) && Math.Abs(e.Event.PeakSeconds - pass.PeakTimeS) <= MatchWindowSeconds)
-                    .OrderBy(e => Math.Abs(e.Event.PeakSeconds - pass.PeakTimeS))
-                    .FirstOrDefault();
-                if (best != null)
-                {
-                    used.Add(best);
-                }
-
-                matches.Add(new DemoPassMatch(target.Name, pass.Pass, pass.PeakTimeS, pass.PeakSearchShiftHz, target.MaterialClass, target.SignRuleClass, best));
-            }
+            (TargetTruth target, PassTruth pass) = passes[i];
+            matches.Add(new DemoPassMatch(target.Name, pass.Pass, pass.PeakTimeS, pass.PeakSearchShiftHz, target.MaterialClass, target.SignRuleClass, matched[i]));
         }
 
+        var used = new HashSet<ReplayEvent>(matched.OfType<ReplayEvent>());
         matches.Sort((a, b) => a.TruthPeakSeconds.CompareTo(b.TruthPeakSeconds));
         List<ReplayEvent> unmatched = report.Events.Where(e => !used.Contains(e)).ToList();
         return new DemoResult(truth, report, matches, unmatched, capturePath);

@@ -10,4 +10,7 @@ namespace FreqReadout.Host.Tuning;
 /// <param name="Unclear">Events classed unclear.</param>
 /// <param name="Rebaselines">Re-baselines after the first baseline.</param>
 /// <param name="Warnings">Warnings of the replay.</param>
-public sealed record TuneRow(double Value, string? Error, long Gates, int Events, int Ferrous, int NonFerrous, int Unclear, int Rebaselines, int Warnings);
+/// <param name="PassesFound">With a truth file: passes with an event (as demo matches them), else null.</param>
+/// <param name="ClassRight">With a truth file: found passes classed as the sign rule says, else null.</param>
+/// <param name="FalseEvents">With a truth file: events matching no pass, else null.</param>
+public sealed record TuneRow(double Value, string? Error, long Gates, int Events, int Ferrous, int NonFerrous, int Unclear, int Rebaselines, int Warnings, int? PassesFound = null, int? ClassRight = null, int? FalseEvents = null);

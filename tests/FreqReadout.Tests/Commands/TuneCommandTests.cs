@@ -58,6 +58,35 @@ public sealed class TuneCommandTests : IClassFixture<SimulatedDemoCapture>
         Assert.Equal(6, values.ThresholdSigma);
     }
 
+    [Fact]
+    public void With_the_truth_each_value_is_scored_as_demo_scores_its_passes()
+    {
+        // demo --json runs the same built-in scene at the default threshold (5 sigma): its pass matches are the oracle.
+        var (demoExit, demoOut, demoErr) = ConsoleCapture.Run("demo", "--json");
+        Assert.True(demoExit == 0, demoErr);
+        using var demo = JsonDocument.Parse(demoOut);
+        var passes = demo.RootElement.GetProperty("passes").EnumerateArray().ToList();
+        int found = passes.Count(p => p.GetProperty("found").GetBoolean());
+        int right = passes.Count(p => p.GetProperty("found").GetBoolean() && p.GetProperty("found_class").GetString() == p.GetProperty("sign_rule_class").GetString());
+        int unmatched = demo.RootElement.GetProperty("unmatched_events").GetInt32();
+
+        var (exit, output, error) = ConsoleCapture.Run("tune", _sim.CapturePath, "--vary", "threshold_sigma=5:5:1", "--truth", _sim.TruthPath, "--json");
+        Assert.True(exit == 0, error);
+        using var tune = JsonDocument.Parse(output);
+        JsonElement row = tune.RootElement.GetProperty("rows")[0];
+        Assert.Equal(found, row.GetProperty("passes_found").GetInt32());
+        Assert.Equal(right, row.GetProperty("class_right").GetInt32());
+        Assert.Equal(unmatched, row.GetProperty("false_events").GetInt32());
+    }
+
+    [Fact]
+    public void A_file_that_is_not_a_truth_file_is_named_with_what_was_expected()
+    {
+        var (exit, _, error) = ConsoleCapture.Run("tune", _sim.CapturePath, "--vary", "threshold_sigma=5:5:1", "--truth", _sim.CapturePath);
+        Assert.Equal(1, exit);
+        Assert.Contains($"{_sim.CapturePath}: not JSON", error);
+    }
+
     [Theory]
     [InlineData("sparkle=1:2:1", "--vary must be KEY=FROM:TO:STEP with KEY one of threshold_sigma")]
     [InlineData("threshold_sigma=5:4:1", "STEP must be > 0 and TO >= FROM")]
