@@ -156,7 +156,7 @@ public static class Program
     }
 
     /// <summary>The top-level command names (commands and branches) in the order they are registered.</summary>
-    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "tune", "record", "bench" };
+    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "tune", "import", "record", "bench" };
 
     /// <summary>The command tree; tests run commands through this too.</summary>
     public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
@@ -228,6 +228,16 @@ public static class Program
             {
                 config.AddCommand<TuneCommand>("tune")
                     .WithDescription("Replay a capture once per value of one setting, in parallel, and tabulate the events, classes and re-baselines each finds; optionally write the device settings file for the value picked.");
+            }
+
+            if (Wanted("import"))
+            {
+                config.AddBranch("import", import =>
+                {
+                    import.SetDescription("Turn recordings made with other tools into captures.");
+                    import.AddCommand<ImportVcdCommand>("vcd")
+                        .WithDescription("The rising edges of one signal of a logic analyser's value change dump, timed by the analyser's real sample period.");
+                });
             }
 
             if (Wanted("record"))
