@@ -17,6 +17,11 @@ public class HelpTests
     [InlineData("convert")]
     [InlineData("simulate")]
     [InlineData("coil")]
+    [InlineData("stability")]
+    [InlineData("tune")]
+    [InlineData("import")]
+    [InlineData("import vcd")]
+    [InlineData("record")]
     [InlineData("bench")]
     [InlineData("bench quality")]
     [InlineData("bench speed")]
@@ -27,5 +32,14 @@ public class HelpTests
         Assert.True(r.ExitCode == ExitCodes.Ok, $"exit {r.ExitCode}; stderr: {r.Stderr}");
         Assert.Contains("USAGE", r.Stdout);
         Assert.Equal(string.Empty, r.Stderr);
+    }
+
+    [Fact]
+    public void Every_registered_command_has_its_help_tested()
+    {
+        var tested = typeof(HelpTests).GetMethod(nameof(Help_of_every_command_prints_its_usage))!
+            .GetCustomAttributes(typeof(InlineDataAttribute), false).Cast<InlineDataAttribute>()
+            .Select(a => (string)a.GetData(null!).First()[0]).ToHashSet();
+        Assert.All(FreqReadout.Host.Program.CommandNames, name => Assert.Contains(name, tested));
     }
 }
