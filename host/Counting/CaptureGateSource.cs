@@ -675,8 +675,44 @@ public sealed class CaptureGateSource
         long[] lines = batch.LineNumbers;
         int n = batch.Count;
         long fed = 0;
+        long[] run = state.RunTicks(n);
         for (int i = 0; i < n; i++)
         {
+            if (wrapChecked && !extras)
+            {
+                // The common case in runs: plain timer steps (no gap past the no-signal time, so no polls) unwrapped
+                // into ticks, then counted a run of plain edges at a time; a row that is not plain in either goes
+                // through the steps below, and the running period reaches the unwrapper after every call, as there.
+                int m = unwrapper.UnwrapRun(ticks, i, n - i, (ulong)timeoutTicks, run, 0);
+                int j = 0;
+                while (j < m)
+                {
+                    j += counter.AddEdges(run, j, m - j, scratch, out bool gateClosed);
+                    if (counter.HasRunningPeriod)
+                    {
+                        unwrapper.ExpectedIntervalTicks = counter.RunningPeriodTicks;
+                    }
+
+                    if (gateClosed)
+                    {
+                        closedGates.Add(pending.Take(scratch, lines[i + j - 1]));
+                    }
+                }
+
+                if (m > 0)
+                {
+                    fed += m;
+                    state.LastFedLine = lines[i + m - 1];
+                    haveLast = true;
+                    lastTick = run[m - 1];
+                    i += m;
+                    if (i >= n)
+                    {
+                        break;
+                    }
+                }
+            }
+
             if (!unwrapper.TryUnwrap(ticks[i], out long tick))
             {
                 CaptureRow row = batch.RowAt(i);
@@ -769,6 +805,19 @@ public sealed class CaptureGateSource
         public long LastTick { get; set; }
 
         public bool WrapChecked { get; set; }
+
+        /// <summary>A reused buffer of at least <paramref name="rows"/> unwrapped ticks.</summary>
+        public long[] RunTicks(int rows)
+        {
+            if (_runTicks.Length < rows)
+            {
+                _runTicks = new long[rows];
+            }
+
+            return _runTicks;
+        }
+
+        private long[] _runTicks = [];
     }
 
     private IEnumerable<CaptureGate> SnapshotGates(IEnumerable<CaptureRow> rows)

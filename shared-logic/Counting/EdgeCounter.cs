@@ -376,6 +376,57 @@ namespace FreqReadout.Counting
         }
 
         /// <summary>
+        /// Feeds recorded edges from an array, exactly as <see cref="AddEdge"/> one by one would, taking either a run of
+        /// plain edges or one other edge. A plain edge is one that the open gate simply takes: the running period is
+        /// known (on more than its bootstrap interval) and the gate holds at least 2 edges, the interval is neither a
+        /// glitch, a dropout, a no-signal gap nor a candidate for inferred edges (below 1.5 running periods, which keeps
+        /// its ratio below the 1.75 where inference starts), its residual needs no re-nominalising and it does not
+        /// close the gate. Those are counted in one loop on local copies of the state; when the first edge is not plain,
+        /// it alone goes through <see cref="AddEdge"/> (gate close, glitch, gap, inferred edges, the first edges of a
+        /// gate or run). A caller that needs to look at the counter after every edge that is not plain (the running
+        /// period, a closed gate) calls this again until the edges are used up. Nothing is allocated; the loop runs at
+        /// most <paramref name="count"/> times.
+        /// </summary>
+        /// <param name="ticks">Unwrapped timer ticks of the edges (e.g. from <see cref="TimerUnwrapper.UnwrapRun"/>).</param>
+        /// <param name="offset">Index of the first edge to feed.</param>
+        /// <param name="count">Edges available from offset, at least 1.</param>
+        /// <param name="result">Caller-owned; filled as by <see cref="AddEdge"/> when closed is true, else unchanged.</param>
+        /// <param name="closed">True when the one edge taken closed a gate with a frequency (what AddEdge returned).</param>
+        /// <returns>Edges taken from offset: 1 to count.</returns>
+        /// <exception cref="System.ArgumentNullException">ticks or result is null.</exception>
+        /// <exception cref="System.ArgumentOutOfRangeException">offset or count outside the array, or count below 1.</exception>
+        public int AddEdges(long[] ticks, int offset, int count, GateResult result, out bool closed)
+        {
+            if (ticks == null)
+            {
+                throw new System.ArgumentNullException("ticks");
+            }
+
+            if (result == null)
+            {
+                throw new System.ArgumentNullException("result");
+            }
+
+            if (offset < 0 || count < 1 || offset > ticks.Length - count)
+            {
+                throw new System.ArgumentOutOfRangeException("count");
+            }
+
+            closed = false;
+            if (_gateOpen && _hasPeriod && _periodSamples >= 2 && _gateN >= 2)
+            {
+                int taken = AddPlainEdges(ticks, offset, offset + count) - offset;
+                if (taken > 0)
+                {
+                    return taken;
+                }
+            }
+
+            closed = AddEdge(ticks[offset], result);
+            return 1;
+        }
+
+        /// <summary>
         /// Tells the counter the time now. When no edge was accepted within NoSignalSeconds (measured
         /// from the last accepted edge, or from the first poll when there has been none), the open
         /// gate is abandoned (never reported late) and a no-signal result is returned; then again once
@@ -455,6 +506,99 @@ namespace FreqReadout.Counting
             _edgesTotal = 0;
             _gatesTotal = 0;
             _inferredTotal = 0;
+        }
+
+        /// <summary>
+        /// The plain edges of <see cref="AddEdges"/> from ticks[start] on, stopping before the first edge that is not plain
+        /// or at end; returns the index it stopped at. Each plain edge does what <see cref="AddEdge"/> does for it (the
+        /// same checks and the same arithmetic, in the same order): glitch, no-signal and dropout checks against the
+        /// running period, the period update with weight 1/16, the residual sums (Append with one period) and
+        /// <see cref="Accept"/>. Precondition: the gate is open, the period known on at least 2 intervals, the gate has
+        /// at least 2 edges. At most end - start passes.
+        /// </summary>
+        private int AddPlainEdges(long[] ticks, int start, int end)
+        {
+            double period = _period;
+            long lastTick = _lastTick;
+            long gateIndex = _gateIndex;
+            int gateN = _gateN;
+            long sr = _sr;
+            long sir = _sir;
+            long si = _si;
+            long sii = _sii;
+            long lastR = _lastR;
+            long p0 = _p0;
+            long gateStart = _gateStart;
+            long noSignalTicks = _noSignalTicks;
+            double glitchFraction = _glitchFraction;
+            double dropoutPeriods = _dropoutPeriods;
+            bool inferCheck = _infer && _inferMaxPeriods >= 2;
+            bool timeMode = _mode == GateMode.Time;
+            long gateTicks = _gateTicks;
+            long gateIntervals = _gateIntervals;
+            int k = start;
+            while (k < end)
+            {
+                long tick = ticks[k];
+                long d = tick - lastTick;
+                double dd = d;
+                if (d <= 0 || dd < glitchFraction * period || d >= noSignalTicks)
+                {
+                    break;
+                }
+
+                // InferredPeriods gives 1 when d / P < 1.75; d < fl(1.5 P) keeps the rounded quotient below 1.5 (1 + 2^-52).
+                if (inferCheck && !(dd < 1.5 * period))
+                {
+                    break;
+                }
+
+                if (dd > dropoutPeriods * period)
+                {
+                    break;
+                }
+
+                long i = gateIndex + 1;
+                long r = (tick - gateStart) - (i * p0);
+                if (r > ResidualLimit || r < -ResidualLimit)
+                {
+                    break;
+                }
+
+                if (i >= MaxGateIntervals || (timeMode ? (tick - gateStart) >= gateTicks : i >= gateIntervals))
+                {
+                    break;
+                }
+
+                period += (dd - period) * RunningPeriodWeight;
+                sr += r;
+                sir += i * r;
+                si += i;
+                sii += i * i;
+                lastR = r;
+                gateIndex = i;
+                gateN++;
+                lastTick = tick;
+                k++;
+            }
+
+            if (k > start)
+            {
+                _period = period;
+                _lastTick = lastTick;
+                _hasRef = true;
+                _refTick = lastTick;
+                _gateIndex = gateIndex;
+                _gateN = gateN;
+                _sr = sr;
+                _sir = sir;
+                _si = si;
+                _sii = sii;
+                _lastR = lastR;
+                _edgesTotal += k - start;
+            }
+
+            return k;
         }
 
         private void Accept(long tick)

@@ -242,6 +242,100 @@ namespace FreqReadout.Counting
         }
 
         /// <summary>
+        /// Unwraps a run of plain forward steps from an array, exactly as <see cref="TryUnwrap"/> one by one would, and
+        /// stops before the first value that is not one: a plain step is at most <paramref name="maxStep"/> ticks, and
+        /// for a narrow timer at most half a wrap (so the backward-step check, and with it
+        /// <see cref="ExpectedIntervalTicks"/>, cannot reject it); it is not a repeat (unless repeats are allowed), not
+        /// above 2^bits - 1, for 64 bits not below the previous value, and does not overflow the tick. Before the first
+        /// value nothing is taken. The caller hands the value it stopped at to <see cref="TryUnwrap"/>, with
+        /// ExpectedIntervalTicks as it would have been. Nothing is allocated; at most count passes.
+        /// </summary>
+        /// <param name="raw">Raw timer values.</param>
+        /// <param name="offset">Index of the first value in raw.</param>
+        /// <param name="count">Values available from offset (0 or more).</param>
+        /// <param name="maxStep">Largest step to take, ticks (a caller that acts on longer gaps stops there).</param>
+        /// <param name="ticks">Receives the unwrapped ticks of the values taken.</param>
+        /// <param name="ticksOffset">Index in ticks for the first value taken.</param>
+        /// <returns>Values taken (0 to count); ticks[ticksOffset ..] holds their ticks.</returns>
+        /// <exception cref="System.ArgumentNullException">raw or ticks is null.</exception>
+        /// <exception cref="System.ArgumentOutOfRangeException">offset, count or ticksOffset outside the arrays.</exception>
+        public int UnwrapRun(ulong[] raw, int offset, int count, ulong maxStep, long[] ticks, int ticksOffset)
+        {
+            if (raw == null)
+            {
+                throw new System.ArgumentNullException("raw");
+            }
+
+            if (ticks == null)
+            {
+                throw new System.ArgumentNullException("ticks");
+            }
+
+            if (offset < 0 || count < 0 || offset > raw.Length - count || ticksOffset < 0 || ticksOffset > ticks.Length - count)
+            {
+                throw new System.ArgumentOutOfRangeException("count");
+            }
+
+            if (!_started)
+            {
+                return 0;
+            }
+
+            ulong mask = _mask;
+            bool wide = Bits == 64;
+            ulong limit = maxStep;
+            if (!wide)
+            {
+                // back = 2^bits - delta is below delta only for delta above half a wrap.
+                ulong half = (mask >> 1) + 1UL;
+                if (limit > half)
+                {
+                    limit = half;
+                }
+            }
+
+            ulong least = _allowRepeats ? 0UL : 1UL;
+            ulong last = _lastRaw;
+            long lastTick = _lastTick;
+            long wraps = _wraps;
+            int k = 0;
+            while (k < count)
+            {
+                ulong value = raw[offset + k];
+                if (value > mask || (wide && value < last))
+                {
+                    break;
+                }
+
+                ulong delta = unchecked(value - last) & mask;
+                if (delta < least || delta > limit || delta > (ulong)(long.MaxValue - lastTick))
+                {
+                    break;
+                }
+
+                if (value < last)
+                {
+                    wraps++;
+                }
+
+                last = value;
+                lastTick += (long)delta;
+                ticks[ticksOffset + k] = lastTick;
+                k++;
+            }
+
+            if (k > 0)
+            {
+                _lastRaw = last;
+                _lastTick = lastTick;
+                _wraps = wraps;
+                _lastBackward = 0;
+            }
+
+            return k;
+        }
+
+        /// <summary>
         /// True when the timer wraps within fewer than <see cref="MinIntervalsPerWrap"/> expected
         /// intervals: WrapTicks &lt; 8 x <paramref name="expectedIntervalTicks"/>. Then a dropout of
         /// more than one wrap reads as a short gap and cannot be seen.

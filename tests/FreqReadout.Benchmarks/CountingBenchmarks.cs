@@ -15,6 +15,7 @@ public class CountingBenchmarks
     private const int Edges = 1_000_000;
     private ulong[] _raw = Array.Empty<ulong>();
     private long[] _counts = Array.Empty<long>();
+    private readonly long[] _run = new long[8192];
 
     [GlobalSetup]
     public void Setup()
@@ -44,6 +45,98 @@ public class CountingBenchmarks
             if (u.TryUnwrap(raw[k], out long tick) && c.AddEdge(tick, r))
             {
                 sum += r.FrequencyHz;
+            }
+        }
+
+        return sum;
+    }
+
+    /// <summary>
+    /// The host's per-edge steps before the batch entry points: TryUnwrap, AddEdge, then the running period handed
+    /// back to the unwrapper (the before of <see cref="HostPathBatched"/>, same data, same gates).
+    /// </summary>
+    [Benchmark(OperationsPerInvoke = Edges, Baseline = true)]
+    public double HostPathOneByOne()
+    {
+        var u = new TimerUnwrapper(32);
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.1, JitterTicks = 1.2 });
+        var r = new GateResult();
+        double sum = 0;
+        ulong[] raw = _raw;
+        for (int k = 0; k < raw.Length; k++)
+        {
+            if (u.TryUnwrap(raw[k], out long tick))
+            {
+                if (c.AddEdge(tick, r))
+                {
+                    sum += r.FrequencyHz;
+                }
+
+                if (c.HasRunningPeriod)
+                {
+                    u.ExpectedIntervalTicks = c.RunningPeriodTicks;
+                }
+            }
+        }
+
+        return sum;
+    }
+
+    /// <summary>
+    /// The same through the batch entry points, in batches of 8192 rows as the host reads them: UnwrapRun of the plain
+    /// timer steps, then AddEdges (a run of plain edges, or one other edge, per call), the single-value path for the rest.
+    /// </summary>
+    [Benchmark(OperationsPerInvoke = Edges)]
+    public double HostPathBatched()
+    {
+        var u = new TimerUnwrapper(32);
+        var c = new EdgeCounter(new CounterSettings { ClockHz = 80e6, GateSeconds = 0.1, JitterTicks = 1.2 });
+        var r = new GateResult();
+        double sum = 0;
+        ulong[] raw = _raw;
+        long[] run = _run;
+        ulong maxStep = 80_000_000; // 1 s, the default no-signal time at 80 MHz
+        for (int start = 0; start < raw.Length; start += run.Length)
+        {
+            int n = Math.Min(run.Length, raw.Length - start);
+            for (int k = start; k < start + n;)
+            {
+                int m = u.UnwrapRun(raw, k, start + n - k, maxStep, run, 0);
+                for (int j = 0; j < m;)
+                {
+                    j += c.AddEdges(run, j, m - j, r, out bool closed);
+                    if (closed)
+                    {
+                        sum += r.FrequencyHz;
+                    }
+
+                    if (c.HasRunningPeriod)
+                    {
+                        u.ExpectedIntervalTicks = c.RunningPeriodTicks;
+                    }
+                }
+
+                k += m;
+                if (m == 0 || k >= start + n)
+                {
+                    if (m == 0)
+                    {
+                        if (u.TryUnwrap(raw[k], out long tick))
+                        {
+                            if (c.AddEdge(tick, r))
+                            {
+                                sum += r.FrequencyHz;
+                            }
+
+                            if (c.HasRunningPeriod)
+                            {
+                                u.ExpectedIntervalTicks = c.RunningPeriodTicks;
+                            }
+                        }
+
+                        k++;
+                    }
+                }
             }
         }
 
