@@ -131,21 +131,10 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
             {
                 // The device's settings as calibrated: the readout these gates ran with, its tempco the fitted one.
                 readout.TempcoPpmPerK = fit.TempcoPpmPerK;
-                var values = new DeviceSettingsValues();
-                if (!values.TryTakeFrom(options, readout, out string? takeError) || !DeviceSettingsFormatter.TryFormat(values, out string text, out string formatError))
+                int written = SettingsFileOutput.Write(outputs, settingsFile, settings.SettingsOut!, options, readout, out DeviceSettingsValues values);
+                if (written != ExitCodes.Ok)
                 {
-                    return CommandOutput.Fail($"--settings-out {settings.SettingsOut}: these settings cannot be written for the device: {takeError ?? "format"}", CommandOutput.BadInput);
-                }
-
-                try
-                {
-                    byte[] bytes = Encoding.ASCII.GetBytes(text);
-                    settingsFile.Stream.Write(bytes, 0, bytes.Length);
-                    outputs.Commit();
-                }
-                catch (OutputFileException e)
-                {
-                    return CommandOutput.Fail(e.Message, e.ExitCode);
+                    return written;
                 }
 
                 CommandOutput.Diagnostic($"calibrate: wrote {settings.SettingsOut} (tempco_ppm_per_k = {values.TempcoPpmPerK.ToString("0.##", CultureInfo.InvariantCulture)}); send it with: freqreadout record --port DEV --send-settings {settings.SettingsOut}");

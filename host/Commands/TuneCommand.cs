@@ -123,21 +123,10 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
             CounterSettings counter = settings.BuildOptions(out _)!;
             ReadoutSettings readout = baseReadout.Clone();
             variation.Apply(settings.Pick!.Value, counter, readout);
-            var values = new DeviceSettingsValues();
-            if (!values.TryTakeFrom(counter, readout, out string? takeError) || !DeviceSettingsFormatter.TryFormat(values, out string text, out _))
+            int written = SettingsFileOutput.Write(outputs, settingsFile, settings.SettingsOut!, counter, readout, out _);
+            if (written != ExitCodes.Ok)
             {
-                return CommandOutput.Fail($"--settings-out {settings.SettingsOut}: these settings cannot be written for the device: {takeError ?? "format"}", CommandOutput.BadInput);
-            }
-
-            try
-            {
-                byte[] bytes = Encoding.ASCII.GetBytes(text);
-                settingsFile.Stream.Write(bytes, 0, bytes.Length);
-                outputs.Commit();
-            }
-            catch (OutputFileException e)
-            {
-                return CommandOutput.Fail(e.Message, e.ExitCode);
+                return written;
             }
 
             bool inFile = variation.Key is "threshold_sigma" or "gate_s";
