@@ -237,6 +237,8 @@ public static class Program
                     import.SetDescription("Turn recordings made with other tools into captures.");
                     import.AddCommand<ImportVcdCommand>("vcd")
                         .WithDescription("The rising edges of one signal of a logic analyser's value change dump, timed by the analyser's real sample period.");
+                    import.AddCommand<ImportWavCommand>("wav")
+                        .WithDescription("An audio recording of the beat note: the tone's rising zero crossings, band-passed, as a beat capture; lost stretches reported.");
                 });
             }
 

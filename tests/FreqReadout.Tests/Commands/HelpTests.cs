@@ -21,6 +21,7 @@ public class HelpTests
     [InlineData("tune")]
     [InlineData("import")]
     [InlineData("import vcd")]
+    [InlineData("import wav")]
     [InlineData("record")]
     [InlineData("bench")]
     [InlineData("bench quality")]
