@@ -8,6 +8,7 @@ using FreqReadout.Host.Captures;
 using FreqReadout.Host.Counting;
 using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
+using FreqReadout.Host.Reports;
 using FreqReadout.Readout;
 using Spectre.Console;
 using Spectre.Console.Cli;
@@ -34,6 +35,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         [Description("Also write the gate-by-gate readings as CSV, ending with error_hz (the gate's predicted error), scatter_hz (the measured scatter of consecutive gates) and inferred_edges; an existing file is replaced only when the replay succeeds, never the capture itself.")]
         [FilePath]
         public string? ReadingsFile { get; set; }
+
+        [CommandOption("--report <DIR>")]
+        [Description("Also write plots into DIR (created when missing), each as PNG and SVG: frequency with the tracked baseline, and shift with the threshold band, events by class and re-baselines. Files of the same names there are replaced.")]
+        [FilePath]
+        public string? ReportDir { get; set; }
 
         [CommandOption("--events <FILE>")]
         [Description("Also write the events as CSV (replaced only when the replay succeeds; never the capture or the --readings file).")]
@@ -129,6 +135,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             CaptureGateSource source = created;
 
             ReplayReport report;
+            ReadingTrace? trace = settings.ReportDir != null ? new ReadingTrace() : null;
             StreamWriter? readingsCsv = null;
             ReplaySession? session = null;
             CaptureFormatException? damaged = null;
@@ -139,6 +146,16 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 if (readingsCsv != null)
                 {
                     session.ReadingSink = (r, g) => readingsCsv.WriteLine(ReadingRow(r, g));
+                }
+
+                if (trace != null)
+                {
+                    Action<Reading, CaptureGate>? csv = session.ReadingSink;
+                    session.ReadingSink = (r, g) =>
+                    {
+                        csv?.Invoke(r, g);
+                        trace.Add(r);
+                    };
                 }
 
                 report = settings.WithIgnoredOptionWarnings(RunWithStatus(session, source, settings.Json, cancellationToken), reader.Metadata);
@@ -193,6 +210,20 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             catch (OutputFileException e)
             {
                 return CommandOutput.Fail(e.Message, e.ExitCode);
+            }
+
+            if (trace != null)
+            {
+                try
+                {
+                    Directory.CreateDirectory(settings.ReportDir!);
+                    IReadOnlyList<string> plots = ReplayPlots.Write(settings.ReportDir!, trace, report, readout.ThresholdSigma);
+                    CommandOutput.Diagnostic($"replay: wrote {plots.Count} plot files into {settings.ReportDir}");
+                }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                {
+                    return CommandOutput.Fail($"--report {settings.ReportDir}: {FileErrorText.Reason(settings.ReportDir!, e)}", CommandOutput.BadInput);
+                }
             }
 
             if (settings.Json)
