@@ -37,7 +37,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string? ReadingsFile { get; set; }
 
         [CommandOption("--report <DIR>")]
-        [Description("Also write plots into DIR (created when missing), each as PNG and SVG: frequency with the tracked baseline, and shift with the threshold band, events by class and re-baselines. Files of the same names there are replaced.")]
+        [Description("Also write plots into DIR (created when missing), each as PNG and SVG: frequency with the tracked baseline, and shift with the threshold band, events by class and re-baselines. Files of the same names there are replaced. Default: no plots.")]
         [FilePath]
         public string? ReportDir { get; set; }
 
