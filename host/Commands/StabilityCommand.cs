@@ -29,6 +29,11 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         [Description("The shortest coil pass over a target you expect, s, (0, 3600]]: the recommended gate is at most half of it. Default 1.")]
         public double? ShortestPassSeconds { get; set; }
 
+        [CommandOption("--report <DIR>")]
+        [Description("Also write the deviation plot (deviation.png and deviation.svg, log-log with the 68.3 % intervals) into DIR, created when missing. Default: no plot.")]
+        [FilePath]
+        public string? ReportDir { get; set; }
+
         [CommandOption("--json")]
         [Description("Exactly one JSON object on stdout (docs/json-output.md); diagnostics on stderr.")]
         public bool Json { get; set; }
@@ -70,6 +75,19 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         StabilityAnalysis analysis = StabilityAnalysis.Of(phase.X, phase.Tau0Seconds);
         StabilityPoint? lowest = analysis.Lowest();
         StabilityPoint? gate = analysis.Lowest(pass / 2);
+        if (settings.ReportDir != null)
+        {
+            try
+            {
+                Directory.CreateDirectory(settings.ReportDir);
+                IReadOnlyList<string> files = FreqReadout.Host.Reports.StabilityPlot.Write(settings.ReportDir, analysis);
+                CommandOutput.Diagnostic($"stability: wrote {files.Count} plot files into {settings.ReportDir}");
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                return CommandOutput.Fail($"--report {settings.ReportDir}: {FileErrorText.Reason(settings.ReportDir, e)}", CommandOutput.BadInput);
+            }
+        }
         if (settings.Json)
         {
             Console.Out.WriteLine(ToJson(phase, analysis, lowest, gate, pass));

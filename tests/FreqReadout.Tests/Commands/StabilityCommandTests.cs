@@ -40,4 +40,23 @@ public sealed class StabilityCommandTests : IClassFixture<SimulatedDemoCapture>
         Assert.Equal(2, exit);
         Assert.Contains("--shortest-pass-s must be in (0, 3600] seconds, got 0", error);
     }
+
+    [Fact]
+    public void The_report_plot_decodes_at_its_size_and_carries_its_labels()
+    {
+        string dir = Path.Combine(_sim.Dir, "stability-report");
+        var (exit, _, error) = ConsoleCapture.Run("stability", _sim.CapturePath, "--report", dir, "--json");
+        Assert.True(exit == 0, error);
+        using (var png = SkiaSharp.SKBitmap.Decode(Path.Combine(dir, "deviation.png")))
+        {
+            Assert.Equal((FreqReadout.Host.Reports.ReplayPlots.Width, FreqReadout.Host.Reports.ReplayPlots.Height), (png.Width, png.Height));
+        }
+
+        var svg = System.Xml.Linq.XDocument.Load(Path.Combine(dir, "deviation.svg"));
+        string text = string.Join("\n", svg.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value));
+        foreach (string expected in new[] { "Frequency stability of the counted signal", "averaging time tau (s)", "deviation (fractional)", "modified Allan deviation" })
+        {
+            Assert.Contains(expected, text);
+        }
+    }
 }
