@@ -354,18 +354,6 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         return System.Text.Encoding.UTF8.GetString(buffer.WrittenSpan);
     }
 
-    private static void Number(Utf8JsonWriter json, string name, double value)
-    {
-        if (double.IsFinite(value))
-        {
-            json.WriteNumber(name, value);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
-    }
-
     private static void WriteRow(Utf8JsonWriter json, QualityRow row)
     {
         json.WriteStartObject();
@@ -375,12 +363,12 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         json.WriteNumber("right", row.Right);
         json.WriteNumber("false_in_target_scenes", row.FalseInTargetScenes);
         json.WriteNumber("false_in_drift_only", row.FalseInDriftOnly);
-        Number(json, "drift_only_h", row.DriftOnlyHours);
-        Number(json, "false_per_h", row.FalsePerHour);
-        Number(json, "peak_error_median", row.PeakErrorMedian ?? double.NaN);
+        JsonValues.NumberOrNull(json, "drift_only_h", row.DriftOnlyHours);
+        JsonValues.NumberOrNull(json, "false_per_h", row.FalsePerHour);
+        JsonValues.NumberOrNull(json, "peak_error_median", row.PeakErrorMedian ?? double.NaN);
         json.WriteNumber("score", row.Score);
-        Number(json, "gate_noise_ppm_low", row.GateNoisePpmLow);
-        Number(json, "gate_noise_ppm_high", row.GateNoisePpmHigh);
+        JsonValues.NumberOrNull(json, "gate_noise_ppm_low", row.GateNoisePpmLow);
+        JsonValues.NumberOrNull(json, "gate_noise_ppm_high", row.GateNoisePpmHigh);
         json.WriteEndObject();
     }
 
@@ -402,10 +390,10 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         json.WriteNumber("gate_noise_ppm", b.GateNoisePpm);
         json.WriteString("drift", BenchNames.Of(b.Drift));
         json.WriteNumber("rate_ppm_per_s", b.RatePpmPerS);
-        Number(json, "tau_s", b.TauSeconds);
-        Number(json, "onset_s", b.OnsetSeconds);
-        Number(json, "mains_ppm", b.Scene.Mains?.DeviationPpm ?? double.NaN);
-        Number(json, "mains_hz", b.Scene.Mains?.FrequencyHz ?? double.NaN);
+        JsonValues.NumberOrNull(json, "tau_s", b.TauSeconds);
+        JsonValues.NumberOrNull(json, "onset_s", b.OnsetSeconds);
+        JsonValues.NumberOrNull(json, "mains_ppm", b.Scene.Mains?.DeviationPpm ?? double.NaN);
+        JsonValues.NumberOrNull(json, "mains_hz", b.Scene.Mains?.FrequencyHz ?? double.NaN);
         json.WriteNumber("elapsed_s", Math.Round(s.ElapsedSeconds, 3));
         json.WriteStartArray("ways");
         foreach (BenchWayOutcome w in s.Ways)

@@ -157,21 +157,21 @@ public sealed class CountCommand : Command<CountCommand.Settings>
             {
                 json.WriteStartObject();
                 json.WriteNumber("time_s", gate.EndSeconds);
-                WriteNullable(json, "frequency_hz", gate.HasFrequency ? gate.FrequencyHz : null);
+                JsonValues.NumberOrNull(json, "frequency_hz", gate.HasFrequency ? gate.FrequencyHz : null);
                 double? shift = gate.HasFrequency ? gate.FrequencyHz - reference!.Value : null;
-                WriteNullable(json, "shift_hz", shift);
-                WriteNullable(json, "search_shift_hz", shift is double sh ? SearchShiftHz(sh, source.Metadata) : null);
+                JsonValues.NumberOrNull(json, "shift_hz", shift);
+                JsonValues.NumberOrNull(json, "search_shift_hz", shift is double sh ? SearchShiftHz(sh, source.Metadata) : null);
                 json.WriteNumber("edges", gate.Edges);
-                WriteNullable(json, "error_hz", gate.HasFrequency ? gate.ErrorHz : null);
+                JsonValues.NumberOrNull(json, "error_hz", gate.HasFrequency ? gate.ErrorHz : null);
                 json.WriteString("estimator", EstimatorName(gate.Estimator));
                 json.WriteString("state", StateName(gate.State));
                 json.WriteNumber("start_s", gate.StartSeconds);
                 json.WriteNumber("glitches", gate.Glitches);
                 json.WriteNumber("inferred_edges", gate.InferredEdges);
-                WriteNullable(json, "scatter_hz", item.ScatterHz);
+                JsonValues.NumberOrNull(json, "scatter_hz", item.ScatterHz);
                 if (hasTemp)
                 {
-                    WriteNullable(json, "temp_c", item.TemperatureC);
+                    JsonValues.NumberOrNull(json, "temp_c", item.TemperatureC);
                 }
 
                 if (hasMark)
@@ -254,18 +254,6 @@ public sealed class CountCommand : Command<CountCommand.Settings>
     /// <summary>A text field, quoted (RFC 4180) only when it holds a comma, a quote or a line break.</summary>
     internal static string CsvText(string text) =>
         text.IndexOfAny(new[] { ',', '"', '\n', '\r' }) < 0 ? text : "\"" + text.Replace("\"", "\"\"") + "\"";
-
-    private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
-    {
-        if (value is double v && double.IsFinite(v))
-        {
-            json.WriteNumber(name, v);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
-    }
 
     private static long WriteTable(CaptureGateSource source, CaptureFileFormat format, CancellationToken cancellationToken)
     {

@@ -136,7 +136,7 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
                 if (!session.TrySendSettings(settingsText, ConfirmTimeout, cancellationToken))
                 {
                     Console.Error.WriteLine(session.HasStatus
-                        ? $"error: the device did not confirm the settings within {ConfirmTimeout.TotalSeconds:0} s: its status reports settings check 0x{session.LastStatus.SettingsCheck:X8}, the file's is 0x{FrameCheck(settingsText):X8} (it may have refused them; its settings frame shows what is in force)"
+                        ? $"error: the device did not confirm the settings within {ConfirmTimeout.TotalSeconds:0} s: its status reports settings check 0x{session.LastStatus.SettingsCheck:X8}, the file's is 0x{session.SentSettingsCheck:X8} (it may have refused them; its settings frame shows what is in force)"
                         : $"error: no status frame from the device within {ConfirmTimeout.TotalSeconds:0} s ({session.BytesReceived.ToString(CultureInfo.InvariantCulture)} bytes received): check the port, the baud rate and that the firmware streams");
                     recorder?.Close("settings not confirmed", session.Decoder);
                     return ExitCodes.DataError;
@@ -174,24 +174,19 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
             $"record: {recorder.RowsWritten.ToString(CultureInfo.InvariantCulture)} rows in {recorder.Captures.Count} capture(s); " +
             $"link: {d.Frames} frames, {d.CrcErrors} CRC errors, {d.Malformed} malformed, {d.SequenceGaps} missing" +
             (recorder.RowsBeforeHeader > 0 ? $"; {recorder.RowsBeforeHeader} rows came before any capture header and are not recorded" : string.Empty));
+        // The device's link setting, read from the settings text it sent with the same parser it uses.
+        var inForce = new DeviceSettingsValues();
+        LinkMode? link = recorder.LastSettingsText is string sent && DeviceSettingsParser.TryParse(sent, inForce, null) ? inForce.LinkMode : null;
         if (recorder.Captures.Count == 0)
         {
-            bool linkOff = recorder.LastSettingsText is string t && t.Replace(" ", string.Empty, StringComparison.Ordinal).Contains("\nlink=off", StringComparison.Ordinal);
-            Console.Error.WriteLine(linkOff
+            Console.Error.WriteLine(link == LinkMode.Off
                 ? "record: the device's link setting is off, so it streams nothing: send settings with link = capture (record --port DEV --send-settings FILE)"
                 : $"record: no capture header arrived ({session.BytesReceived.ToString(CultureInfo.InvariantCulture)} bytes received), so nothing was written: check the port, the baud rate and that the firmware streams");
         }
-        else if (recorder.RowsWritten == 0 && recorder.LastSettingsText is string s && s.Replace(" ", string.Empty, StringComparison.Ordinal).Contains("\nlink=readings", StringComparison.Ordinal))
+        else if (recorder.RowsWritten == 0 && link == LinkMode.Readings)
         {
             Console.Error.WriteLine("record: the device's link setting is readings: it sends readings and events but not the reads a capture holds; send settings with link = capture");
         }
-    }
-
-    private static uint FrameCheck(string text)
-    {
-        var payload = new LinkPayloadWriter();
-        payload.WriteAscii(text);
-        return FrameCrc.Compute(payload.Buffer, 0, payload.Length);
     }
 
     private static bool TryReadSettings(string path, out string? text, out int code)

@@ -291,10 +291,10 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             json.WriteNumber("duration_s", report.DurationSeconds);
             json.WriteString("signal", report.Signal == SignalKind.Beat ? "beat" : "search");
             json.WriteEndObject();
-            Nullable(json, "baseline_hz", report.BaselineHz);
-            Nullable(json, "noise_hz", report.NoiseHz);
-            Nullable(json, "noise_ppm", report.NoisePpm);
-            Nullable(json, "drift_hz_per_min", report.DriftHzPerMinute);
+            JsonValues.NumberOrNull(json, "baseline_hz", report.BaselineHz);
+            JsonValues.NumberOrNull(json, "noise_hz", report.NoiseHz);
+            JsonValues.NumberOrNull(json, "noise_ppm", report.NoisePpm);
+            JsonValues.NumberOrNull(json, "drift_hz_per_min", report.DriftHzPerMinute);
             json.WriteNumber("gates", report.Gates);
             json.WriteStartArray("rebaselines");
             foreach (ReplayRebaseline r in report.Rebaselines)
@@ -302,9 +302,9 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 json.WriteStartObject();
                 json.WriteNumber("time_s", r.TimeSeconds);
                 json.WriteString("reason", r.ReasonName);
-                Nullable(json, "shift_hz", r.ShiftHz);
-                Nullable(json, "shift_ppm", r.ShiftPpm);
-                Nullable(json, "completed_s", r.CompletedSeconds);
+                JsonValues.NumberOrNull(json, "shift_hz", r.ShiftHz);
+                JsonValues.NumberOrNull(json, "shift_ppm", r.ShiftPpm);
+                JsonValues.NumberOrNull(json, "completed_s", r.CompletedSeconds);
                 json.WriteEndObject();
             }
 
@@ -317,7 +317,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
                 json.WriteNumber("end_s", e.Event.EndSeconds);
                 json.WriteNumber("peak_s", e.Event.PeakSeconds);
                 json.WriteNumber("peak_shift_hz", e.Event.PeakShiftHz);
-                Nullable(json, "peak_shift_ppm", e.Event.HasPpm ? e.Event.PeakShiftPpm : null);
+                JsonValues.NumberOrNull(json, "peak_shift_ppm", e.Event.HasPpm ? e.Event.PeakShiftPpm : null);
                 json.WriteString("class", e.ClassName);
                 json.WriteBoolean("absorbed", e.Event.End == EventEnd.AutoRebaseline);
                 if (e.StartUtc is DateTimeOffset utc)
@@ -340,18 +340,6 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         }
 
         return Encoding.UTF8.GetString(buffer.WrittenSpan);
-    }
-
-    private static void Nullable(Utf8JsonWriter json, string name, double? value)
-    {
-        if (value is double v && double.IsFinite(v))
-        {
-            json.WriteNumber(name, v);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 
     private const string ReadingsHeader = "time_s,state,frequency_hz,baseline_hz,shift_hz,shift_ppm,shift_sigma,noise_hz,drift_hz_per_s,temp_correction_hz,temp_c,target,hold,below_beat_floor,class,marks,error_hz,scatter_hz,inferred_edges";

@@ -131,37 +131,25 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
                 w.WriteStartObject();
                 w.WriteNumber("tau_s", r.TauSeconds);
                 w.WriteNumber("m", r.M);
-                Number(w, "adev", r.Adev);
-                Number(w, "adev_low", r.AdevLow);
-                Number(w, "adev_high", r.AdevHigh);
-                Number(w, "adev_hz", r.Adev * phase.CountedHz);
-                Number(w, "mdev", r.Mdev);
-                Number(w, "edf", r.Edf);
+                JsonValues.NumberOrNull(w, "adev", r.Adev);
+                JsonValues.NumberOrNull(w, "adev_low", r.AdevLow);
+                JsonValues.NumberOrNull(w, "adev_high", r.AdevHigh);
+                JsonValues.NumberOrNull(w, "adev_hz", r.Adev * phase.CountedHz);
+                JsonValues.NumberOrNull(w, "mdev", r.Mdev);
+                JsonValues.NumberOrNull(w, "edf", r.Edf);
                 w.WriteString("noise", NoiseWord(r.Noise));
                 w.WriteEndObject();
             }
 
             w.WriteEndArray();
-            Number(w, "lowest_tau_s", lowest?.TauSeconds ?? double.NaN);
-            Number(w, "lowest_adev", lowest?.Adev ?? double.NaN);
+            JsonValues.NumberOrNull(w, "lowest_tau_s", lowest?.TauSeconds ?? double.NaN);
+            JsonValues.NumberOrNull(w, "lowest_adev", lowest?.Adev ?? double.NaN);
             w.WriteNumber("shortest_pass_s", pass);
-            Number(w, "recommended_gate_s", gate?.TauSeconds ?? double.NaN);
+            JsonValues.NumberOrNull(w, "recommended_gate_s", gate?.TauSeconds ?? double.NaN);
             w.WriteEndObject();
         }
 
         return System.Text.Encoding.UTF8.GetString(stream.ToArray());
-    }
-
-    private static void Number(Utf8JsonWriter w, string key, double value)
-    {
-        if (double.IsFinite(value))
-        {
-            w.WriteNumber(key, value);
-        }
-        else
-        {
-            w.WriteNull(key);
-        }
     }
 
     /// <summary>The word for a noise type, as the table and the JSON show it.</summary>

@@ -247,9 +247,9 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
                 w.WriteNumber("unclear", r.Unclear);
                 w.WriteNumber("rebaselines", r.Rebaselines);
                 w.WriteNumber("warnings", r.Warnings);
-                Nullable(w, "passes_found", r.PassesFound);
-                Nullable(w, "class_right", r.ClassRight);
-                Nullable(w, "false_events", r.FalseEvents);
+                JsonValues.NumberOrNull(w, "passes_found", r.PassesFound);
+                JsonValues.NumberOrNull(w, "class_right", r.ClassRight);
+                JsonValues.NumberOrNull(w, "false_events", r.FalseEvents);
                 w.WriteEndObject();
             }
 
@@ -258,18 +258,6 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
         }
 
         return Encoding.UTF8.GetString(stream.ToArray());
-    }
-
-    private static void Nullable(Utf8JsonWriter w, string key, int? value)
-    {
-        if (value is int v)
-        {
-            w.WriteNumber(key, v);
-        }
-        else
-        {
-            w.WriteNull(key);
-        }
     }
 
     private static string N(long v) => v.ToString(CultureInfo.InvariantCulture);

@@ -52,6 +52,9 @@ public sealed class RecordSession
     /// <summary>True once any status frame arrived; <see cref="LastStatus"/> then holds the latest.</summary>
     public bool HasStatus { get; private set; }
 
+    /// <summary>The check of the last settings text sent (what the device's status frame should report once it took them).</summary>
+    public uint SentSettingsCheck { get; private set; }
+
     /// <summary>The latest status frame.</summary>
     public StatusPayload LastStatus => _status;
 
@@ -94,6 +97,7 @@ public sealed class RecordSession
         }
 
         uint expected = FrameCrc.Compute(_payload.Buffer, 0, _payload.Length);
+        SentSettingsCheck = expected;
         Send(LinkFrameType.Settings);
         long start = _time.GetTimestamp();
         long lastAsk = long.MinValue;
