@@ -211,34 +211,13 @@ public sealed class TextCaptureReader : ICaptureBatchReader
                 while (!batch.IsFull && end - p >= FastRowMaxBytes)
                 {
                     // A row is 1-19 digits then "\n" or "\r\n": no overflow, no other character, no blank line.
-                    int i = p;
-                    ulong value = 0;
-                    uint digit;
-                    while ((digit = (uint)(b[i] - '0')) <= 9 && i - p < 19)
-                    {
-                        value = (value * 10) + digit;
-                        i++;
-                    }
-
-                    int next;
-                    if (b[i] == '\n')
-                    {
-                        next = i + 1;
-                    }
-                    else if (b[i] == '\r' && b[i + 1] == '\n')
-                    {
-                        next = i + 2;
-                    }
-                    else
+                    int taken = DigitRows.TryRead(b, p, out ulong value);
+                    if (taken == 0 || value > limit)
                     {
                         break;
                     }
 
-                    if (i == p || value > limit)
-                    {
-                        break;
-                    }
-
+                    int next = p + taken;
                     line++;
                     if (checkOrder)
                     {
@@ -280,7 +259,7 @@ public sealed class TextCaptureReader : ICaptureBatchReader
     }
 
     /// <summary>Bytes the fast path wants buffered before it reads a row (the longest fast row, 19 digits and CRLF, plus one).</summary>
-    private const int FastRowMaxBytes = 22;
+    private const int FastRowMaxBytes = DigitRows.ReadableBytes;
 
     private void StartRows()
     {

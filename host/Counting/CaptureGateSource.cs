@@ -465,9 +465,9 @@ public sealed class CaptureGateSource
         }
 
         reused ??= new CaptureRowBatch();
-        if (_reader is TextCaptureReader && BatchReadAhead.Pays)
+        if (_reader is TextCaptureReader or BinaryCaptureReader && BatchReadAhead.Pays)
         {
-            // Text: parse the next batches on a second thread while this one counts.
+            // Parse (text) or decode (binary) the next batches on a second thread while this one counts.
             using var ahead = new BatchReadAhead(_batches!, reused);
             CaptureRowBatch? next;
             while ((next = ahead.Next()) != null)

@@ -99,6 +99,35 @@ public class CaptureReadingBenchmarks
         return SumBatches(reader);
     }
 
+    /// <summary>Only the digits-only rows' parse (<see cref="DigitRows.TryRead"/>), over the rows after the header.</summary>
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong DigitRowsParsed() => SumDigitRows(vector: true);
+
+    /// <summary>The same rows parsed one digit at a time (<see cref="DigitRows.TryReadByDigit"/>), the loop it replaced.</summary>
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong DigitRowsParsedByDigit() => SumDigitRows(vector: false);
+
+    private ulong SumDigitRows(bool vector)
+    {
+        byte[] text = _text;
+        int p = Encoding.ASCII.GetBytes("# freqreadout capture 1\n# clock_hz = 80000000\n# timer_bits = 32\n# search_hz = 100000\ntick\n").Length;
+        int last = text.Length - DigitRows.ReadableBytes;
+        ulong sum = 0;
+        while (p <= last)
+        {
+            int taken = vector ? DigitRows.TryRead(text, p, out ulong value) : DigitRows.TryReadByDigit(text, p, out value);
+            if (taken == 0)
+            {
+                break;
+            }
+
+            sum += value;
+            p += taken;
+        }
+
+        return sum;
+    }
+
     private static ulong SumBatches(ICaptureBatchReader reader)
     {
         var batch = new CaptureRowBatch();
