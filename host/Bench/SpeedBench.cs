@@ -179,4 +179,45 @@ public sealed class SpeedBench
             $"\n{size.Edges:N0}-edge text capture ({textBytes / 1048576.0:0.0} MiB); whole processes, wall clock, warm page cache, {size.Runs} interleaved runs per case after one untimed round, medians; x raw read: the case's median over the raw read's median in the same run; peak MiB: the process's peak working set as it reported it; {Environment.ProcessorCount} processors, {System.Runtime.InteropServices.RuntimeInformation.OSDescription}, .NET {Environment.Version}.\n"));
         return text.ToString();
     }
+
+    /// <summary>
+    /// The same results as one JSON object (docs/json-output.md, keys: bench speed): the size, the machine, and per case
+    /// its median, least and most seconds, ratio to the raw read's median, edges a second and peak memory.
+    /// </summary>
+    public static string Json(IReadOnlyList<SpeedCaseResult> results, SpeedBenchSize size, long textBytes)
+    {
+        double raw = results.First(r => r.Case.Arguments[0] == RawRead.Argument).MedianSeconds;
+        using var stream = new MemoryStream();
+        using (var w = new System.Text.Json.Utf8JsonWriter(stream, Commands.ReplayCommand.JsonOptions))
+        {
+            w.WriteStartObject();
+            w.WriteNumber("edges", size.Edges);
+            w.WriteNumber("text_bytes", textBytes);
+            w.WriteNumber("runs", size.Runs);
+            w.WriteNumber("processors", Environment.ProcessorCount);
+            w.WriteString("os", System.Runtime.InteropServices.RuntimeInformation.OSDescription);
+            w.WriteString("runtime", Environment.Version.ToString());
+            w.WriteStartArray("cases");
+            foreach (SpeedCaseResult r in results)
+            {
+                double median = r.MedianSeconds;
+                w.WriteStartObject();
+                w.WriteString("name", r.Case.Name);
+                w.WriteString("what", r.Case.What);
+                w.WriteString("arguments", string.Join(' ', r.Case.Arguments));
+                Commands.JsonValues.NumberOrNull(w, "median_s", median);
+                Commands.JsonValues.NumberOrNull(w, "min_s", r.Seconds.Count > 0 ? r.Seconds.Min() : double.NaN);
+                Commands.JsonValues.NumberOrNull(w, "max_s", r.Seconds.Count > 0 ? r.Seconds.Max() : double.NaN);
+                Commands.JsonValues.NumberOrNull(w, "x_raw_read", median / raw);
+                Commands.JsonValues.NumberOrNull(w, "edges_per_s", r.Case.Edges == 0 ? double.NaN : r.Case.Edges / median);
+                Commands.JsonValues.NumberOrNull(w, "peak_mib", r.PeakMiB > 0 ? r.PeakMiB : double.NaN);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+
+        return Encoding.UTF8.GetString(stream.ToArray());
+    }
 }

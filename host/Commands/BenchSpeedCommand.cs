@@ -29,6 +29,10 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
         [Description("Build the captures in DIR and keep them (default: a new temporary folder, removed at the end).")]
         [FilePath]
         public string? Keep { get; set; }
+
+        [CommandOption("--json")]
+        [Description("Print the results as one JSON object (keys in docs/json-output.md) instead of the Markdown table.")]
+        public bool Json { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -67,7 +71,7 @@ public sealed class BenchSpeedCommand : Command<BenchSpeedCommand.Settings>
             var cases = bench.Prepare(cancellationToken);
             var results = bench.Run(cases, cancellationToken);
             long textBytes = new FileInfo(Path.Combine(directory, "big.csv")).Length;
-            Console.Out.Write(SpeedBench.Markdown(results, size, textBytes));
+            Console.Out.Write(settings.Json ? SpeedBench.Json(results, size, textBytes) + "\n" : SpeedBench.Markdown(results, size, textBytes));
             return ExitCodes.Ok;
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)

@@ -30,6 +30,10 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
         [Description("The capture to write (text; an existing file is replaced only when the import succeeds).")]
         [FilePath]
         public string? Out { get; set; }
+
+        [CommandOption("--json")]
+        [Description("Also print what was imported as one JSON object on standard output (keys in docs/json-output.md).")]
+        public bool Json { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -87,6 +91,11 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
             }
 
             outputs.Commit();
+            if (settings.Json)
+            {
+                Console.Out.WriteLine(ToJson(settings, reader, edges, sameStamp));
+            }
+
             CommandOutput.Diagnostic($"import: wrote {settings.Out}: {edges} rising edges of {reader.Variable.FullName}, clock {reader.ClockHz.ToString("G9", CultureInfo.InvariantCulture)} Hz (the analyser's sample period: frequencies are only as good as its clock)"
                 + (sameStamp > 0 ? $"; {sameStamp} edges fell on the time stamp of the one before and were dropped" : string.Empty));
             return ExitCodes.Ok;
@@ -103,5 +112,34 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
         {
             return CommandOutput.Fail($"{settings.Input}: {FileErrorText.Reason(settings.Input, e)}", CommandOutput.BadInput);
         }
+    }
+
+    /// <summary>The summary of <c>--json</c> (docs/json-output.md, keys: import vcd).</summary>
+    private static string ToJson(Settings settings, VcdEdgeReader reader, long edges, long sameStamp)
+    {
+        using var stream = new MemoryStream();
+        using (var w = new System.Text.Json.Utf8JsonWriter(stream, ReplayCommand.JsonOptions))
+        {
+            w.WriteStartObject();
+            w.WriteString("input", settings.Input);
+            w.WriteString("out", settings.Out);
+            w.WriteString("signal", reader.Variable.FullName);
+            w.WriteNumber("width", reader.Variable.Width);
+            if (reader.Variable.Width > 1)
+            {
+                w.WriteNumber("bit", reader.Bit);
+            }
+            else
+            {
+                w.WriteNull("bit");
+            }
+
+            w.WriteNumber("clock_hz", reader.ClockHz);
+            w.WriteNumber("edges", edges);
+            w.WriteNumber("same_stamp_dropped", sameStamp);
+            w.WriteEndObject();
+        }
+
+        return System.Text.Encoding.UTF8.GetString(stream.ToArray());
     }
 }

@@ -43,6 +43,10 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
         [Description("The capture to write (text; an existing file is replaced only when the import succeeds).")]
         [FilePath]
         public string? Out { get; set; }
+
+        [CommandOption("--json")]
+        [Description("Also print what was imported as one JSON object on standard output (keys in docs/json-output.md).")]
+        public bool Json { get; set; }
     }
 
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
@@ -86,6 +90,7 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
                 SearchHz = settings.SearchHz,
                 Note = $"imported from {Path.GetFileName(settings.Input)} ({audio.SampleRateHz.ToString(CultureInfo.InvariantCulture)} Hz, {audio.BitsPerSample}-bit{(audio.IsFloat ? " float" : string.Empty)}, channel {settings.Channel ?? 0}): absolute frequency only as good as the recorder's clock",
             };
+            long written = 0;
             using (ICaptureWriter writer = CaptureFile.Create(output.Stream, metadata, CaptureFileFormat.Text))
             {
                 ulong last = 0;
@@ -101,18 +106,24 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
                     writer.WriteRow(new CaptureRow(0, tick, 0, null, null));
                     last = tick;
                     any = true;
+                    written++;
                 }
 
                 writer.Complete(Array.Empty<KeyValuePair<string, string>>());
             }
 
             outputs.Commit();
-            foreach (string stretch in tone.LostStretches)
+            foreach (LostToneStretch stretch in tone.LostStretches)
             {
                 CommandOutput.Diagnostic($"warning: {settings.Input}: tone lost at {stretch} (no edges taken there)");
             }
 
-            CommandOutput.Diagnostic($"import: wrote {settings.Out}: {tone.EdgeSeconds.Count} rising edges of a tone between {tone.LowestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} and {tone.HighestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} Hz; the recorder's clock (often tens of ppm off) limits the absolute frequency, shifts are not affected");
+            if (settings.Json)
+            {
+                Console.Out.WriteLine(ToJson(settings, audio, tone, written));
+            }
+
+            CommandOutput.Diagnostic($"import: wrote {settings.Out}: {written} rising edges of a tone between {tone.LowestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} and {tone.HighestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} Hz; the recorder's clock (often tens of ppm off) limits the absolute frequency, shifts are not affected");
             return ExitCodes.Ok;
         }
         catch (WavFormatException e)
@@ -127,5 +138,39 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
         {
             return CommandOutput.Fail($"{settings.Input}: {FileErrorText.Reason(settings.Input, e)}", CommandOutput.BadInput);
         }
+    }
+
+    /// <summary>The summary of <c>--json</c> (docs/json-output.md, keys: import wav).</summary>
+    private static string ToJson(Settings settings, WavAudio audio, ToneEdges tone, long written)
+    {
+        using var stream = new MemoryStream();
+        using (var w = new System.Text.Json.Utf8JsonWriter(stream, ReplayCommand.JsonOptions))
+        {
+            w.WriteStartObject();
+            w.WriteString("input", settings.Input);
+            w.WriteString("out", settings.Out);
+            w.WriteNumber("sample_rate_hz", audio.SampleRateHz);
+            w.WriteNumber("bits_per_sample", audio.BitsPerSample);
+            w.WriteBoolean("float", audio.IsFloat);
+            w.WriteNumber("channel", settings.Channel ?? 0);
+            w.WriteNumber("clock_hz", ClockHz);
+            w.WriteNumber("edges", written);
+            w.WriteNumber("lowest_tone_hz", tone.LowestToneHz);
+            w.WriteNumber("highest_tone_hz", tone.HighestToneHz);
+            w.WriteStartArray("lost");
+            foreach (LostToneStretch stretch in tone.LostStretches)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("start_s", stretch.StartSeconds);
+                w.WriteNumber("end_s", stretch.EndSeconds);
+                w.WriteString("reason", stretch.Reason);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+
+        return System.Text.Encoding.UTF8.GetString(stream.ToArray());
     }
 }

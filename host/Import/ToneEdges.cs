@@ -24,7 +24,7 @@ public sealed class ToneEdges
     /// <summary>Samples in one analysis window.</summary>
     public const int WindowSamples = 4096;
 
-    private ToneEdges(IReadOnlyList<double> edgeSeconds, double lowHz, double highHz, IReadOnlyList<string> lost)
+    private ToneEdges(IReadOnlyList<double> edgeSeconds, double lowHz, double highHz, IReadOnlyList<LostToneStretch> lost)
     {
         EdgeSeconds = edgeSeconds;
         LowestToneHz = lowHz;
@@ -41,8 +41,8 @@ public sealed class ToneEdges
     /// <summary>The highest, Hz.</summary>
     public double HighestToneHz { get; }
 
-    /// <summary>Stretches where the tone was lost, as "12.3-13.1 s: silence".</summary>
-    public IReadOnlyList<string> LostStretches { get; }
+    /// <summary>Stretches where the tone was lost, in time order.</summary>
+    public IReadOnlyList<LostToneStretch> LostStretches { get; }
 
     /// <summary>Finds the tone's edges in <paramref name="samples"/> taken at <paramref name="sampleRateHz"/>.</summary>
     /// <exception cref="WavFormatException">No window holds a clear tone.</exception>
@@ -145,7 +145,7 @@ public sealed class ToneEdges
             }
         }
 
-        var lost = new List<string>();
+        var lost = new List<LostToneStretch>();
         for (int w = 0; w < windows; w++)
         {
             if (why[w] == null)
@@ -159,7 +159,7 @@ public sealed class ToneEdges
                 end++;
             }
 
-            lost.Add($"{w * WindowSamples / sampleRateHz:0.###}-{(end + 1) * WindowSamples / sampleRateHz:0.###} s: {why[w]}");
+            lost.Add(new LostToneStretch(w * WindowSamples / sampleRateHz, (end + 1) * WindowSamples / sampleRateHz, why[w]!));
             w = end;
         }
 

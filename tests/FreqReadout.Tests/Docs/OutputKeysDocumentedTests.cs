@@ -1,3 +1,4 @@
+using FreqReadout.Host.Bench;
 using FreqReadout.Tests.Commands;
 using static FreqReadout.Tests.Captures.CaptureTestFiles;
 
@@ -83,6 +84,65 @@ public sealed class OutputKeysDocumentedTests : IClassFixture<SimulatedDemoCaptu
         var printed = new SortedSet<string>(StringComparer.Ordinal);
         DocTables.AddDocument(Run("stability", _sim.CapturePath, "--json"), printed);
         AssertSame("stability --json", DocTables.Keys("json-output.md", "keys: stability"), printed);
+    }
+
+    [Fact]
+    public void Import_json_keys_are_the_documented_ones()
+    {
+        string dir = Directory.CreateTempSubdirectory("freqreadout-import-keys-").FullName;
+        try
+        {
+            // A one-bit signal (bit null) and a bit of a vector, from the hand-written example dump of the import tests.
+            string vcd = Path.Combine(AppContext.BaseDirectory, "Data", "two-clocks.vcd");
+            var vcdKeys = new SortedSet<string>(StringComparer.Ordinal);
+            DocTables.AddDocument(Run("import", "vcd", vcd, "--signal", "top.probe.clk", "--out", Path.Combine(dir, "a.csv"), "--json"), vcdKeys);
+            DocTables.AddDocument(Run("import", "vcd", vcd, "--signal", "data[0]", "--out", Path.Combine(dir, "b.csv"), "--json"), vcdKeys);
+            AssertSame("import vcd --json", DocTables.Keys("json-output.md", "keys: import vcd"), vcdKeys);
+
+            // An invented 700 Hz tone with a second of silence in it, so that a lost stretch is listed.
+            const int rate = 48000;
+            double[] tone = Import.WavBuilder.Tone(700, 4, rate, 0.01, 5);
+            for (int i = 2 * rate; i < 3 * rate; i++)
+            {
+                tone[i] *= 0.0005;
+            }
+
+            string wav = Path.Combine(dir, "beat.wav");
+            File.WriteAllBytes(wav, Import.WavBuilder.Build(new[] { tone }, rate, 16, false, false, false));
+            string json = Run("import", "wav", wav, "--beat-side", "above", "--out", Path.Combine(dir, "c.csv"), "--json");
+            var wavKeys = new SortedSet<string>(StringComparer.Ordinal);
+            DocTables.AddDocument(json, wavKeys);
+            AssertSame("import wav --json", DocTables.Keys("json-output.md", "keys: import wav"), wavKeys);
+            using var doc = System.Text.Json.JsonDocument.Parse(json);
+            Assert.Equal("silence", doc.RootElement.GetProperty("lost")[0].GetProperty("reason").GetString());
+        }
+        finally
+        {
+            Directory.Delete(dir, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Bench_speed_json_keys_are_the_documented_ones()
+    {
+        // The JSON writer on results made by hand (the bench itself runs in BenchSpeedCommandTests): a raw read with
+        // no peak memory, a replay with one, and a case with no edges and no run.
+        var raw = new SpeedCaseResult(new SpeedCase("raw read", "FileStream", new[] { RawRead.Argument, "big.csv" }, 1000));
+        raw.Seconds.AddRange(new[] { 0.05, 0.04, 0.06 });
+        var replay = new SpeedCaseResult(new SpeedCase("text replay", "replay big.csv --json", new[] { "replay", "big.csv", "--json" }, 1000));
+        replay.Seconds.AddRange(new[] { 0.2, 0.25, 0.3 });
+        replay.PeakWorkingSetBytes.Add(40 << 20);
+        var none = new SpeedCaseResult(new SpeedCase("nothing", "no edges", new[] { "--version" }, 0));
+        string json = SpeedBench.Json(new[] { raw, replay, none }, SpeedBenchSize.Quick(), 12345);
+        var printed = new SortedSet<string>(StringComparer.Ordinal);
+        DocTables.AddDocument(json, printed);
+        AssertSame("bench speed --json", DocTables.Keys("json-output.md", "keys: bench speed"), printed);
+        using var doc = System.Text.Json.JsonDocument.Parse(json);
+        var cases = doc.RootElement.GetProperty("cases");
+        Assert.Equal(5.0, cases[1].GetProperty("x_raw_read").GetDouble(), 12); // 0.25 / 0.05
+        Assert.Equal(40.0, cases[1].GetProperty("peak_mib").GetDouble(), 12);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, cases[0].GetProperty("peak_mib").ValueKind);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, cases[2].GetProperty("median_s").ValueKind);
     }
 
     [Fact]
