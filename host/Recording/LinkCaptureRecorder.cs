@@ -252,6 +252,7 @@ public sealed class LinkCaptureRecorder : IDisposable
     }
 
     /// <summary>Opens the capture the last header announced when rows of its kind arrive; true when a capture of that kind is open.</summary>
+    [System.Diagnostics.CodeAnalysis.MemberNotNullWhen(true, nameof(_open))]
     private bool TryOpenFor(bool snapshots, LinkFrameDecoder decoder)
     {
         if (_open == null && _haveHeader && _known.Snapshots == snapshots)

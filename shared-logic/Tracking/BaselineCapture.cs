@@ -5,7 +5,7 @@ namespace FreqReadout.Tracking
     /// <summary>
     /// Collects the gates of a baseline capture into fixed arrays (allocated once) and estimates level,
     /// slope and robust noise with outlier rejection. Adding a gate is O(1); the estimate, once per
-    /// capture, is O(n) expected (in-place selections, see <see cref="RobustStatistics.SelectInPlace"/>),
+    /// capture, is O(n) expected (in-place selections, see <see cref="RobustStatistics.SelectInPlace(double[], int, int)"/>),
     /// never O(n^2).
     /// <para>
     /// Method: (1) resistant line (Tukey's three-group line): b = (median x_R - median x_L) /
