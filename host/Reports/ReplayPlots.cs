@@ -8,7 +8,7 @@ namespace FreqReadout.Host.Reports;
 /// The plots of <c>replay --report DIR</c>, each as PNG and SVG of <see cref="Width"/> x <see cref="Height"/> pixels
 /// (ScottPlot): frequency.png/svg (counted frequency and the tracked baseline against time) and shift.png/svg (the
 /// search shift against time with the detection threshold band of plus and minus threshold x noise, events marked by
-/// class and re-baselines as thin vertical lines). Colours and marker shapes are the project's own and stay apart in
+/// class and re-baselines as thin vertical lines), and noise.png/svg (<see cref="NoiseHistogramPlot"/>). Colours and marker shapes are the project's own and stay apart in
 /// grey print: a dark line, a mid-tone band, light lines, a filled square for ferrous, an open circle for non-ferrous,
 /// a cross for unclear. Lines are solid: SkiaSharp's SVG canvas cannot write dash patterns (it says so on stderr).
 /// </summary>
@@ -86,10 +86,12 @@ public static class ReplayPlots
         shift.YLabel("shift (Hz)");
         shift.ShowLegend();
         written.AddRange(Save(shift, folder, "shift"));
+        written.AddRange(NoiseHistogramPlot.Write(folder, trace));
         return written;
     }
 
-    private static IEnumerable<string> Save(Plot plot, string folder, string name)
+    /// <summary>Saves <paramref name="plot"/> as NAME.png and NAME.svg with plain axis numbers; returns both paths.</summary>
+    internal static IReadOnlyList<string> Save(Plot plot, string folder, string name)
     {
         // Plain numbers on both axes: no thousands separators (100,036 would read as 100.036 in much of the world).
         foreach (ScottPlot.IAxis axis in new ScottPlot.IAxis[] { plot.Axes.Left, plot.Axes.Bottom })
