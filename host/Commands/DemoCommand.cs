@@ -73,6 +73,11 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
             return CommandOutput.Fail(problem!.Message, problem.ExitCode);
         }
 
+        if (settings.ReportDir != null && !ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+        {
+            return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
+        }
+
         DemoResult result;
         ReadingTrace? trace = settings.ReportDir != null ? new ReadingTrace() : null;
         try
@@ -97,7 +102,6 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         {
             try
             {
-                Directory.CreateDirectory(settings.ReportDir!);
                 int files = WriteReport(settings.ReportDir!, result, trace);
                 CommandOutput.Diagnostic($"demo: wrote {files} plot files and {ReplayReportPage.FileName} into {settings.ReportDir}");
             }

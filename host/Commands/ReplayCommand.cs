@@ -110,6 +110,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             return CommandOutput.Fail(problem!.Message, problem.ExitCode);
         }
 
+        if (settings.ReportDir != null && !ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+        {
+            return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
+        }
+
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
         if (opened == null)
         {
@@ -216,7 +221,6 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             {
                 try
                 {
-                    Directory.CreateDirectory(settings.ReportDir!);
                     IReadOnlyList<string> plots = ReplayPlots.Write(settings.ReportDir!, trace, report, readout.ThresholdSigma);
                     ReportPage page = ReplayReportPage.Start(
                         "FreqReadout replay report: " + Path.GetFileName(reader.SourceName),

@@ -47,6 +47,11 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
             return CommandOutput.Fail($"--shortest-pass-s must be in (0, 3600] seconds, got {pass.ToString("R", CultureInfo.InvariantCulture)}", CommandOutput.BadOption);
         }
 
+        if (settings.ReportDir != null && !FreqReadout.Host.Reports.ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+        {
+            return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
+        }
+
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
         if (opened == null)
         {
@@ -79,7 +84,6 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         {
             try
             {
-                Directory.CreateDirectory(settings.ReportDir);
                 IReadOnlyList<string> files = FreqReadout.Host.Reports.StabilityPlot.Write(settings.ReportDir, analysis);
                 string page = FreqReadout.Host.Reports.StabilityReportPage.Write(settings.ReportDir, settings.Capture, phase, analysis, lowest, gate, pass, files);
                 CommandOutput.Diagnostic($"stability: wrote {files.Count} plot files and {Path.GetFileName(page)} into {settings.ReportDir}");

@@ -158,7 +158,7 @@ public sealed class ReportPage
     /// <summary>Writes the page (UTF-8, no byte order mark) to <paramref name="path"/>, replacing a file there.</summary>
     public void Write(string path) => File.WriteAllText(path, ToHtml(), new UTF8Encoding(false));
 
-    /// <summary>Reads width and height from a PNG's IHDR chunk (PNG specification, ISO/IEC 15948, 11.2.2); false when it is not a PNG.</summary>
+    /// <summary>Reads width and height from a PNG's IHDR chunk (PNG specification, ISO/IEC 15948:2004, IHDR: width and height as 4-byte big-endian integers at bytes 16-23 of the file; from memory); false when it is not a PNG.</summary>
     public static bool TryReadPngSize(ReadOnlySpan<byte> png, out int width, out int height)
     {
         ReadOnlySpan<byte> signature = stackalloc byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A };
