@@ -12,7 +12,7 @@ namespace FreqReadout.Host.Reports;
 /// (centre the median, sigma = 1.482602218505602 x the median absolute deviation, the replay's noise) and the moment fit
 /// (sample mean and standard deviation, n - 1). Where they part, the residuals are not normal (heavy tails, steps).
 /// Bins are a quarter of the robust sigma wide over the median plus and minus <see cref="SpanSigma"/> robust sigmas;
-/// readings beyond that are counted in the legend, not drawn. Light bars, a dark line and a mid-tone line: apart in grey.
+/// readings beyond that are counted in the legend, not drawn. Light bars, a dark line and a mid-tone line (<see cref="ReportPalette"/>): apart in grey.
 /// </summary>
 public static class NoiseHistogramPlot
 {
@@ -86,8 +86,8 @@ public static class NoiseHistogramPlot
                     Position = left + (i + 0.5) * width,
                     Value = counts[i],
                     Size = width,
-                    FillColor = Color.FromHex("#d5d9de"),
-                    LineColor = Color.FromHex("#6b7785"),
+                    FillColor = ReportPalette.Fill,
+                    LineColor = ReportPalette.Light,
                     LineWidth = 1,
                 });
             }
@@ -99,13 +99,13 @@ public static class NoiseHistogramPlot
             double[] x = Enumerable.Range(0, 241).Select(k => left + k * (2 * SpanSigma * robust) / 240).ToArray();
             var fit = plot.Add.ScatterLine(x, x.Select(v => n * width * Normal.PDF(median, robust, v)).ToArray());
             fit.LegendText = string.Create(System.Globalization.CultureInfo.InvariantCulture, $"normal, median and robust sigma {robust:0.#####} Hz (the noise figure)");
-            fit.Color = Color.FromHex("#1b2a41");
+            fit.Color = ReportPalette.Ink;
             fit.LineWidth = 2.5f;
             if (sd > 0)
             {
                 var moment = plot.Add.ScatterLine(x, x.Select(v => n * width * Normal.PDF(mean, sd, v)).ToArray());
                 moment.LegendText = string.Create(System.Globalization.CultureInfo.InvariantCulture, $"normal, mean and standard deviation {sd:0.#####} Hz");
-                moment.Color = Color.FromHex("#c9a227");
+                moment.Color = ReportPalette.Mid;
                 moment.LineWidth = 1.5f;
             }
         }
@@ -113,7 +113,7 @@ public static class NoiseHistogramPlot
         {
             var none = plot.Add.ScatterLine(new double[] { 0 }, new double[] { 0 });
             none.LegendText = "no target-free readings with spread: nothing to draw";
-            none.Color = Color.FromHex("#1b2a41");
+            none.Color = ReportPalette.Ink;
         }
 
         plot.ShowLegend(Alignment.UpperLeft); // the tails are low: the upper corners are free

@@ -20,9 +20,9 @@ public static class ReplayPlots
     /// <summary>Height of every plot, pixels.</summary>
     public const int Height = 500;
 
-    private static readonly Color Dark = Color.FromHex("#1b2a41");
-    private static readonly Color Light = Color.FromHex("#9aa5b1");
-    private static readonly Color Band = Color.FromHex("#c9a227");
+    private static readonly Color Dark = ReportPalette.Ink;
+    private static readonly Color Light = ReportPalette.Light;
+    private static readonly Color Band = ReportPalette.Mid;
 
     /// <summary>Writes the plots into <paramref name="folder"/>; returns the files written.</summary>
     public static IReadOnlyList<string> Write(string folder, ReadingTrace trace, ReplayReport report, double thresholdSigma)
@@ -42,7 +42,7 @@ public static class ReplayPlots
         frequency.Title("Counted frequency and tracked baseline");
         frequency.XLabel("time (s)");
         frequency.YLabel("frequency (Hz)");
-        frequency.ShowLegend();
+        frequency.ShowLegend(Alignment.UpperLeft); // above the first seconds, before any pass: free of traces
         written.AddRange(Save(frequency, folder, "frequency"));
 
         var shift = new Plot();
@@ -84,7 +84,7 @@ public static class ReplayPlots
         shift.Title("Search shift, threshold band and events");
         shift.XLabel("time (s)");
         shift.YLabel("shift (Hz)");
-        shift.ShowLegend();
+        shift.ShowLegend(Alignment.UpperLeft);
         written.AddRange(Save(shift, folder, "shift"));
         written.AddRange(NoiseHistogramPlot.Write(folder, trace));
         return written;

@@ -44,7 +44,7 @@ public sealed class ReplayPlotsTests : IClassFixture<SimulatedDemoCapture>
                 Assert.Equal(ReplayPlots.Height, png.Height);
                 // The plot area (inside the axes' margins) holds more than background and grid: pixels of the traces.
                 int traced = 0;
-                for (int x = png.Width / 10; x < png.Width * 3 / 4; x++)    // left of the legend box
+                for (int x = png.Width / 4; x < png.Width * 9 / 10; x++)    // right of the legend box
                 {
                     for (int y = png.Height / 10; y < png.Height * 9 / 10; y++)
                     {
