@@ -178,6 +178,31 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         return table;
     }
 
+    private const string SignRuleWarning = "(!) ";
+
+    /// <summary>
+    /// What the sign rule makes of each simulated target (plain text): for a target of one material class that reads as
+    /// the other, a warning starting "(!) " with the reason (its ferrous crossover lies below the operating frequency);
+    /// for the others, one line that it reads as expected.
+    /// </summary>
+    internal static IReadOnlyList<string> SignRuleNotes(DemoResult r)
+    {
+        var notes = new List<string>();
+        foreach (TargetTruth target in r.Truth.Targets.Where(x => x.MaterialClass != x.SignRuleClass))
+        {
+            string crossover = target.CrossoverHz is double x ? $"{F(x / 1000, "0.0")} kHz" : "unknown";
+            notes.Add(SignRuleWarning + $"{target.Name} is {target.MaterialClass} steel, yet it reads {target.SignRuleClass}: " +
+                $"its ferrous crossover is {crossover}, below the 100 kHz operating frequency. Above the crossover the part's own eddy currents outweigh its flux concentration, the coil inductance falls and the search frequency rises, just as for copper. The crossover falls with the square of the part's size, so large iron reads non-ferrous at usual operating frequencies. The sign rule is a heuristic; `freqreadout coil --material carbon_steel --radius-mm R` shows a part's crossover.");
+        }
+
+        foreach (TargetTruth target in r.Truth.Targets.Where(x => x.MaterialClass == x.SignRuleClass && x.CrossoverHz is double))
+        {
+            notes.Add($"{target.Name}: crossover {F(target.CrossoverHz!.Value / 1000, "0.0")} kHz, above the operating frequency, so it reads ferrous as the sign rule expects.");
+        }
+
+        return notes;
+    }
+
     /// <summary>Writes the plots and report.html of the demo's replay into <paramref name="folder"/>; returns the number of plot files.</summary>
     private static int WriteReport(string folder, DemoResult r, ReadingTrace trace)
     {
@@ -197,6 +222,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         int right = r.Matches.Count(m => m.ClassAsExpected);
         page.AddTable("Simulated passes and what the readout reported", PassesTable(r),
             $"{found} of {r.Matches.Count} passes found, {right} with the class the sign rule gives; {r.UnmatchedEvents.Count} events matched no simulated pass. sim. Hz: the simulation's peak search shift (truth).");
+        page.AddText("The sign rule on these targets", SignRuleNotes(r).ToArray());
         ReplayReportPage.Finish(page, SettingsTable.Of(new SettingsSource("counter", r.Counter!), new SettingsSource("readout", readout)), r.Report.Warnings);
         page.Write(Path.Combine(folder, ReplayReportPage.FileName));
         return plots.Count;
@@ -240,16 +266,9 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         console.WriteLine($"{found} of {r.Matches.Count} passes found, {right} with the class the sign rule gives; {r.UnmatchedEvents.Count} events matched no simulated pass.");
         console.WriteLine();
 
-        foreach (TargetTruth target in t.Targets.Where(x => x.MaterialClass != x.SignRuleClass))
+        foreach (string note in SignRuleNotes(r))
         {
-            string crossover = target.CrossoverHz is double x ? $"{F(x / 1000, "0.0")} kHz" : "unknown";
-            console.MarkupLine($"[yellow](!)[/] [bold]{Markup.Escape(target.Name)}[/] is {Markup.Escape(target.MaterialClass)} steel, yet it reads [bold]{Markup.Escape(target.SignRuleClass)}[/]: " +
-                Markup.Escape($"its ferrous crossover is {crossover}, below the 100 kHz operating frequency. Above the crossover the part's own eddy currents outweigh its flux concentration, the coil inductance falls and the search frequency rises, just as for copper. The crossover falls with the square of the part's size, so large iron reads non-ferrous at usual operating frequencies. The sign rule is a heuristic; `freqreadout coil --material carbon_steel --radius-mm R` shows a part's crossover."));
-        }
-
-        foreach (TargetTruth target in t.Targets.Where(x => x.MaterialClass == x.SignRuleClass && x.CrossoverHz is double))
-        {
-            console.WriteLine($"{target.Name}: crossover {F(target.CrossoverHz!.Value / 1000, "0.0")} kHz, above the operating frequency, so it reads ferrous as the sign rule expects.");
+            console.MarkupLine((note.StartsWith(SignRuleWarning, StringComparison.Ordinal) ? "[yellow](!)[/] " + Markup.Escape(note[SignRuleWarning.Length..]) : Markup.Escape(note)));
         }
 
         foreach (string w in rep.Warnings)

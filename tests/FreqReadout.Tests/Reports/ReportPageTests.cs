@@ -99,6 +99,9 @@ public sealed class ReportPageTests : IClassFixture<SimulatedDemoCapture>
         }
 
         Assert.Contains(ReportPageChecks.Table(doc, "settings-used").Rows, r => r[0] == "clock_hz" && r[1] != "0");
+        // The scene's large steel anchor reads non-ferrous (README "The sign rule and its limit"): the page says why, as the console does.
+        string signRule = doc.QuerySelector("section#the-sign-rule-on-these-targets")?.TextContent ?? string.Empty;
+        Assert.Contains("large steel anchor is ferrous steel, yet it reads non-ferrous", signRule);
         ReportPageChecks.AssertCautions(doc);
     }
 
