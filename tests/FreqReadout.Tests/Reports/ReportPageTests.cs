@@ -72,6 +72,28 @@ public sealed class ReportPageTests : IClassFixture<SimulatedDemoCapture>
     }
 
     [Fact]
+    public void A_replay_without_a_baseline_still_gets_its_page_with_dashes_and_an_empty_noise_plot_that_says_so()
+    {
+        // The contract sample beat-with-temp (docs/contracts): 0.2 s, too short for a baseline, so replay --json gives
+        // noise_hz null and no events.
+        string dir = Path.Combine(_sim.Dir, "page-short");
+        var (exit, json, error) = ConsoleCapture.Run("replay", FreqReadout.Tests.Captures.CaptureTestFiles.Contract("beat-with-temp.edges.csv"), "--report", dir, "--json");
+        Assert.True(exit == 0, error);
+        using JsonDocument expected = JsonDocument.Parse(json);
+        Assert.Equal(JsonValueKind.Null, expected.RootElement.GetProperty("noise_hz").ValueKind);
+
+        IDocument doc = ReportPageChecks.Parse(Path.Combine(dir, "report.html"));
+        ReportPageChecks.AssertImagesDecode(doc, 3, ReplayPlots.Width, ReplayPlots.Height);
+        Assert.StartsWith("- Hz, - ppm", ReportPageChecks.SummaryValue(doc, "noise"));
+        Assert.Empty(ReportPageChecks.Table(doc, "events").Rows);
+        Assert.Equal("none", doc.QuerySelector("section#events td.none")?.TextContent);
+        Assert.Contains("no baseline was captured", doc.QuerySelector("section#notes")?.TextContent);
+        string noise = string.Join("\n", System.Xml.Linq.XDocument.Load(Path.Combine(dir, "noise.svg")).Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value));
+        Assert.Contains("no target-free readings with spread: nothing to draw", noise);
+        ReportPageChecks.AssertCautions(doc);
+    }
+
+    [Fact]
     public void Demo_page_holds_the_replay_sections_and_the_simulated_passes()
     {
         string dir = Path.Combine(_sim.Dir, "page-demo");
