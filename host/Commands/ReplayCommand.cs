@@ -37,7 +37,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string? ReadingsFile { get; set; }
 
         [CommandOption("--report <DIR>")]
-        [Description("Also write plots into DIR (created when missing), each as PNG and SVG: frequency with the tracked baseline, and shift with the threshold band, events by class and re-baselines. Files of the same names there are replaced. Default: no plots.")]
+        [Description("Also write a report into DIR (created when missing): plots as PNG and SVG (frequency with the tracked baseline; shift with the threshold band, events by class and re-baselines; a histogram of the target-free shifts with fitted normals) and report.html, one self-contained page with the plots, summary, events, settings used and cautions. Files of the same names there are replaced. Default: no report.")]
         [FilePath]
         public string? ReportDir { get; set; }
 
@@ -108,6 +108,11 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         if (!outputs.TryPrepare(out OutputFileException? problem))
         {
             return CommandOutput.Fail(problem!.Message, problem.ExitCode);
+        }
+
+        if (settings.ReportDir != null && !ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+        {
+            return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
         }
 
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
@@ -216,9 +221,20 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             {
                 try
                 {
-                    Directory.CreateDirectory(settings.ReportDir!);
                     IReadOnlyList<string> plots = ReplayPlots.Write(settings.ReportDir!, trace, report, readout.ThresholdSigma);
-                    CommandOutput.Diagnostic($"replay: wrote {plots.Count} plot files into {settings.ReportDir}");
+                    ReportPage page = ReplayReportPage.Start(
+                        "FreqReadout replay report: " + Path.GetFileName(reader.SourceName),
+                        new[]
+                        {
+                            $"A replay of the capture {reader.SourceName} through the same counting and readout pipeline the device runs. Times are seconds from the capture's first edge; frequencies and shifts in Hz.",
+                            "The plots are also in this folder as PNG and SVG files; the summary and tables hold the numbers replay prints.",
+                        },
+                        ReplayTables.Summary(report, readout, reader.SourceName, source.Settings, holdSpans),
+                        report,
+                        plots);
+                    ReplayReportPage.Finish(page, SettingsTable.Of(new SettingsSource("counter", source.Settings), new SettingsSource("readout", readout)), report.Warnings);
+                    page.Write(Path.Combine(settings.ReportDir!, ReplayReportPage.FileName));
+                    CommandOutput.Diagnostic($"replay: wrote {plots.Count} plot files and {ReplayReportPage.FileName} into {settings.ReportDir}");
                 }
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException)
                 {
@@ -403,24 +419,34 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
             e.StartUtc is DateTimeOffset u ? u.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture) : string.Empty);
     }
 
+    /// <summary>
+    /// A simple-bordered console table of the first <paramref name="columns"/> columns of <paramref name="rows"/>, right-aligned
+    /// except the text columns from <paramref name="textFrom"/> to <paramref name="textTo"/>.
+    /// </summary>
+    private static Table ConsoleTable(ReportTable rows, int textFrom, int textTo, int columns)
+    {
+        var t = new Table().Border(TableBorder.Simple);
+        for (int i = 0; i < columns; i++)
+        {
+            var column = new TableColumn(Markup.Escape(rows.Headers[i]));
+            t.AddColumn(i >= textFrom && i <= textTo ? column : column.RightAligned());
+        }
+
+        foreach (IReadOnlyList<string> row in rows.Rows)
+        {
+            t.AddRow(row.Take(columns).Select(Markup.Escape).ToArray());
+        }
+
+        return t;
+    }
+
     private static void WriteSummary(ReplayReport report, ReadoutSettings readout, CaptureGateSource source, IReadOnlyList<HoldSpan> holdSpans)
     {
         var console = CommandOutput.Stdout();
-        string N(double? v, string f = "0.######") => v is double x ? x.ToString(f, CultureInfo.InvariantCulture) : "-";
-        var s = source.Settings;
         var grid = new Grid().AddColumn().AddColumn();
-        grid.AddRow("capture", Markup.Escape(source.Reader.SourceName));
-        grid.AddRow("signal", report.Signal == SignalKind.Beat ? $"beat ({(readout.BeatSide == FreqReadout.Counting.BeatSide.Above ? "search above reference" : "search below reference")})" : "search oscillator");
-        grid.AddRow("edges", report.Edges.ToString(CultureInfo.InvariantCulture));
-        grid.AddRow("duration", N(report.DurationSeconds, "0.000") + " s");
-        grid.AddRow("gates", $"{report.Gates} ({Markup.Escape(CountCommand.GateText(s))}, {CountCommand.EstimatorName(s.Estimator)})");
-        grid.AddRow("baseline", N(report.BaselineHz, "0.000") + " Hz (first captured, counted signal)");
-        grid.AddRow("noise", $"{N(report.NoiseHz, "0.0000")} Hz, {N(report.NoisePpm, "0.000")} ppm (robust sigma of target-free residuals)");
-        grid.AddRow("drift", N(report.DriftHzPerMinute, "0.0000") + " Hz/min (least-squares slope of the tracked baseline)");
-        grid.AddRow("threshold", $"{N(readout.ThresholdSigma)} sigma, release {N(readout.ThresholdSigma - readout.HysteresisSigma)} sigma, unclear below {N(readout.ThresholdSigma + readout.UnclearBandSigma)} sigma, polarity {(readout.Polarity == FreqReadout.Detection.Polarity.Inverted ? "inverted" : "normal")}");
-        if (holdSpans.Count > 0)
+        foreach (IReadOnlyList<string> row in ReplayTables.Summary(report, readout, source.Reader.SourceName, source.Settings, holdSpans).Rows)
         {
-            grid.AddRow("hold", string.Join(", ", holdSpans.Select(h => $"{N(h.FromSeconds)}-{N(h.ToSeconds)} s")) + " (--hold-span)");
+            grid.AddRow(Markup.Escape(row[0]), Markup.Escape(row[1]));
         }
 
         console.Write(grid);
@@ -429,37 +455,13 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         console.WriteLine($"re-baselines: {report.Rebaselines.Count}");
         if (report.Rebaselines.Count > 0)
         {
-            var t = new Table().Border(TableBorder.Simple);
-            t.AddColumn(new TableColumn("time s").RightAligned());
-            t.AddColumn("reason");
-            t.AddColumn(new TableColumn("shift Hz").RightAligned());
-            t.AddColumn(new TableColumn("shift ppm").RightAligned());
-            foreach (ReplayRebaseline r in report.Rebaselines)
-            {
-                t.AddRow(N(r.TimeSeconds, "0.000"), r.ReasonName, N(r.ShiftHz, "+0.000;-0.000;0.000"), N(r.ShiftPpm, "+0.000;-0.000;0.000"));
-            }
-
-            console.Write(t);
+            console.Write(ConsoleTable(ReplayTables.Rebaselines(report), 1, 1, 4));
         }
 
         console.WriteLine($"events: {report.Events.Count}");
         if (report.Events.Count > 0)
         {
-            var t = new Table().Border(TableBorder.Simple);
-            t.AddColumn(new TableColumn("start s").RightAligned());
-            t.AddColumn(new TableColumn("end s").RightAligned());
-            t.AddColumn(new TableColumn("peak s").RightAligned());
-            t.AddColumn(new TableColumn("peak shift Hz").RightAligned());
-            t.AddColumn(new TableColumn("ppm").RightAligned());
-            t.AddColumn(new TableColumn("sigma").RightAligned());
-            t.AddColumn("class");
-            foreach (ReplayEvent e in report.Events)
-            {
-                var d = e.Event;
-                t.AddRow(N(d.StartSeconds, "0.000"), N(d.EndSeconds, "0.000"), N(d.PeakSeconds, "0.000"), N(d.PeakShiftHz, "+0.000;-0.000;0.000"), d.HasPpm ? N(d.PeakShiftPpm, "+0.00;-0.00;0.00") : "-", N(d.PeakSigma, "0.0"), e.ClassName);
-            }
-
-            console.Write(t);
+            console.Write(ConsoleTable(ReplayTables.Events(report), 6, 6, 7));
         }
 
         foreach (string w in report.Warnings)

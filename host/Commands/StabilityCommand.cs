@@ -30,7 +30,7 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         public double? ShortestPassSeconds { get; set; }
 
         [CommandOption("--report <DIR>")]
-        [Description("Also write the deviation plot (deviation.png and deviation.svg, log-log with the 68.3 % intervals) into DIR, created when missing. Default: no plot.")]
+        [Description("Also write the deviation plot (deviation.png and deviation.svg, log-log with the 68.3 % intervals) and report.html (one self-contained page: summary, plot, deviation table, settings, cautions) into DIR, created when missing; files of those names there are replaced. Default: no report.")]
         [FilePath]
         public string? ReportDir { get; set; }
 
@@ -45,6 +45,11 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         if (!(pass > 0 && pass <= 3600))
         {
             return CommandOutput.Fail($"--shortest-pass-s must be in (0, 3600] seconds, got {pass.ToString("R", CultureInfo.InvariantCulture)}", CommandOutput.BadOption);
+        }
+
+        if (settings.ReportDir != null && !FreqReadout.Host.Reports.ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+        {
+            return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
         }
 
         int openError = CommandOutput.TryOpenCapture(settings.Capture, out ICaptureReader? opened);
@@ -79,15 +84,16 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         {
             try
             {
-                Directory.CreateDirectory(settings.ReportDir);
                 IReadOnlyList<string> files = FreqReadout.Host.Reports.StabilityPlot.Write(settings.ReportDir, analysis);
-                CommandOutput.Diagnostic($"stability: wrote {files.Count} plot files into {settings.ReportDir}");
+                string page = FreqReadout.Host.Reports.StabilityReportPage.Write(settings.ReportDir, settings.Capture, phase, analysis, lowest, gate, pass, files);
+                CommandOutput.Diagnostic($"stability: wrote {files.Count} plot files and {Path.GetFileName(page)} into {settings.ReportDir}");
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
                 return CommandOutput.Fail($"--report {settings.ReportDir}: {FileErrorText.Reason(settings.ReportDir, e)}", CommandOutput.BadInput);
             }
         }
+
         if (settings.Json)
         {
             Console.Out.WriteLine(ToJson(phase, analysis, lowest, gate, pass));
@@ -96,10 +102,12 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
 
         var console = CommandOutput.Stdout();
         console.WriteLine($"{settings.Capture}: {phase.Edges} edges, counted signal {Num(phase.CountedHz, "0.###")} Hz, phase points every {Num(phase.Tau0Seconds * 1e6, "0.###")} us");
-        var table = new Table().AddColumns("tau s", "ADEV", "68 % interval", "ADEV Hz", "MDEV", "noise (MDEV slope)");
-        foreach (StabilityPoint r in analysis.Rows)
+        var table = new Table();
+        FreqReadout.Host.Reports.ReportTable rows = FreqReadout.Host.Reports.StabilityReportPage.DeviationTable(phase, analysis);
+        table.AddColumns(rows.Headers.Select(Markup.Escape).ToArray());
+        foreach (IReadOnlyList<string> row in rows.Rows)
         {
-            table.AddRow(Num(r.TauSeconds, "G4"), Num(r.Adev, "0.000E+00"), $"{Num(r.AdevLow, "0.000E+00")} - {Num(r.AdevHigh, "0.000E+00")}", Num(r.Adev * phase.CountedHz, "G4"), Num(r.Mdev, "0.000E+00"), NoiseWord(r.Noise));
+            table.AddRow(row.Select(Markup.Escape).ToArray());
         }
 
         console.Write(table);
@@ -111,7 +119,7 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
         console.WriteLine(gate != null
             ? $"recommended gate: {Num(gate.TauSeconds, "G4")} s (the smallest ADEV at or below half the shortest pass, {Num(pass / 2, "G4")} s)"
             : $"recommended gate: none (no averaging time at or below half the shortest pass, {Num(pass / 2, "G4")} s, could be analysed)");
-        console.WriteLine("Deviations are fractional (of the counted frequency), from a capture meant to have no target near the coil; the timer's tick sets a floor (white phase noise) at short tau.");
+        console.WriteLine(MeaningNote);
         return ExitCodes.Ok;
     }
 
@@ -151,6 +159,9 @@ public sealed class StabilityCommand : Command<StabilityCommand.Settings>
 
         return System.Text.Encoding.UTF8.GetString(stream.ToArray());
     }
+
+    /// <summary>What the numbers mean, printed under the table and shown on the report page.</summary>
+    public const string MeaningNote = "Deviations are fractional (of the counted frequency), from a capture meant to have no target near the coil; the timer's tick sets a floor (white phase noise) at short tau.";
 
     /// <summary>The word for a noise type, as the table and the JSON show it.</summary>
     public static string NoiseWord(NoiseType noise) => noise switch

@@ -1,4 +1,6 @@
+using FreqReadout.Counting;
 using FreqReadout.Host.Replay;
+using FreqReadout.Readout;
 using FreqReadout.Host.Simulation;
 
 namespace FreqReadout.Host.Demo;
@@ -9,4 +11,11 @@ public sealed record DemoResult(
     ReplayReport Report,
     IReadOnlyList<DemoPassMatch> Matches,
     IReadOnlyList<ReplayEvent> UnmatchedEvents,
-    string CapturePath);
+    string CapturePath)
+{
+    /// <summary>The counting settings the replay used (replay's defaults for the capture); null when not recorded.</summary>
+    public CounterSettings? Counter { get; init; }
+
+    /// <summary>The readout settings the replay used (replay's defaults for the capture); null when not recorded.</summary>
+    public ReadoutSettings? Readout { get; init; }
+}

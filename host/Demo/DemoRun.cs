@@ -4,6 +4,7 @@ using FreqReadout.Host.Commands;
 using FreqReadout.Host.Counting;
 using FreqReadout.Host.Output;
 using FreqReadout.Host.Replay;
+using FreqReadout.Host.Reports;
 using FreqReadout.Host.Simulation;
 using FreqReadout.Readout;
 
@@ -50,6 +51,10 @@ public static class DemoRun
     /// drops, the file.
     /// </summary>
     public static DemoResult Run(Scene scene, string sceneName, OutputFile capture, IProgress<double>? progress, CancellationToken cancellationToken)
+        => Run(scene, sceneName, capture, progress, null, cancellationToken);
+
+    /// <summary>The demo on a prepared output, as above, keeping every reading in <paramref name="trace"/> when given (for <c>demo --report</c>).</summary>
+    public static DemoResult Run(Scene scene, string sceneName, OutputFile capture, IProgress<double>? progress, ReadingTrace? trace, CancellationToken cancellationToken)
     {
         string readBack = capture.ContentPath ?? throw new ArgumentException($"{capture.Path}: the demo capture must be a regular file ({ReadBackReason}); set RegularFileNeededBecause before preparing", nameof(capture));
         var model = new SceneModel(scene, sceneName);
@@ -62,17 +67,25 @@ public static class DemoRun
 
         string capturePath = capture.Path;
         ReplayReport report;
+        ReadoutSettings readout;
+        CounterSettings counterUsed;
         var defaults = new ReadoutCommandSettings();
         CounterSettings options = defaults.BuildOptions(out string? optionError)
             ?? throw new InvalidOperationException("default counter options invalid: " + optionError);
         var bytes = new FileStream(readBack, FileMode.Open, FileAccess.Read, FileShare.ReadWrite, 65536, FileOptions.SequentialScan);
         using (ICaptureReader reader = CaptureFile.Open(bytes, capturePath))
         {
-            ReadoutSettings readout = defaults.BuildReadoutSettings(reader.Metadata, out string? readoutError)
+            readout = defaults.BuildReadoutSettings(reader.Metadata, out string? readoutError)
                 ?? throw new InvalidOperationException("default readout settings invalid: " + readoutError);
             ReadoutCommandSettings.ApplyBeatFloor(options, readout);
             var source = new CaptureGateSource(reader, options);
+            counterUsed = source.Settings;
             var session = new ReplaySession(readout, reader.Metadata.StartedUtc);
+            if (trace != null)
+            {
+                session.ReadingSink = (r, g) => trace.Add(r);
+            }
+
             report = session.Run(source, cancellationToken);
         }
 
@@ -88,6 +101,6 @@ public static class DemoRun
         var used = new HashSet<ReplayEvent>(matched.OfType<ReplayEvent>());
         matches.Sort((a, b) => a.TruthPeakSeconds.CompareTo(b.TruthPeakSeconds));
         List<ReplayEvent> unmatched = report.Events.Where(e => !used.Contains(e)).ToList();
-        return new DemoResult(truth, report, matches, unmatched, capturePath);
+        return new DemoResult(truth, report, matches, unmatched, capturePath) { Counter = counterUsed, Readout = readout };
     }
 }

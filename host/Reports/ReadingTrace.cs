@@ -10,6 +10,7 @@ public sealed class ReadingTrace
     private readonly List<double> _baseline = new();
     private readonly List<double> _shift = new();
     private readonly List<double> _noise = new();
+    private readonly List<double> _targetFreeShift = new();
 
     /// <summary>Gate times, s.</summary>
     public IReadOnlyList<double> TimeSeconds => _time;
@@ -26,6 +27,12 @@ public sealed class ReadingTrace
     /// <summary>Noise (one sigma), Hz.</summary>
     public IReadOnlyList<double> NoiseHz => _noise;
 
+    /// <summary>
+    /// The shift of every target-free reading (a shift known, no target present), Hz: the residuals whose robust sigma is
+    /// the replay's noise figure (<see cref="FreqReadout.Host.Replay.ReplayReport.NoiseHz"/>).
+    /// </summary>
+    public IReadOnlyList<double> TargetFreeShiftHz => _targetFreeShift;
+
     /// <summary>Keeps one reading.</summary>
     public void Add(Reading r)
     {
@@ -34,5 +41,9 @@ public sealed class ReadingTrace
         _baseline.Add(r.HasShift ? r.BaselineHz : double.NaN);
         _shift.Add(r.HasShift ? r.ShiftHz : double.NaN);
         _noise.Add(r.HasShift ? r.NoiseHz : double.NaN);
+        if (r.IsTargetFree)
+        {
+            _targetFreeShift.Add(r.ShiftHz);
+        }
     }
 }

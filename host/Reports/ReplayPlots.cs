@@ -8,7 +8,7 @@ namespace FreqReadout.Host.Reports;
 /// The plots of <c>replay --report DIR</c>, each as PNG and SVG of <see cref="Width"/> x <see cref="Height"/> pixels
 /// (ScottPlot): frequency.png/svg (counted frequency and the tracked baseline against time) and shift.png/svg (the
 /// search shift against time with the detection threshold band of plus and minus threshold x noise, events marked by
-/// class and re-baselines as thin vertical lines). Colours and marker shapes are the project's own and stay apart in
+/// class and re-baselines as thin vertical lines), and noise.png/svg (<see cref="NoiseHistogramPlot"/>). Colours and marker shapes are the project's own and stay apart in
 /// grey print: a dark line, a mid-tone band, light lines, a filled square for ferrous, an open circle for non-ferrous,
 /// a cross for unclear. Lines are solid: SkiaSharp's SVG canvas cannot write dash patterns (it says so on stderr).
 /// </summary>
@@ -20,9 +20,9 @@ public static class ReplayPlots
     /// <summary>Height of every plot, pixels.</summary>
     public const int Height = 500;
 
-    private static readonly Color Dark = Color.FromHex("#1b2a41");
-    private static readonly Color Light = Color.FromHex("#9aa5b1");
-    private static readonly Color Band = Color.FromHex("#c9a227");
+    private static readonly Color Dark = ReportPalette.Ink;
+    private static readonly Color Light = ReportPalette.Light;
+    private static readonly Color Band = ReportPalette.Mid;
 
     /// <summary>Writes the plots into <paramref name="folder"/>; returns the files written.</summary>
     public static IReadOnlyList<string> Write(string folder, ReadingTrace trace, ReplayReport report, double thresholdSigma)
@@ -42,7 +42,7 @@ public static class ReplayPlots
         frequency.Title("Counted frequency and tracked baseline");
         frequency.XLabel("time (s)");
         frequency.YLabel("frequency (Hz)");
-        frequency.ShowLegend();
+        frequency.ShowLegend(Alignment.UpperLeft); // above the first seconds, before any pass: free of traces
         written.AddRange(Save(frequency, folder, "frequency"));
 
         var shift = new Plot();
@@ -84,12 +84,14 @@ public static class ReplayPlots
         shift.Title("Search shift, threshold band and events");
         shift.XLabel("time (s)");
         shift.YLabel("shift (Hz)");
-        shift.ShowLegend();
+        shift.ShowLegend(Alignment.UpperLeft);
         written.AddRange(Save(shift, folder, "shift"));
+        written.AddRange(NoiseHistogramPlot.Write(folder, trace));
         return written;
     }
 
-    private static IEnumerable<string> Save(Plot plot, string folder, string name)
+    /// <summary>Saves <paramref name="plot"/> as NAME.png and NAME.svg with plain axis numbers; returns both paths.</summary>
+    internal static IReadOnlyList<string> Save(Plot plot, string folder, string name)
     {
         // Plain numbers on both axes: no thousands separators (100,036 would read as 100.036 in much of the world).
         foreach (ScottPlot.IAxis axis in new ScottPlot.IAxis[] { plot.Axes.Left, plot.Axes.Bottom })

@@ -19,7 +19,7 @@ public static class StabilityPlot
         var plot = new Plot();
         var adev = plot.Add.Scatter(x, rows.Select(r => Math.Log10(r.Adev)).ToArray());
         adev.LegendText = "Allan deviation (overlapping), 68.3 % interval";
-        adev.Color = Color.FromHex("#1b2a41");
+        adev.Color = ReportPalette.Ink;
         adev.MarkerShape = MarkerShape.FilledCircle;
         adev.MarkerSize = 7;
         for (int i = 0; i < rows.Length; i++)
@@ -27,7 +27,7 @@ public static class StabilityPlot
             if (rows[i].AdevLow > 0 && rows[i].AdevHigh > 0)
             {
                 var bar = plot.Add.Line(x[i], Math.Log10(rows[i].AdevLow), x[i], Math.Log10(rows[i].AdevHigh));
-                bar.Color = Color.FromHex("#1b2a41");
+                bar.Color = ReportPalette.Ink;
                 bar.LineWidth = 2;
             }
         }
@@ -35,7 +35,7 @@ public static class StabilityPlot
         StabilityPoint[] mod = rows.Where(r => r.Mdev > 0).ToArray();
         var mdev = plot.Add.Scatter(mod.Select(r => Math.Log10(r.TauSeconds)).ToArray(), mod.Select(r => Math.Log10(r.Mdev)).ToArray());
         mdev.LegendText = "modified Allan deviation";
-        mdev.Color = Color.FromHex("#9aa5b1");
+        mdev.Color = ReportPalette.Light;
         mdev.MarkerShape = MarkerShape.OpenSquare;
         mdev.MarkerSize = 7;
         plot.Title("Frequency stability of the counted signal");

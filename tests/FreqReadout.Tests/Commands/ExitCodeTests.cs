@@ -62,6 +62,8 @@ public sealed class ExitCodeTests : IDisposable
 
         Add(ExitCodes.Ok, "replay", Contract("snapshots.edges.csv"), "--json");
         Add(ExitCodes.DataError, "replay", D("no-such-file.csv"));
+        Add(ExitCodes.DataError, "replay", Contract("snapshots.edges.csv"), "--report", Path.Combine("/dev/null", "sub"));
+        Add(ExitCodes.DataError, "stability", Contract("snapshots.edges.csv"), "--report", Path.Combine("/dev/null", "sub"));
         Add(ExitCodes.DataError, "replay", D("empty.csv"));
         Add(ExitCodes.DataError, "replay", Contract("minimal.edges.csv"));
         Add(ExitCodes.DataError, "replay", D("alias.csv"));
@@ -98,6 +100,8 @@ public sealed class ExitCodeTests : IDisposable
         Add(ExitCodes.DataError, "demo", "--keep", Path.Combine("/dev/null", "sub"), "--quiet");
         Add(ExitCodes.Usage, "demo", "--keep", "");
         Add(ExitCodes.Usage, "demo", "--no-such-option");
+        Add(ExitCodes.DataError, "demo", "--report", Path.Combine("/dev/null", "sub"), "--quiet");
+        Add(ExitCodes.Usage, "demo", "--report", "");
         return data;
     }
 

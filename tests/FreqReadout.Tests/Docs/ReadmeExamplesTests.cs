@@ -68,6 +68,14 @@ public class ReadmeExamplesTests
                 {
                     Assert.True(new FileInfo(Path.Combine(dir, a)).Length > 0, shown + " did not write " + a);
                 }
+
+                // --report DIR: the page and its plots (Reports/ReportPageTests checks what they hold).
+                foreach (string a in args.Where((a, i) => i > 0 && args[i - 1] == "--report"))
+                {
+                    string[] written = new[] { "report.html" }.Concat((args[0] == "stability" ? new[] { "deviation" } : new[] { "frequency", "shift", "noise" })
+                        .SelectMany(p => new[] { p + ".png", p + ".svg" })).ToArray();
+                    Assert.All(written, f => Assert.True(new FileInfo(Path.Combine(dir, a, f)).Length > 0, shown + " did not write " + Path.Combine(a, f)));
+                }
             }
         }
         finally
