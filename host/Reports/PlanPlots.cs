@@ -53,7 +53,9 @@ public sealed class PlanPlots
     {
         axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic
         {
-            LabelFormatter = v => "1e" + Math.Round(v, 2).ToString("0.##", CultureInfo.InvariantCulture),
+            IntegerTicksOnly = true,
+            MinorTickGenerator = new ScottPlot.TickGenerators.LogMinorTickGenerator(),
+            LabelFormatter = v => "1e" + Math.Round(v).ToString("0", CultureInfo.InvariantCulture),
         };
     }
 
@@ -86,7 +88,7 @@ public sealed class PlanPlots
         plot.YLabel("resolution, 1 sigma (Hz)");
         DecadeAxis(plot.Axes.Left);
         DecadeAxis(plot.Axes.Bottom);
-        plot.ShowLegend();
+        plot.ShowLegend(Alignment.LowerLeft);
         return Save(plot, folder, "resolution");
     }
 
@@ -95,15 +97,15 @@ public sealed class PlanPlots
         var plot = new Plot();
         DepthPoint[] curve = depth.Curve.Where(p => p.PeakShiftHz > 0).ToArray();
         double[] x = curve.Select(p => p.DepthM * 1000).ToArray();
-        var peak = plot.Add.ScatterLine(x, curve.Select(p => Math.Log10(p.PeakShiftHz)).ToArray());
-        peak.LegendText = "peak shift of a pass";
-        peak.Color = Color.FromHex("#111827");
-        peak.LineWidth = 2.5f;
         DepthPoint[] gated = curve.Where(p => p.GateShiftHz > 0).ToArray();
         var gate = plot.Add.ScatterLine(gated.Select(p => p.DepthM * 1000).ToArray(), gated.Select(p => Math.Log10(p.GateShiftHz)).ToArray());
         gate.LegendText = string.Create(CultureInfo.InvariantCulture, $"largest {depth.GateS:G3} s gate reading");
-        gate.Color = Color.FromHex("#9ca3af");
-        gate.LineWidth = 2.5f;
+        gate.Color = Color.FromHex("#b8bec6");
+        gate.LineWidth = 6f;
+        var peak = plot.Add.ScatterLine(x, curve.Select(p => Math.Log10(p.PeakShiftHz)).ToArray());
+        peak.LegendText = "peak shift of a pass";
+        peak.Color = Color.FromHex("#111827");
+        peak.LineWidth = 1.5f;
         double left = x.Length > 0 ? x[0] : 0;
         double right = x.Length > 0 ? x[^1] : 1;
         foreach (DepthRow row in depth.Rows.Where(r => r.ThresholdHz > 0))
@@ -131,7 +133,11 @@ public sealed class PlanPlots
         plot.XLabel("target depth below the surface (mm)");
         plot.YLabel("search shift (Hz)");
         DecadeAxis(plot.Axes.Left);
-        plot.ShowLegend();
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic
+        {
+            LabelFormatter = v => v.ToString("0.##", CultureInfo.InvariantCulture),
+        };
+        plot.ShowLegend(Alignment.UpperRight);
         return Save(plot, folder, "depth");
     }
 }
