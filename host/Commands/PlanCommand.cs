@@ -499,7 +499,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
             console.MarkupLine("warning: * the gate is longer than half the pass (the time the shift stays above half its peak): the peak is smeared; shorten the gate or sweep slower");
         }
 
-        console.MarkupLine("[grey]none: not seen even 1.5 radii down; >: still seen at the deepest depth modelled. Depth of the target centre below the surface, target on the sweep line, gate centred on the peak. The oscillator's own noise and drift are not in these figures (measure them with stability), and the readout's tracked noise rises when passes over a target just below the threshold count as noise, so a target near the limit reads a little shallower. A model, not a promise: soil, orientation and shape change it.[/]");
+        console.MarkupLine("[grey]none: not seen even 1.5 radii down; >: still seen at the deepest depth modelled. Depth of the target centre below the surface, target on the sweep line, the largest gate reading of a pass averaged over where the gate boundaries fall. The oscillator's own noise and drift are not in these figures (measure them with stability), and the readout's tracked noise rises when passes over a target just below the threshold count as noise, so a target near the limit reads a little shallower. A model, not a promise: soil, orientation and shape change it.[/]");
         console.MarkupLine("[grey]A small or absent shift is not proof that nothing is there: isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local codes and licensed practice.[/]");
     }
 }

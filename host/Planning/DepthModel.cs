@@ -12,7 +12,8 @@ namespace FreqReadout.Host.Planning;
 /// in the gate, w = speed x T. The reciprocal counter's mean is flat over the gate (frequency = whole periods / span); a
 /// least-squares slope weighs the middle of the gate most, with the parabolic weights 6 u (1 - u) over u in [0, 1]
 /// (its readings are parabolically weighted averages: Vernotte, Lenczner, Bourgeois and Rubiola, IEEE TUFFC 63(4):611, 2016,
-/// from memory). The peak gate is taken centred on the peak, the best case for the gate's alignment.</para>
+/// from memory). Where the gate boundaries fall against the pass is chance: the largest reading of a pass is averaged
+/// over that phase (a gate centred on the peak is the best case, a boundary on the peak the worst).</para>
 /// </summary>
 public sealed class DepthModel
 {
@@ -47,7 +48,9 @@ public sealed class DepthModel
 
     /// <summary>
     /// The largest |gate reading| of a pass (with its sign), Hz: the profile along the line weighted over the coil's travel
-    /// in one gate (flat for the reciprocal, parabolic for the regressions), the gate centred where that is largest.
+    /// in one gate (flat for the reciprocal, parabolic for the regressions); gates follow one another, and the figure is the
+    /// largest reading of a pass averaged over where the gate boundaries fall against it (uniformly, one grid step apart).
+    /// A gate of no travel gives the instantaneous peak.
     /// </summary>
     public double GateShiftHz(double depthM, double gateS, string estimator)
     {
@@ -61,27 +64,41 @@ public sealed class DepthModel
         }
 
         int half = (int)Math.Floor(travel / (2.0 * step));
-        double best = 0;
+        int width = (2 * half) + 1;
+        double[] reading = new double[GridPoints];
         for (int i = half; i < GridPoints - half; i++)
         {
             double sum = 0;
             double weights = 0;
             for (int k = -half; k <= half; k++)
             {
-                double u = half == 0 ? 0.5 : (k + half + 0.5) / ((2.0 * half) + 1.0);
+                double u = half == 0 ? 0.5 : (k + half + 0.5) / width;
                 double w = estimator == PlanEstimators.Reciprocal ? 1.0 : 6.0 * u * (1.0 - u);
                 sum += w * profile[i + k];
                 weights += w;
             }
 
-            double mean = sum / weights;
-            if (Math.Abs(mean) > Math.Abs(best))
-            {
-                best = mean;
-            }
+            reading[i] = sum / weights;
         }
 
-        return best;
+        // Gates follow one another without gaps, so their centres are one gate apart; where they fall against the pass is
+        // chance. For each phase of the gate boundaries take the largest |reading|, then average over the phases.
+        double total = 0;
+        for (int phase = 0; phase < width; phase++)
+        {
+            double best = 0;
+            for (int i = half + phase; i < GridPoints - half; i += width)
+            {
+                if (Math.Abs(reading[i]) > Math.Abs(best))
+                {
+                    best = reading[i];
+                }
+            }
+
+            total += best;
+        }
+
+        return total / width;
     }
 
     /// <summary>Length of the line over which |shift| is at least half its peak, m.</summary>

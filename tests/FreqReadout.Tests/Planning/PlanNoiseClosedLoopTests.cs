@@ -37,7 +37,7 @@ public class PlanNoiseClosedLoopTests
     {
         var scene = new Scene
         {
-            Seed = 11,
+            Seed = 97,
             DurationS = durationS,
             Oscillator = new SceneOscillator { FrequencyHz = frequencyHz, TempcoPpmPerK = 0, WhiteFmAdev1s = 0, FlickerAdev = 0 },
             Hardware = new SceneHardware { ClockHz = clockHz, Prescale = prescale, TimerBits = 64, TimestampMethod = TimestampMethod.Custom, JitterS = jitterTicks / clockHz },
