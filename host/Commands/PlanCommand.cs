@@ -468,6 +468,11 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         }
 
         console.Write(gains);
+        foreach (string w in r.Warnings)
+        {
+            console.MarkupLine(Markup.Escape("warning: " + w));
+        }
+
         console.MarkupLine("[grey]the beat note also carries the reference oscillator's drift, its sign depends on the tuning side, and near zero beat the two oscillators pull or lock together.[/]");
         if (r.Depth is not { } d)
         {

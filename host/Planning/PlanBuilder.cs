@@ -22,6 +22,9 @@ public static class PlanBuilder
     /// <summary>Deepest target depth modelled, m.</summary>
     public const double MaxDepthM = 5.0;
 
+    /// <summary>Below this beat note the readout flags near zero beat (its default beat_floor_hz), Hz.</summary>
+    public static double NearZeroBeatHz => new FreqReadout.Readout.ReadoutSettings().BeatFloorHz;
+
     /// <summary>Points on the shift-against-depth curve.</summary>
     public const int CurvePoints = 40;
 
@@ -73,6 +76,22 @@ public static class PlanBuilder
                     Gain = search / beatSigma,
                 });
             }
+        }
+
+        if (inputs.BeatHz < NearZeroBeatHz)
+        {
+            report.Warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"a beat note of {inputs.BeatHz:G4} Hz is below {NearZeroBeatHz:G3} Hz (the readout's default beat_floor_hz): near zero beat the oscillators pull or lock together and the sign of a shift is unclear"));
+        }
+
+        if (prescale > 1 && inputs.Methods.Any(m => m.Input == CaptureKind.Snapshots))
+        {
+            report.Warnings.Add("a prescaler before the pulse counter makes every count a whole divided edge: the reads lose resolution by the division; count the undivided signal where the counter's edge rate allows");
+        }
+
+        if (inputs.Methods.Any(m => m.JitterS == 0))
+        {
+            report.Warnings.Add("a method with jitter 0 has the timer's quantisation alone, which is not white: the real scatter depends on the ratio of signal to clock and may differ from its figure");
         }
 
         if (inputs.Target is { } t)

@@ -30,6 +30,9 @@ public sealed class PlanReport
     /// <summary>Beat note against search oscillator at the chosen gate.</summary>
     public List<BeatGainRow> BeatGains { get; set; } = new();
 
+    /// <summary>Warnings about the inputs as a whole (near zero beat, a prescaler before the pulse counter, quantisation alone).</summary>
+    public List<string> Warnings { get; set; } = new();
+
     /// <summary>Depth answer; null without a target.</summary>
     public PlanDepthReport? Depth { get; set; }
 }
