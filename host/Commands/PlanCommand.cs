@@ -346,6 +346,11 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
                 throw SceneException.Usage("--mu-r and --conductivity describe a target: give --material too");
             }
 
+            if (s.Turns.HasValue || s.DiameterMm.HasValue || s.WireMm.HasValue || s.RadiusMm != 10 || s.HeightMm != 20 || s.SpeedMPerS != 0.3 || s.ThresholdSigma != 5)
+            {
+                throw SceneException.Usage("--turns, --diameter-mm, --wire-mm, --radius-mm, --height-mm, --speed-m-per-s and --threshold-sigma are for the depth answer: give --material too");
+            }
+
             return null;
         }
 

@@ -16,6 +16,7 @@ public class PlanCommandTests
     [InlineData("--custom-jitter-us", "3", "the --custom-* options describe the custom method: add custom to --methods")]
     [InlineData("--signal", "ref", "--signal must be search or beat")]
     [InlineData("--speed-m-per-s", "0", "--speed-m-per-s must be in (0, 20] m/s")]
+    [InlineData("--turns", "30", "are for the depth answer: give --material too")]
     public void A_bad_value_names_its_option_and_what_was_expected(string option, string value, string message)
     {
         string[] args = option == "--speed-m-per-s"
