@@ -137,6 +137,12 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         {
             return CommandOutput.Fail(ex.Message, CommandOutput.BadOption);
         }
+        catch (ArgumentOutOfRangeException ex) when (ex.ParamName == "deltaInductanceH")
+        {
+            return CommandOutput.Fail(
+                $"a {Fmt(settings.RadiusMm)} mm target this close changes the coil's inductance by more than the model allows (dL/L <= -1): " +
+                "the small-dipole model does not hold; give a smaller --radius-mm", CommandOutput.BadOption);
+        }
         catch (ArgumentOutOfRangeException ex)
         {
             string why = ex.Message.Split('\n')[0];
@@ -144,7 +150,18 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
             return CommandOutput.Fail($"the coil cannot be built from --turns, --diameter-mm and --wire-mm given: {(cut > 0 ? why[..cut] : why)}", CommandOutput.BadOption);
         }
 
-        PlanReport report = PlanBuilder.Build(inputs);
+        PlanReport report;
+        try
+        {
+            report = PlanBuilder.Build(inputs);
+        }
+        catch (ArgumentOutOfRangeException ex) when (ex.ParamName == "deltaInductanceH")
+        {
+            return CommandOutput.Fail(
+                $"a {Fmt(settings.RadiusMm)} mm target this close changes the coil's inductance by more than the model allows (dL/L <= -1): " +
+                "the small-dipole model does not hold; give a smaller --radius-mm", CommandOutput.BadOption);
+        }
+
         if (settings.ReportDir != null)
         {
             try

@@ -17,9 +17,10 @@ public class PlanCommandTests
     [InlineData("--signal", "ref", "--signal must be search or beat")]
     [InlineData("--speed-m-per-s", "0", "--speed-m-per-s must be in (0, 20] m/s")]
     [InlineData("--turns", "30", "are for the depth answer: give --material too")]
+    [InlineData("--radius-mm", "1000", "changes the coil's inductance by more than the model allows")]
     public void A_bad_value_names_its_option_and_what_was_expected(string option, string value, string message)
     {
-        string[] args = option == "--speed-m-per-s"
+        string[] args = option is "--speed-m-per-s" or "--radius-mm"
             ? new[] { "plan", "--material", "copper", option, value }
             : new[] { "plan", option, value };
         var (exit, _, error) = ConsoleCapture.Run(args);
