@@ -156,7 +156,7 @@ public static class Program
     }
 
     /// <summary>The top-level command names (commands and branches) in the order they are registered.</summary>
-    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "tune", "import", "record", "bench" };
+    internal static readonly string[] CommandNames = { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "plan", "stability", "tune", "import", "record", "bench" };
 
     /// <summary>The command tree; tests run commands through this too.</summary>
     public static CommandApp BuildApp() => BuildApp(Array.Empty<string>());
@@ -216,6 +216,12 @@ public static class Program
             {
                 config.AddCommand<CoilCommand>("coil")
                     .WithDescription("Search coil figures and a target's expected shift against distance and its ferrous crossover.");
+            }
+
+            if (Wanted("plan"))
+            {
+                config.AddCommand<PlanCommand>("plan")
+                    .WithDescription("Before soldering: predicted resolution, update rate and device load of each timestamp method and estimator, what counting the beat note gains, and how deep a target is seen.");
             }
 
             if (Wanted("stability"))

@@ -97,6 +97,12 @@ public sealed class ExitCodeTests : IDisposable
         Add(ExitCodes.Usage, "coil", "--turns", "0");
         Add(ExitCodes.Usage, "coil", "--scene", "");
 
+        Add(ExitCodes.Ok, "plan", "--gates-s", "0.1");
+        Add(ExitCodes.Usage, "plan", "--search-prescale", "0");
+        Add(ExitCodes.Usage, "plan", "--methods", "sundial");
+        Add(ExitCodes.Usage, "plan", "--report", "");
+        Add(ExitCodes.DataError, "plan", "--gates-s", "0.1", "--report", Path.Combine("/dev/null", "sub"));
+
         Add(ExitCodes.DataError, "demo", "--keep", Path.Combine("/dev/null", "sub"), "--quiet");
         Add(ExitCodes.Usage, "demo", "--keep", "");
         Add(ExitCodes.Usage, "demo", "--no-such-option");

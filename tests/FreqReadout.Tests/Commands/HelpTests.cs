@@ -17,6 +17,7 @@ public class HelpTests
     [InlineData("convert")]
     [InlineData("simulate")]
     [InlineData("coil")]
+    [InlineData("plan")]
     [InlineData("stability")]
     [InlineData("tune")]
     [InlineData("import")]

@@ -172,6 +172,20 @@ public sealed class OutputKeysDocumentedTests : IClassFixture<SimulatedDemoCaptu
     }
 
     [Fact]
+    public void Plan_json_keys_are_the_documented_ones_and_always_present()
+    {
+        var printed = new SortedSet<string>(StringComparer.Ordinal);
+        string bare = Run("plan", "--json", "--gates-s", "0.1");
+        DocTables.AddDocument(bare, printed);
+        DocTables.AddDocument(Run("plan", "--json", "--gates-s", "0.1,1", "--material", "copper", "--radius-mm", "20", "--methods", "pulse-counter,custom", "--custom-jitter-us", "2"), printed);
+        AssertSame("plan --json", DocTables.Keys("json-output.md", "keys: plan"), printed);
+
+        // Not applicable means null, not a missing key.
+        using var noTarget = System.Text.Json.JsonDocument.Parse(bare);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, noTarget.RootElement.GetProperty("depth").ValueKind);
+    }
+
+    [Fact]
     public void Demo_json_keys_are_the_documented_ones_and_its_replay_object_is_replays()
     {
         var printed = new SortedSet<string>(StringComparer.Ordinal);

@@ -26,7 +26,7 @@ public sealed class UnitSpellingTests
         Assert.Single(Offending("`temp 20 C`"));
     }
 
-    public static TheoryData<string> Commands() => new() { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "stability", "tune", "record" };
+    public static TheoryData<string> Commands() => new() { "demo", "count", "replay", "calibrate", "convert", "simulate", "coil", "plan", "stability", "tune", "record" };
 
     [Theory]
     [MemberData(nameof(Commands))]

@@ -1,0 +1,54 @@
+using System.Text.Json;
+using FreqReadout.Host.Commands;
+using FreqReadout.Tests.Commands;
+
+namespace FreqReadout.Tests.Planning;
+
+/// <summary><c>plan</c> from the command line: bad values name the option and what was expected; verdicts and cautions appear where they apply.</summary>
+[Collection(ConsoleCollection.Name)]
+public class PlanCommandTests
+{
+    [Theory]
+    [InlineData("--gates-s", "0.1,x", "--gates-s must be a comma-separated list of gate times in [1e-4, 100] s")]
+    [InlineData("--beat-hz", "200000", "--beat-hz must be in (0, 100000) Hz")]
+    [InlineData("--search-prescale", "0", "--search-prescale must be an integer in [1, 65536]")]
+    [InlineData("--methods", "sundial", "--methods must list pin-event, pulse-counter, edge-capture or custom")]
+    [InlineData("--custom-jitter-us", "3", "the --custom-* options describe the custom method: add custom to --methods")]
+    [InlineData("--signal", "ref", "--signal must be search or beat")]
+    [InlineData("--speed-m-per-s", "0", "--speed-m-per-s must be in (0, 20] m/s")]
+    [InlineData("--turns", "30", "are for the depth answer: give --material too")]
+    [InlineData("--radius-mm", "1000", "changes the coil's inductance by more than the model allows")]
+    public void A_bad_value_names_its_option_and_what_was_expected(string option, string value, string message)
+    {
+        string[] args = option is "--speed-m-per-s" or "--radius-mm"
+            ? new[] { "plan", "--material", "copper", option, value }
+            : new[] { "plan", option, value };
+        var (exit, _, error) = ConsoleCapture.Run(args);
+        Assert.Equal(ExitCodes.Usage, exit);
+        Assert.Contains(message, error);
+    }
+
+    [Fact]
+    public void Undivided_search_oscillator_into_pin_events_is_over_and_warned()
+    {
+        // 100 kHz into a method that takes 2000 edges a second (hardware-notes/timestamp-methods.md presets): over at every
+        // gate, and the warning names the prescaler that would fit: 100000 / 2000 = 50, the next power of two 64.
+        var (exit, stdout, error) = ConsoleCapture.Run("plan", "--methods", "pin-event", "--gates-s", "0.1", "--json");
+        Assert.True(exit == 0, error);
+        using JsonDocument doc = JsonDocument.Parse(stdout);
+        foreach (JsonElement row in doc.RootElement.GetProperty("rows").EnumerateArray())
+        {
+            Assert.Equal("over", row.GetProperty("verdict").GetString());
+            Assert.Contains(row.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("divide by 64 or more", StringComparison.Ordinal));
+        }
+    }
+
+    [Fact]
+    public void The_depth_answer_prints_the_cautions()
+    {
+        var (exit, stdout, error) = ConsoleCapture.Run("plan", "--material", "copper", "--radius-mm", "20", "--gates-s", "0.1");
+        Assert.True(exit == 0, error);
+        Assert.Contains("how deep this target is seen", stdout);
+        Assert.Contains("check utility records and local locating services before digging", stdout.Replace("\n", " ", StringComparison.Ordinal));
+    }
+}
