@@ -110,7 +110,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         public double ThresholdSigma { get; set; } = 5;
 
         [CommandOption("--report <DIR>")]
-        [Description("Also write the plots (resolution.png/.svg: resolution against gate per method; depth.png/.svg with a target: shift against depth with the thresholds) into DIR, created when missing. Default: no plots.")]
+        [Description("Also write the plots (resolution.png/.svg: resolution against gate per method; depth.png/.svg with a target: shift against depth with the thresholds) and report.html, one self-contained page with the tables and the plots, into DIR, created when missing. Default: no report.")]
         [FilePath]
         public string? ReportDir { get; set; }
 
@@ -166,9 +166,14 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         {
             try
             {
-                Directory.CreateDirectory(settings.ReportDir);
+                if (!FreqReadout.Host.Reports.ReportFolder.TryCreate(settings.ReportDir, out string? folderError))
+                {
+                    return CommandOutput.Fail(folderError!, CommandOutput.BadInput);
+                }
+
                 IReadOnlyList<string> files = new FreqReadout.Host.Reports.PlanPlots().Write(settings.ReportDir, report);
-                CommandOutput.Diagnostic($"plan: wrote {files.Count} plot files into {settings.ReportDir}");
+                string page = FreqReadout.Host.Reports.PlanReportPage.Write(settings.ReportDir, report, files);
+                CommandOutput.Diagnostic($"plan: wrote {files.Count} plot files and {Path.GetFileName(page)} into {settings.ReportDir}");
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -187,7 +192,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
     }
 
     /// <summary>A short number for the tables: plain digits from 0.001 to 1e6, three significant digits, else exponent form.</summary>
-    private static string Num(double v)
+    internal static string Num(double v)
     {
         var ci = CultureInfo.InvariantCulture;
         double a = Math.Abs(v);

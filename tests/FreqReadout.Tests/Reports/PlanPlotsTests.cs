@@ -22,7 +22,7 @@ public sealed class PlanPlotsTests
         {
             var (exit, _, error) = ConsoleCapture.Run("plan", "--material", "copper", "--radius-mm", "20", "--search-prescale", "64", "--report", dir, "--json");
             Assert.True(exit == 0, error);
-            Assert.Contains("wrote 4 plot files", error);
+            Assert.Contains("wrote 4 plot files and report.html", error);
             var expected = new Dictionary<string, string[]>
             {
                 ["resolution"] = new[] { PlanPlots.ResolutionTitle, "gate time (s)", "resolution, 1 sigma (Hz)", "pin-event, reciprocal", "pulse-counter, snapshot-regression", "edge-capture, regression" },

@@ -152,4 +152,37 @@ public sealed class ReportPageTests : IClassFixture<SimulatedDemoCapture>
         Assert.Equal(expected.RootElement.GetProperty("edges").GetInt64().ToString(CultureInfo.InvariantCulture), ReportPageChecks.SummaryValue(doc, "edges"));
         ReportPageChecks.AssertCautions(doc);
     }
+
+    [Fact]
+    public void Plan_page_holds_the_resolution_beat_gain_and_depth_tables_and_both_plots()
+    {
+        string dir = Path.Combine(_sim.Dir, "page-plan");
+        var (exit, json, error) = ConsoleCapture.Run("plan", "--material", "copper", "--radius-mm", "20", "--search-prescale", "64", "--report", dir, "--json");
+        Assert.True(exit == 0, error);
+        Assert.Contains("wrote 4 plot files and report.html", error);
+        using JsonDocument expected = JsonDocument.Parse(json);
+        IDocument doc = ReportPageChecks.Parse(Path.Combine(dir, "report.html"));
+        Assert.Equal("FreqReadout plan: counting the search oscillator", doc.Title);
+        ReportPageChecks.AssertSelfContained(doc);
+        ReportPageChecks.AssertImagesDecode(doc, 2, ReplayPlots.Width, ReplayPlots.Height);
+
+        // One row per method, estimator and gate, in the order and with the verdicts of --json.
+        (string[] headers, string[][] rows) = ReportPageChecks.Table(doc, "predicted-resolution-and-device-load");
+        Assert.Equal(new[] { "method", "estimator", "gate s", "Hz", "ppm", "updates/s", "edges or reads/s", "% of 1 M op/s", "% of 5 M op/s", "verdict" }, headers);
+        JsonElement[] expectedRows = expected.RootElement.GetProperty("rows").EnumerateArray().ToArray();
+        Assert.Equal(expectedRows.Length, rows.Length);
+        for (int i = 0; i < rows.Length; i++)
+        {
+            Assert.Equal(expectedRows[i].GetProperty("method").GetString(), rows[i][0]);
+            Assert.Equal(expectedRows[i].GetProperty("verdict").GetString(), rows[i][9]);
+            double hz = expectedRows[i].GetProperty("resolution_hz").GetDouble();
+            Assert.Equal(hz, double.Parse(rows[i][3], CultureInfo.InvariantCulture), Math.Abs(hz) * 0.01); // three significant digits
+        }
+
+        (_, string[][] depth) = ReportPageChecks.Table(doc, "how-deep-this-target-is-seen");
+        JsonElement[] expectedDepth = expected.RootElement.GetProperty("depth").GetProperty("rows").EnumerateArray().ToArray();
+        Assert.Equal(expectedDepth.Length, depth.Length);
+        Assert.Equal(expected.RootElement.GetProperty("beat_gains").GetArrayLength(), ReportPageChecks.Table(doc, "what-counting-the-beat-note-gains").Rows.Length);
+        ReportPageChecks.AssertCautions(doc);
+    }
 }
