@@ -19,6 +19,7 @@ public sealed class CaptureRowBatch
         Counts = new ulong[capacity];
         LineNumbers = new long[capacity];
         TemperaturesC = new double[capacity];
+        Array.Fill(TemperaturesC, double.NaN);
         Marks = new string?[capacity];
     }
 
@@ -31,10 +32,10 @@ public sealed class CaptureRowBatch
     /// <summary>1-based line (text) or record ordinal (binary) of each row, for messages.</summary>
     public long[] LineNumbers { get; }
 
-    /// <summary>A new temperature sample, deg C, or NaN for none (valid only where <see cref="HasExtras"/> is true).</summary>
+    /// <summary>A new temperature sample, deg C, or NaN for none (NaN in every row of a batch without extras).</summary>
     public double[] TemperaturesC { get; }
 
-    /// <summary>A mark, or null (valid only where <see cref="HasExtras"/> is true).</summary>
+    /// <summary>A mark, or null (null in every row of a batch without extras).</summary>
     public string?[] Marks { get; }
 
     /// <summary>Rows in the batch.</summary>
@@ -54,7 +55,9 @@ public sealed class CaptureRowBatch
     {
         if (HasExtras)
         {
+            // Only rows with extras write these two arrays: between such batches they stay NaN and null.
             Array.Clear(Marks, 0, Count);
+            Array.Fill(TemperaturesC, double.NaN, 0, Count);
         }
 
         Count = 0;
@@ -68,9 +71,18 @@ public sealed class CaptureRowBatch
         Ticks[i] = tick;
         Counts[i] = count;
         LineNumbers[i] = lineNumber;
-        TemperaturesC[i] = double.NaN;
-        Marks[i] = null;
         Count = i + 1;
+    }
+
+    /// <summary>
+    /// Takes rows [<see cref="Count"/>, <paramref name="count"/>) as bare rows that a reader wrote straight into
+    /// <see cref="Ticks"/>, <see cref="Counts"/> and <see cref="LineNumbers"/> (no temperature, no mark).
+    /// </summary>
+    public void CommitBareRows(int count)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(count, Count);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(count, Capacity);
+        Count = count;
     }
 
     /// <summary>Appends a row as a reader made it; the caller checks <see cref="IsFull"/> first.</summary>

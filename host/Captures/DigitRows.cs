@@ -48,17 +48,7 @@ internal static class DigitRows
             return digits == 0 ? NotARow(out value) : TryReadByDigit(bytes, start, out value);
         }
 
-        ulong first = Unsafe.ReadUnaligned<ulong>(ref at) - Zeros;
-        if (digits <= 8)
-        {
-            // Bytes past the row (and any borrow from them) move out of the word; zeros come in as leading digits.
-            value = Eight(first << (8 * (8 - digits)));
-        }
-        else
-        {
-            ulong second = Unsafe.ReadUnaligned<ulong>(ref Unsafe.Add(ref at, 8)) - Zeros;
-            value = (Eight(first) * PowersOfTen[digits - 8]) + Eight(second << (8 * (16 - digits)));
-        }
+        value = Value(ref at, digits);
 
         byte end = Unsafe.Add(ref at, digits);
         if (end == (byte)'\n')
@@ -67,6 +57,125 @@ internal static class DigitRows
         }
 
         return end == (byte)'\r' && Unsafe.Add(ref at, digits + 1) == (byte)'\n' ? digits + 2 : NotARow(out value);
+    }
+
+    /// <summary>Bytes <see cref="ReadRun"/> looks at in one step (and it needs <see cref="ReadableBytes"/> more readable).</summary>
+    public const int WindowBytes = 64;
+
+    /// <summary>
+    /// Reads a run of plain rows — 1 to 15 digits, then "\n" — from <paramref name="position"/> into the batch, without
+    /// a scan per row: each 64-byte window is classified at once (a bit mask of its line ends and one of its other
+    /// non-digit bytes), and every row that ends in the window before any other character is parsed from its start and
+    /// length, so no row waits for the one before it. Stops at the first line that is not such a row (CRLF, blank,
+    /// comment, longer, a value over <paramref name="limit"/>), when the batch is full, or when fewer than
+    /// <see cref="WindowBytes"/> + <see cref="ReadableBytes"/> bytes remain; <paramref name="position"/> is then the start
+    /// of the first line not read, for <see cref="TryRead"/> and the line parser. Rows read are those <see cref="TryRead"/>
+    /// would read, with the same values.
+    /// </summary>
+    /// <param name="bytes">The buffer.</param>
+    /// <param name="position">Start of a line; moved past the rows read.</param>
+    /// <param name="end">One past the last valid byte.</param>
+    /// <param name="limit">Largest value a row may have (the timer's).</param>
+    /// <param name="batch">Rows are appended as bare rows (tick, count 0, line number).</param>
+    /// <param name="line">Line number of the last line read; advanced by one per row.</param>
+    /// <returns>Rows read.</returns>
+    public static int ReadRun(byte[] bytes, ref int position, int end, ulong limit, CaptureRowBatch batch, ref long line)
+    {
+        if (!BitConverter.IsLittleEndian || end > bytes.Length)
+        {
+            return 0;
+        }
+
+        ulong[] ticks = batch.Ticks;
+        ulong[] counts = batch.Counts;
+        long[] lines = batch.LineNumbers;
+        int n = batch.Count;
+        int first = n;
+        int capacity = ticks.Length;
+        int p = position;
+        long number = line;
+        Vector128<byte> zero = Vector128.Create((byte)'0');
+        Vector128<byte> nine = Vector128.Create((byte)9);
+        Vector128<byte> lf = Vector128.Create((byte)'\n');
+        while (n < capacity && end - p >= WindowBytes + ReadableBytes)
+        {
+            ref byte window = ref bytes[p];
+            ulong lineEnds = 0;
+            ulong other = 0;
+            for (int k = 0; k < WindowBytes; k += 16)
+            {
+                Vector128<byte> text = Vector128.LoadUnsafe(ref Unsafe.Add(ref window, k));
+                lineEnds |= (ulong)Vector128.Equals(text, lf).ExtractMostSignificantBits() << k;
+                other |= (ulong)Vector128.GreaterThan(text - zero, nine).ExtractMostSignificantBits() << k;
+            }
+
+            other &= ~lineEnds;
+            if (other != 0)
+            {
+                lineEnds &= (other & (0UL - other)) - 1; // only the line ends before the first other character
+            }
+
+            if (lineEnds == 0)
+            {
+                break; // the line at p is not a plain row, or is longer than the window: the caller's
+            }
+
+            int rowStart = 0;
+            while (lineEnds != 0)
+            {
+                int lineEnd = BitOperations.TrailingZeroCount(lineEnds);
+                int digits = lineEnd - rowStart;
+                if ((uint)(digits - 1) >= 15u)
+                {
+                    goto Stop; // blank, or 16 digits and more
+                }
+
+                ulong value = Value(ref Unsafe.Add(ref window, rowStart), digits);
+                if (value > limit)
+                {
+                    goto Stop;
+                }
+
+                number++;
+                ticks[n] = value;
+                counts[n] = 0;
+                lines[n] = number;
+                n++;
+                rowStart = lineEnd + 1;
+                if (n == capacity)
+                {
+                    goto Stop;
+                }
+
+                lineEnds &= lineEnds - 1;
+            }
+
+            p += rowStart;
+            continue;
+
+        Stop:
+            p += rowStart;
+            break;
+        }
+
+        position = p;
+        line = number;
+        batch.CommitBareRows(n);
+        return n - first;
+    }
+
+    /// <summary>The value of <paramref name="digits"/> (1-15) ASCII digits at <paramref name="at"/>; 16 bytes from it are read.</summary>
+    private static ulong Value(ref byte at, int digits)
+    {
+        ulong first = Unsafe.ReadUnaligned<ulong>(ref at) - Zeros;
+        if (digits <= 8)
+        {
+            // Bytes past the row (and any borrow from them) move out of the word; zeros come in as leading digits.
+            return Eight(first << (8 * (8 - digits)));
+        }
+
+        ulong second = Unsafe.ReadUnaligned<ulong>(ref Unsafe.Add(ref at, 8)) - Zeros;
+        return (Eight(first) * PowersOfTen[digits - 8]) + Eight(second << (8 * (16 - digits)));
     }
 
     /// <summary>The same row read one digit at a time (rows of 16-19 digits, and the reference the tests compare with).</summary>

@@ -208,8 +208,21 @@ public sealed class TextCaptureReader : ICaptureBatchReader
                 long line = _lineNumber;
                 ulong limit = _tickLimit;
                 int before = batch.Count;
+                int rowsBeforeRun = 0;
                 while (!batch.IsFull && end - p >= FastRowMaxBytes)
                 {
+                    if (!checkOrder && rowsBeforeRun-- <= 0)
+                    {
+                        // Runs of LF rows of up to 15 digits, 64 bytes at a time; after a window with none (CRLF
+                        // rows, longer ones), a few rows one at a time before the next try.
+                        if (DigitRows.ReadRun(b, ref p, end, limit, batch, ref line) > 0)
+                        {
+                            continue;
+                        }
+
+                        rowsBeforeRun = 32;
+                    }
+
                     // A row is 1-19 digits then "\n" or "\r\n": no overflow, no other character, no blank line.
                     int taken = DigitRows.TryRead(b, p, out ulong value);
                     if (taken == 0 || value > limit)

@@ -107,6 +107,29 @@ public class CaptureReadingBenchmarks
     [Benchmark(OperationsPerInvoke = Rows)]
     public ulong DigitRowsParsedByDigit() => SumDigitRows(vector: false);
 
+    /// <summary>The same rows read in runs (<see cref="DigitRows.ReadRun"/>, 64 bytes at a time) into a reused batch.</summary>
+    [Benchmark(OperationsPerInvoke = Rows)]
+    public ulong DigitRowsReadInRuns()
+    {
+        byte[] text = _text;
+        int p = Encoding.ASCII.GetBytes("# freqreadout capture 1\n# clock_hz = 80000000\n# timer_bits = 32\n# search_hz = 100000\ntick\n").Length;
+        var batch = _runBatch;
+        long line = 5;
+        ulong sum = 0;
+        while (true)
+        {
+            batch.Clear();
+            if (DigitRows.ReadRun(text, ref p, text.Length, ulong.MaxValue, batch, ref line) == 0)
+            {
+                return sum;
+            }
+
+            sum += batch.Ticks[batch.Count - 1];
+        }
+    }
+
+    private readonly CaptureRowBatch _runBatch = new();
+
     private ulong SumDigitRows(bool vector)
     {
         byte[] text = _text;

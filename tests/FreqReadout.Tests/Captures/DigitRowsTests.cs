@@ -86,6 +86,85 @@ public sealed class DigitRowsTests
         Assert.Equal(0, DigitRows.TryRead(Encoding.ASCII.GetBytes("123456"), 0, out _));
     }
 
+    [Fact]
+    public void A_run_reads_exactly_the_rows_that_one_at_a_time_reads()
+    {
+        // Random texts of plain rows with now and then a row the run must leave alone (CRLF, blank, 16-19 digits, a
+        // value over the limit, a comment, a letter): reading with runs and single rows, as the text reader does, gives
+        // the same rows, line numbers and end position as single rows alone, in batches of every size.
+        var random = new Random(424242);
+        const ulong limit = 99_999_999_999UL;
+        for (int n = 0; n < 400; n++)
+        {
+            var text = new StringBuilder();
+            int rows = random.Next(1, 400);
+            for (int r = 0; r < rows; r++)
+            {
+                int kind = random.Next(100);
+                string digits = new string(Enumerable.Range(0, random.Next(1, 12)).Select(_ => (char)('0' + random.Next(10))).ToArray());
+                text.Append(kind switch
+                {
+                    0 => digits + "\r\n",
+                    1 => "\n",
+                    2 => "1234567890123456" + digits[..Math.Min(3, digits.Length)] + "\n",
+                    3 => "999999999999\n", // over the limit
+                    4 => "# note\n",
+                    5 => digits + "x\n",
+                    _ => digits + "\n",
+                });
+            }
+
+            byte[] bytes = Encoding.ASCII.GetBytes(text.ToString());
+            int capacity = random.Next(1, 300);
+            Assert.Equal(ReadAll(bytes, limit, capacity, runs: false), ReadAll(bytes, limit, capacity, runs: true));
+        }
+    }
+
+    /// <summary>The reader's loop: runs (when asked) and single rows until a line neither takes; rows as "line:value" and the end.</summary>
+    private static string ReadAll(byte[] bytes, ulong limit, int capacity, bool runs)
+    {
+        var batch = new CaptureRowBatch(capacity);
+        var got = new StringBuilder();
+        int p = 0;
+        long line = 0;
+        int end = bytes.Length;
+        while (end - p >= DigitRows.ReadableBytes)
+        {
+            batch.Clear();
+            while (!batch.IsFull && end - p >= DigitRows.ReadableBytes)
+            {
+                if (runs && DigitRows.ReadRun(bytes, ref p, end, limit, batch, ref line) > 0)
+                {
+                    continue;
+                }
+
+                int taken = DigitRows.TryRead(bytes, p, out ulong value);
+                if (taken == 0 || value > limit)
+                {
+                    goto Done;
+                }
+
+                line++;
+                batch.AddTick(value, 0, line);
+                p += taken;
+            }
+
+        Done:
+            for (int i = 0; i < batch.Count; i++)
+            {
+                Assert.Equal(0UL, batch.Counts[i]);
+                got.Append(batch.LineNumbers[i]).Append(':').Append(batch.Ticks[i]).Append(' ');
+            }
+
+            if (!batch.IsFull)
+            {
+                break;
+            }
+        }
+
+        return got.Append("end ").Append(p).ToString();
+    }
+
     /// <summary>The row followed by filler, so that <see cref="DigitRows.ReadableBytes"/> bytes are readable.</summary>
     private static byte[] Padded(string row, Random? random = null)
     {
