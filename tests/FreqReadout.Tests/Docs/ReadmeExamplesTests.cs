@@ -72,8 +72,13 @@ public class ReadmeExamplesTests
                 // --report DIR: the page and its plots (Reports/ReportPageTests checks what they hold).
                 foreach (string a in args.Where((a, i) => i > 0 && args[i - 1] == "--report"))
                 {
-                    string[] written = new[] { "report.html" }.Concat((args[0] == "stability" ? new[] { "deviation" } : new[] { "frequency", "shift", "noise" })
-                        .SelectMany(p => new[] { p + ".png", p + ".svg" })).ToArray();
+                    string[] plots = args[0] switch
+                    {
+                        "stability" => new[] { "deviation" },
+                        "plan" => args.Contains("--material") ? new[] { "resolution", "depth" } : new[] { "resolution" },
+                        _ => new[] { "frequency", "shift", "noise" },
+                    };
+                    string[] written = new[] { "report.html" }.Concat(plots.SelectMany(p => new[] { p + ".png", p + ".svg" })).ToArray();
                     Assert.All(written, f => Assert.True(new FileInfo(Path.Combine(dir, a, f)).Length > 0, shown + " did not write " + Path.Combine(a, f)));
                 }
             }
