@@ -2,7 +2,7 @@ namespace FreqReadout.Numerics
 {
     /// <summary>
     /// Median and median absolute deviation on caller-supplied arrays (no allocation; the caller owns
-    /// the scratch space). Order statistics come from an in-place selection (<see cref="SelectInPlace"/>):
+    /// the scratch space). Order statistics come from an in-place selection (<see cref="SelectInPlace(double[], int, int)"/>):
     /// expected O(n), at worst O(n log n), never the O(n^2) of a sort by insertion, so the gate that
     /// completes a baseline capture stays within the device budget.
     /// </summary>

@@ -1,5 +1,4 @@
 using FreqReadout.Link;
-using FreqReadout.Link;
 
 namespace FreqReadout.Tests.Link;
 

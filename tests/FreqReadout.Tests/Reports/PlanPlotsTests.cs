@@ -30,29 +30,7 @@ public sealed class PlanPlotsTests
             };
             foreach ((string name, string[] texts) in expected)
             {
-                using (SKBitmap png = SKBitmap.Decode(Path.Combine(dir, name + ".png")))
-                {
-                    Assert.NotNull(png);
-                    Assert.Equal(ReplayPlots.Width, png.Width);
-                    Assert.Equal(ReplayPlots.Height, png.Height);
-                    int traced = 0;
-                    for (int x = png.Width / 10; x < png.Width * 3 / 4; x++)
-                    {
-                        for (int y = png.Height / 10; y < png.Height * 9 / 10; y++)
-                        {
-                            SKColor c = png.GetPixel(x, y);
-                            traced += c.Red + c.Green + c.Blue < 3 * 200 ? 1 : 0;
-                        }
-                    }
-
-                    Assert.True(traced > 500, $"{name}.png: only {traced} traced pixels in the plot area");
-                }
-
-                XDocument svg = XDocument.Load(Path.Combine(dir, name + ".svg"));
-                Assert.Equal(ReplayPlots.Width.ToString(), svg.Root!.Attribute("width")!.Value);
-                Assert.Equal(ReplayPlots.Height.ToString(), svg.Root.Attribute("height")!.Value);
-                string allText = string.Join("\n", svg.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value));
-                Assert.All(texts, t => Assert.Contains(t, allText));
+                PlotFileChecks.AssertPlot(dir, name, texts, 0.1, 0.75, 500);
             }
         }
         finally

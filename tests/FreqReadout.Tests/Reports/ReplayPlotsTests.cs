@@ -37,30 +37,8 @@ public sealed class ReplayPlotsTests : IClassFixture<SimulatedDemoCapture>
         };
         foreach ((string name, string[] texts) in expected)
         {
-            using (SKBitmap png = SKBitmap.Decode(Path.Combine(dir, name + ".png")))
-            {
-                Assert.NotNull(png);
-                Assert.Equal(ReplayPlots.Width, png.Width);
-                Assert.Equal(ReplayPlots.Height, png.Height);
-                // The plot area (inside the axes' margins) holds more than background and grid: pixels of the traces.
-                int traced = 0;
-                for (int x = png.Width / 4; x < png.Width * 9 / 10; x++)    // right of the legend box
-                {
-                    for (int y = png.Height / 10; y < png.Height * 9 / 10; y++)
-                    {
-                        SKColor c = png.GetPixel(x, y);
-                        traced += c.Red + c.Green + c.Blue < 3 * 200 ? 1 : 0;
-                    }
-                }
-
-                Assert.True(traced > 1000, $"{name}.png: only {traced} traced pixels in the plot area");
-            }
-
-            XDocument svg = XDocument.Load(Path.Combine(dir, name + ".svg"));
-            Assert.Equal(ReplayPlots.Width.ToString(), svg.Root!.Attribute("width")!.Value);
-            Assert.Equal(ReplayPlots.Height.ToString(), svg.Root.Attribute("height")!.Value);
-            string allText = string.Join("\n", svg.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value));
-            Assert.All(texts, t => Assert.Contains(t, allText));
+            // The plot area right of the legend box holds more than background and grid: pixels of the traces.
+            PlotFileChecks.AssertPlot(dir, name, texts, 0.25, 0.9, 1000);
         }
     }
 

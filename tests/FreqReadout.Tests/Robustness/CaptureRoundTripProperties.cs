@@ -76,7 +76,7 @@ public sealed class CaptureRoundTripProperties
         from startHi in Gen.Choose(0, int.MaxValue)
         from startLo in Gen.Choose(0, int.MaxValue)
         from parts in Gen.ListOf(RowGen())
-        select MakeCase(md, ((ulong)startHi << 31) | (ulong)startLo, parts);
+        select MakeCase(md, ((ulong)startHi << 31) | (uint)startLo, parts);
 
     private static CaptureCase MakeCase(CaptureMetadata md, ulong start, IEnumerable<(int Step, int CountStep, int? TempMilli, int? Mark)> parts)
     {
