@@ -51,4 +51,19 @@ public class PlanCommandTests
         Assert.Contains("how deep this target is seen", stdout);
         Assert.Contains("check utility records and local locating services before digging", stdout.Replace("\n", " ", StringComparison.Ordinal));
     }
+
+    [Theory]
+    [InlineData("plan --material copper --radius-mm 20 --gates-s 0.1 --json")]
+    [InlineData("coil --material copper --radius-mm 12 --json")]
+    [InlineData("demo --json --quiet")]
+    public void With_json_the_caution_goes_to_stderr(string commandLine)
+    {
+        // docs/json-output.md: "With --json, standard output holds only JSON; warnings, the caution text and errors go to
+        // standard error" (replay --json does so; these printed none before).
+        var (exit, stdout, error) = ConsoleCapture.Run(commandLine.Split(' '));
+        Assert.True(exit == 0, error);
+        using JsonDocument doc = JsonDocument.Parse(stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Single());
+        Assert.Contains("verify with an approved voltage tester before drilling or cutting", error);
+        Assert.DoesNotContain("voltage tester", stdout);
+    }
 }
