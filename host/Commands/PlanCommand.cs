@@ -487,7 +487,8 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
                 {
                     PlanRow worst = group.OrderByDescending(x => x.BudgetPctAtLowRate).First();
                     string gates = string.Join(", ", group.Select(x => Num(x.GateS)));
-                    console.MarkupLine(Markup.Escape($"{(group.Key == "ok" ? "note" : "warning")}: gate {gates} s: {string.Join("; ", worst.Warnings)}"));
+                    string which = group.Count() > 1 ? $" (figures of the worst, {Num(worst.GateS)} s)" : string.Empty;
+                    console.MarkupLine(Markup.Escape($"{(group.Key == "ok" ? "note" : "warning")}: gate {gates} s{which}: {string.Join("; ", worst.Warnings)}"));
                 }
             }
         }

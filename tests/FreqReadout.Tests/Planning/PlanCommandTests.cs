@@ -66,4 +66,22 @@ public class PlanCommandTests
         Assert.Contains("verify with an approved voltage tester before drilling or cutting", error);
         Assert.DoesNotContain("voltage tester", stdout);
     }
+
+    [Fact]
+    public void A_warning_for_several_gates_says_its_figures_are_the_worst_gate_s()
+    {
+        // Beat note 1000 Hz into pin events: every gate is tight, with the device share falling as the gate grows (the same
+        // run's --json rows are the expected values). One warning line covers the gates, so it must say whose figure it shows.
+        string[] args = { "plan", "--signal", "beat", "--methods", "pin-event", "--gates-s", "0.03,1" };
+        var (exit, text, error) = ConsoleCapture.Run(args);
+        Assert.True(exit == 0, error);
+        var (_, json, _) = ConsoleCapture.Run(args.Append("--json").ToArray());
+        using JsonDocument doc = JsonDocument.Parse(json);
+        JsonElement[] rows = doc.RootElement.GetProperty("rows").EnumerateArray().Where(r => r.GetProperty("estimator").GetString() == "reciprocal").ToArray();
+        Assert.All(rows, r => Assert.Equal("tight", r.GetProperty("verdict").GetString()));
+        JsonElement worst = rows.OrderByDescending(r => r.GetProperty("budget_pct_at_low_rate").GetDouble()).First();
+        Assert.Equal(0.03, worst.GetProperty("gate_s").GetDouble());
+        static string Flat(string s) => System.Text.RegularExpressions.Regex.Replace(s, @"\s+", " ");
+        Assert.Contains(Flat($"gate 0.0300, 1.00 s (figures of the worst, 0.0300 s): {worst.GetProperty("warnings")[0].GetString()}"), Flat(text));
+    }
 }
