@@ -271,6 +271,11 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
                 throw SceneException.Usage($"--gates-s must be a comma-separated list of gate times in [1e-4, 100] s (got {OptionValues.Quote(part)})");
             }
 
+            if (gates.Contains(g))
+            {
+                throw SceneException.Usage($"--gates-s names {Fmt(g)} s twice"); // as --methods: a repeated gate only repeats rows
+            }
+
             gates.Add(g);
         }
 

@@ -10,6 +10,7 @@ public class PlanCommandTests
 {
     [Theory]
     [InlineData("--gates-s", "0.1,x", "--gates-s must be a comma-separated list of gate times in [1e-4, 100] s")]
+    [InlineData("--gates-s", "0.1,0.3,0.10", "--gates-s names 0.1 s twice")]
     [InlineData("--beat-hz", "200000", "--beat-hz must be in (0, 100000) Hz")]
     [InlineData("--search-prescale", "0", "--search-prescale must be an integer in [1, 65536]")]
     [InlineData("--methods", "sundial", "--methods must list pin-event, pulse-counter, edge-capture or custom")]
