@@ -111,6 +111,11 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         if (settings.Json)
         {
             Console.Out.WriteLine(JsonSerializer.Serialize(report, CompactOptions));
+            if (report.Target != null)
+            {
+                CommandOutput.Diagnostic(PlanCommand.DepthCaution); // docs/json-output.md: with --json the caution goes to stderr
+            }
+
             return 0;
         }
 
@@ -341,6 +346,6 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
             console.MarkupLine("* closer than about 10 target radii: the small-dipole model is stretched there, figures approximate");
         }
 
-        console.MarkupLine("[grey]A small or absent shift is not proof that nothing is there: isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local codes and licensed practice.[/]");
+        console.MarkupLine("[grey]" + Markup.Escape(PlanCommand.DepthCaution) + "[/]");
     }
 }

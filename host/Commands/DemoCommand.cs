@@ -114,6 +114,7 @@ public sealed class DemoCommand : Command<DemoCommand.Settings>
         if (settings.Json)
         {
             Console.Out.WriteLine(ToJson(result));
+            CommandOutput.Diagnostic(ReplayCommand.Caution); // as replay --json: the caution on stderr
         }
         else
         {

@@ -23,11 +23,11 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
         public string Input { get; set; } = string.Empty;
 
         [CommandOption("--signal <NAME>")]
-        [Description("The signal whose rising edges become the capture: its full name (top.probe.clk) or a short name that is unique (clk); a bit of a vector as data[[3]].")]
+        [Description("The signal whose rising edges become the capture: its full name (top.probe.clk) or a short name that is unique (clk); a bit of a vector as data[[3]]. Required.")]
         public string? Signal { get; set; }
 
         [CommandOption("--out <CAPTURE>")]
-        [Description("The capture to write (text; an existing file is replaced only when the import succeeds).")]
+        [Description("The capture to write (text; an existing file is replaced only when the import succeeds). Required.")]
         [FilePath]
         public string? Out { get; set; }
 

@@ -28,7 +28,7 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
         public string Input { get; set; } = string.Empty;
 
         [CommandOption("--beat-side <SIDE>")]
-        [Description("above or below: where the search oscillator is tuned against the reference (the sign of a shift depends on it).")]
+        [Description("above or below: where the search oscillator is tuned against the reference (the sign of a shift depends on it). Required.")]
         public string? BeatSide { get; set; }
 
         [CommandOption("--channel <N>")]
@@ -36,11 +36,11 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
         public int? Channel { get; set; }
 
         [CommandOption("--search-hz <HZ>")]
-        [Description("Nominal search-oscillator frequency, Hz, for shifts in ppm (optional).")]
+        [Description("Nominal search-oscillator frequency, Hz, (0, 1e9]], written as the capture's search_hz for shifts in ppm. Default: none (the capture has no search_hz).")]
         public double? SearchHz { get; set; }
 
         [CommandOption("--out <CAPTURE>")]
-        [Description("The capture to write (text; an existing file is replaced only when the import succeeds).")]
+        [Description("The capture to write (text; an existing file is replaced only when the import succeeds). Required.")]
         [FilePath]
         public string? Out { get; set; }
 

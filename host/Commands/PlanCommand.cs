@@ -184,12 +184,22 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         if (settings.Json)
         {
             Console.Out.WriteLine(JsonSerializer.Serialize(report, CompactOptions));
+            if (report.Depth != null)
+            {
+                CommandOutput.Diagnostic(DepthCaution); // docs/json-output.md: with --json the caution goes to stderr
+            }
+
             return 0;
         }
 
         Print(report);
         return 0;
     }
+
+    /// <summary>The caution shown with a depth answer (on stdout, or on stderr with --json).</summary>
+    internal const string DepthCaution =
+        "A small or absent shift is not proof that nothing is there: isolate circuits and verify with an approved voltage tester before drilling or cutting; " +
+        "check utility records and local locating services before digging; follow local codes and licensed practice.";
 
     /// <summary>A short number for the tables: plain digits from 0.001 to 1e6, three significant digits, else exponent form.</summary>
     internal static string Num(double v)
@@ -259,6 +269,11 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
             if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out double g) || !(g >= 1e-4 && g <= 100))
             {
                 throw SceneException.Usage($"--gates-s must be a comma-separated list of gate times in [1e-4, 100] s (got {OptionValues.Quote(part)})");
+            }
+
+            if (gates.Contains(g))
+            {
+                throw SceneException.Usage($"--gates-s names {Fmt(g)} s twice"); // as --methods: a repeated gate only repeats rows
             }
 
             gates.Add(g);
@@ -477,7 +492,8 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
                 {
                     PlanRow worst = group.OrderByDescending(x => x.BudgetPctAtLowRate).First();
                     string gates = string.Join(", ", group.Select(x => Num(x.GateS)));
-                    console.MarkupLine(Markup.Escape($"{(group.Key == "ok" ? "note" : "warning")}: gate {gates} s: {string.Join("; ", worst.Warnings)}"));
+                    string which = group.Count() > 1 ? $" (figures of the worst, {Num(worst.GateS)} s)" : string.Empty;
+                    console.MarkupLine(Markup.Escape($"{(group.Key == "ok" ? "note" : "warning")}: gate {gates} s{which}: {string.Join("; ", worst.Warnings)}"));
                 }
             }
         }
@@ -532,6 +548,6 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         }
 
         console.MarkupLine("[grey]none: not seen even 1.5 radii down; >: still seen at the deepest depth modelled. Depth of the target centre below the surface, target on the sweep line, the largest gate reading of a pass averaged over where the gate boundaries fall. The oscillator's own noise and drift are not in these figures (measure them with stability), and the readout's tracked noise rises when passes over a target just below the threshold count as noise, so a target near the limit reads a little shallower. A model, not a promise: soil, orientation and shape change it.[/]");
-        console.MarkupLine("[grey]A small or absent shift is not proof that nothing is there: isolate circuits and verify with an approved voltage tester before drilling or cutting; check utility records and local locating services before digging; follow local codes and licensed practice.[/]");
+        console.MarkupLine("[grey]" + Markup.Escape(DepthCaution) + "[/]");
     }
 }

@@ -105,7 +105,9 @@ public sealed class ToneEdges
         double typical = sorted[sorted.Length / 2];
         for (int w = 0; w < windows; w++)
         {
-            if (why[w] == null && rms[w] < 0.1 * typical)
+            // A window far quieter than the typical one is silence whatever its spectrum: in digital silence (all zeros)
+            // or a noise floor every bin is alike, which the second-tone test would otherwise call "a second tone".
+            if (why[w] != "clipping" && rms[w] < 0.1 * typical)
             {
                 why[w] = "silence";
             }

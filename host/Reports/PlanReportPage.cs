@@ -71,7 +71,8 @@ public static class PlanReportPage
                 Text($"A {d.Material} sphere of radius {d.RadiusM * 1000:0.#} mm ({d.SignRuleClass} by the sign rule) passed straight under a {d.CoilDiameterM * 1000:0} mm coil {d.HeightM * 1000:0} mm above the surface at {d.SpeedMPerS:G3} m/s, seen where the largest gate reading of a pass ({d.GateS:G3} s gates) reaches {d.ThresholdSigma:G3} x the gate noise. none: not seen even 1.5 radii down; >: still seen at the deepest depth modelled; *: the gate is longer than half the pass, so the peak is smeared. A model, not a promise: soil, orientation and shape change it."));
         }
 
-        var notes = report.Rows.SelectMany(r => r.Warnings).Concat(report.Warnings).Distinct().ToList();
+        // Each row's warning with the row it is about, as plan's console output names the gates (a bare "needs 170 %" says nothing on its own).
+        var notes = report.Rows.SelectMany(r => r.Warnings.Select(w => Text($"{r.Method}, {r.Estimator}, gate {Num(r.GateS)} s: {w}"))).Concat(report.Warnings).ToList();
         page.AddText("Notes", notes.Count > 0 ? notes.ToArray() : new[] { "none" });
 
         var inputs = new ReportTable("setting", "value", "from");

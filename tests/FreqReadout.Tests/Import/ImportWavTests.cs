@@ -130,6 +130,27 @@ public sealed class ImportWavTests : IDisposable
         Assert.Contains(ticks, t => t > 3.2e9);
     }
 
+    [Theory]
+    [InlineData(0.0)]
+    [InlineData(0.0005)]
+    public void Digital_silence_and_a_noise_floor_are_reported_as_silence(double noise)
+    {
+        // A recorder's pause: exact zeros (or a faint noise floor) for a second. Its spectrum is flat, so it must not be
+        // reported as "a second tone" (it was, before the level test took precedence).
+        double[] x = WavBuilder.Tone(700, 5, Rate, 0.01, 4, _ => 0.5);
+        var random = new Random(5);
+        for (int i = 2 * Rate; i < 3 * Rate; i++)
+        {
+            x[i] = noise * ((2 * random.NextDouble()) - 1);
+        }
+
+        var (ticks, _, error) = Import(WavBuilder.Build(new[] { x }, Rate, isFloat: true, bits: 32, extensible: false, extraChunks: false));
+        Assert.Contains(": silence (no edges taken there)", error);
+        Assert.DoesNotContain("a second tone", error);
+        Assert.True(System.Text.RegularExpressions.Regex.IsMatch(error, @"tone lost at (1\.9|2\.0)\d*-(2\.9|3\.0|3\.1)\d* s: silence"), error);
+        Assert.DoesNotContain(ticks, t => t > 2.1e9 && t < 2.9e9);
+    }
+
     [Fact]
     public void Not_a_wave_file_names_what_was_expected()
     {

@@ -183,6 +183,22 @@ public sealed class ReportPageTests : IClassFixture<SimulatedDemoCapture>
         JsonElement[] expectedDepth = expected.RootElement.GetProperty("depth").GetProperty("rows").EnumerateArray().ToArray();
         Assert.Equal(expectedDepth.Length, depth.Length);
         Assert.Equal(expected.RootElement.GetProperty("beat_gains").GetArrayLength(), ReportPageChecks.Table(doc, "what-counting-the-beat-note-gains").Rows.Length);
+
+        // Notes: every row's warning of --json once, naming its method, estimator and gate (as the console does).
+        string[] notes = doc.QuerySelectorAll("section#notes p").Select(p => p.TextContent).ToArray();
+        int rowWarnings = 0;
+        foreach (JsonElement row in expectedRows)
+        {
+            string about = $"{row.GetProperty("method").GetString()}, {row.GetProperty("estimator").GetString()}, gate {FreqReadout.Host.Commands.PlanCommand.Num(row.GetProperty("gate_s").GetDouble())} s: ";
+            foreach (JsonElement w in row.GetProperty("warnings").EnumerateArray())
+            {
+                Assert.Contains(about + w.GetString(), notes);
+                rowWarnings++;
+            }
+        }
+
+        Assert.True(rowWarnings > 0, "the case should have row warnings (pin-event and pulse-counter over or tight)");
+        Assert.Equal(rowWarnings + expected.RootElement.GetProperty("warnings").GetArrayLength(), notes.Length);
         ReportPageChecks.AssertCautions(doc);
     }
 }
