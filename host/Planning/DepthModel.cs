@@ -50,35 +50,69 @@ public sealed class DepthModel
     /// The largest |gate reading| of a pass (with its sign), Hz: the profile along the line weighted over the coil's travel
     /// in one gate (flat for the reciprocal, parabolic for the regressions); gates follow one another, and the figure is the
     /// largest reading of a pass averaged over where the gate boundaries fall against it (uniformly, one grid step apart).
-    /// A gate of no travel gives the instantaneous peak.
+    /// A gate of no travel gives the instantaneous peak. The shift is taken as 0 beyond three times the coil radius, height
+    /// and depth from the target, and every gate that overlaps that stretch reads it, however long the gate: a gate that
+    /// holds the whole pass reads its integral over the travel.
     /// </summary>
     public double GateShiftHz(double depthM, double gateS, string estimator)
     {
         double reach = 3.0 * (_coil.MeanRadiusM + _heightM + depthM);
         double travel = _speedMPerS * gateS;
         double step = 2.0 * reach / (GridPoints - 1);
-        double[] profile = new double[GridPoints];
-        for (int i = 0; i < GridPoints; i++)
-        {
-            profile[i] = ShiftHz(depthM, -reach + (i * step));
-        }
-
         int half = (int)Math.Floor(travel / (2.0 * step));
         int width = (2 * half) + 1;
-        double[] reading = new double[GridPoints];
-        for (int i = half; i < GridPoints - half; i++)
+        bool flat = estimator == PlanEstimators.Reciprocal || half == 0;
+
+        // Prefix sums of p_j, j p_j and j^2 p_j: the weights are constant or quadratic in the grid index j, so a gate's
+        // weighted sum over the grid points it covers comes from three differences, whatever its length.
+        double[] s0 = new double[GridPoints + 1];
+        double[] s1 = new double[GridPoints + 1];
+        double[] s2 = new double[GridPoints + 1];
+        for (int j = 0; j < GridPoints; j++)
         {
-            double sum = 0;
-            double weights = 0;
-            for (int k = -half; k <= half; k++)
+            double p = ShiftHz(depthM, -reach + (j * step));
+            s0[j + 1] = s0[j] + p;
+            s1[j + 1] = s1[j] + (j * p);
+            s2[j + 1] = s2[j] + ((double)j * j * p);
+        }
+
+        // The weights of one whole gate, 6 u (1 - u) at u = (k + half + 0.5) / width (a parabola's weights sum to width
+        // only in the limit; summing them keeps short gates exact).
+        double totalWeight = width;
+        if (!flat)
+        {
+            totalWeight = 0;
+            for (int k = 0; k < width; k++)
             {
-                double u = half == 0 ? 0.5 : (k + half + 0.5) / width;
-                double w = estimator == PlanEstimators.Reciprocal ? 1.0 : 6.0 * u * (1.0 - u);
-                sum += w * profile[i + k];
-                weights += w;
+                double u = (k + 0.5) / width;
+                totalWeight += 6.0 * u * (1.0 - u);
+            }
+        }
+
+        // Gate centres from -half to GridPoints - 1 + half: every gate that overlaps the stretch with a shift.
+        int positions = GridPoints + (2 * half);
+        double[] reading = new double[positions];
+        for (int n = 0; n < positions; n++)
+        {
+            int centre = n - half;
+            int from = Math.Max(0, centre - half);
+            int to = Math.Min(GridPoints - 1, centre + half);
+            double a0 = s0[to + 1] - s0[from];
+            double sum;
+            if (flat)
+            {
+                sum = a0;
+            }
+            else
+            {
+                // w_j = 6 (j - c) / W - 6 (j - c)^2 / W^2 with c = centre - half - 0.5 and W = width.
+                double a1 = s1[to + 1] - s1[from];
+                double a2 = s2[to + 1] - s2[from];
+                double c = centre - half - 0.5;
+                sum = (6.0 / width * (a1 - (c * a0))) - (6.0 / ((double)width * width) * (a2 - (2.0 * c * a1) + (c * c * a0)));
             }
 
-            reading[i] = sum / weights;
+            reading[n] = sum / totalWeight;
         }
 
         // Gates follow one another without gaps, so their centres are one gate apart; where they fall against the pass is
@@ -87,11 +121,11 @@ public sealed class DepthModel
         for (int phase = 0; phase < width; phase++)
         {
             double best = 0;
-            for (int i = half + phase; i < GridPoints - half; i += width)
+            for (int n = phase; n < positions; n += width)
             {
-                if (Math.Abs(reading[i]) > Math.Abs(best))
+                if (Math.Abs(reading[n]) > Math.Abs(best))
                 {
-                    best = reading[i];
+                    best = reading[n];
                 }
             }
 
