@@ -172,7 +172,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
                 }
 
                 IReadOnlyList<string> files = new FreqReadout.Host.Reports.PlanPlots().Write(settings.ReportDir, report);
-                string page = FreqReadout.Host.Reports.PlanReportPage.Write(settings.ReportDir, report, files);
+                string page = FreqReadout.Host.Reports.PlanReportPage.Write(settings.ReportDir, inputs, report, files);
                 CommandOutput.Diagnostic($"plan: wrote {files.Count} plot files and {Path.GetFileName(page)} into {settings.ReportDir}");
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)

@@ -13,7 +13,11 @@ namespace FreqReadout.Host.Reports;
 public static class PlanReportPage
 {
     /// <summary>Writes report.html into <paramref name="folder"/> (the plot files already there); returns its path.</summary>
-    public static string Write(string folder, PlanReport report, IReadOnlyList<string> plotFiles)
+    /// <param name="folder">The report folder.</param>
+    /// <param name="planned">The inputs the plan was made from (every one goes into the settings table).</param>
+    /// <param name="report">The plan.</param>
+    /// <param name="plotFiles">The plot files <see cref="PlanPlots.Write"/> wrote.</param>
+    public static string Write(string folder, PlanInputs planned, PlanReport report, IReadOnlyList<string> plotFiles)
     {
         bool beat = report.Signal == "beat";
         double counted = beat ? report.BeatHz : report.SearchHz;
@@ -81,13 +85,32 @@ public static class PlanReportPage
         inputs.AddRow("beat_hz", Raw(report.BeatHz), "command");
         inputs.AddRow("search_prescale", report.SearchPrescale.ToString(CultureInfo.InvariantCulture), "command");
         inputs.AddRow("beat_prescale", report.BeatPrescale.ToString(CultureInfo.InvariantCulture), "command");
-        inputs.AddRow("gates_s", string.Join(", ", report.Rows.Select(r => r.GateS).Distinct().Select(Raw)), "command");
+        inputs.AddRow("methods", string.Join(", ", planned.Methods.Select(m => m.Name)), "command");
+        foreach (TimestampPreset m in planned.Methods)
+        {
+            string from = m.Name == "custom" ? "command" : "preset, --clock-hz";
+            inputs.AddRow(m.Name + ".jitter_s", Raw(m.JitterS), from);
+            inputs.AddRow(m.Name + ".clock_hz", Raw(m.ClockHz), from);
+            inputs.AddRow(m.Name + ".read_rate_hz", Raw(m.ReadRateHz), from);
+            inputs.AddRow(m.Name + ".max_edge_rate_hz", Raw(m.MaxEdgeRateHz), from);
+        }
+
+        inputs.AddRow("gates_s", string.Join(", ", planned.GatesS.Select(Raw)), "command");
         inputs.AddRow("gate_s", Raw(report.GateS), "command");
         if (report.Depth is { } target)
         {
             inputs.AddRow("material", target.Material, "command");
             inputs.AddRow("radius_m", Raw(target.RadiusM), "command");
             inputs.AddRow("coil_diameter_m", Raw(target.CoilDiameterM), "command");
+            if (planned.Target is { } t)
+            {
+                inputs.AddRow("turns", t.Coil.Turns.ToString(CultureInfo.InvariantCulture), "command");
+                inputs.AddRow("wire_m", Raw(t.Coil.WireDiameterM), "command");
+                inputs.AddRow("inductance_h", Raw(t.InductanceH), "coil model");
+                inputs.AddRow("conductivity_s_per_m", Raw(t.Material.ConductivitySPerM), "material");
+                inputs.AddRow("mu_r", Raw(t.Material.RelativePermeability), "material");
+            }
+
             inputs.AddRow("height_m", Raw(target.HeightM), "command");
             inputs.AddRow("speed_m_per_s", Raw(target.SpeedMPerS), "command");
             inputs.AddRow("threshold_sigma", Raw(target.ThresholdSigma), "command");

@@ -183,6 +183,20 @@ public sealed class ReportPageTests : IClassFixture<SimulatedDemoCapture>
         JsonElement[] expectedDepth = expected.RootElement.GetProperty("depth").GetProperty("rows").EnumerateArray().ToArray();
         Assert.Equal(expectedDepth.Length, depth.Length);
         Assert.Equal(expected.RootElement.GetProperty("beat_gains").GetArrayLength(), ReportPageChecks.Table(doc, "what-counting-the-beat-note-gains").Rows.Length);
+        // Every input the plan was made from, defaults included: the methods with their figures, the coil and the material.
+        (_, string[][] settings) = ReportPageChecks.Table(doc, "settings-used");
+        var names = settings.Select(r => r[0]).ToHashSet();
+        Assert.Contains("methods", names);
+        foreach (JsonElement m in expected.RootElement.GetProperty("methods").EnumerateArray())
+        {
+            string row = m.GetProperty("name").GetString() + ".clock_hz";
+            Assert.Equal(m.GetProperty("clock_hz").GetDouble(), double.Parse(settings.Single(r => r[0] == row)[1], CultureInfo.InvariantCulture));
+        }
+
+        Assert.Contains("turns", names);
+        Assert.Contains("wire_m", names);
+        Assert.Contains("mu_r", names);
+        Assert.Contains("conductivity_s_per_m", names);
 
         // Notes: every row's warning of --json once, naming its method, estimator and gate (as the console does).
         string[] notes = doc.QuerySelectorAll("section#notes p").Select(p => p.TextContent).ToArray();
