@@ -52,9 +52,19 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
     public override int Execute(CommandContext context, Settings settings, CancellationToken cancellationToken)
     {
         BeatSide side = settings.BeatSide switch { "above" => BeatSide.Above, "below" => BeatSide.Below, _ => BeatSide.None };
+        if (side == BeatSide.None && settings.BeatSide != null)
+        {
+            return CommandOutput.Fail($"--beat-side must be above or below, got {Captures.TextExcerpt.Quote(settings.BeatSide)}", CommandOutput.BadOption);
+        }
+
         if (side == BeatSide.None || settings.Out == null)
         {
             return CommandOutput.Fail("import wav needs --beat-side above|below and --out CAPTURE", CommandOutput.BadOption);
+        }
+
+        if (settings.Channel is int channel && channel < 0)
+        {
+            return CommandOutput.Fail($"--channel must be 0 or more, got {channel}", CommandOutput.BadOption);
         }
 
         if (settings.SearchHz is double s && !(s > 0 && s <= CaptureMetadata.MaxSearchHz))
@@ -125,6 +135,11 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
 
             CommandOutput.Diagnostic($"import: wrote {settings.Out}: {written} rising edges of a tone between {tone.LowestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} and {tone.HighestToneHz.ToString("0.#", CultureInfo.InvariantCulture)} Hz; the recorder's clock (often tens of ppm off) limits the absolute frequency, shifts are not affected");
             return ExitCodes.Ok;
+        }
+        catch (WavFormatException e) when (e.OptionOutOfRange)
+        {
+            // A channel the recording does not have: the option is out of its range for this file (a usage problem).
+            return CommandOutput.Fail(e.Message, CommandOutput.BadOption);
         }
         catch (WavFormatException e)
         {

@@ -124,7 +124,7 @@ public sealed class WavAudio
 
         if (channel < 0 || channel >= channels)
         {
-            throw new WavFormatException($"{path}: has {channels} channel(s); --channel must be 0 to {channels - 1}");
+            throw new WavFormatException($"{path}: has {channels} channel(s); --channel must be 0 to {channels - 1}", optionOutOfRange: true);
         }
 
         long frames = dataLength / blockAlign;

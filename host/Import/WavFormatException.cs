@@ -8,4 +8,14 @@ public sealed class WavFormatException : Exception
         : base(message)
     {
     }
+
+    /// <summary>An exception about the options asked for rather than the file (a channel it does not have).</summary>
+    public WavFormatException(string message, bool optionOutOfRange)
+        : base(message)
+    {
+        OptionOutOfRange = optionOutOfRange;
+    }
+
+    /// <summary>True when an option is out of range for this file (a usage problem, exit code 2).</summary>
+    public bool OptionOutOfRange { get; }
 }

@@ -50,6 +50,26 @@ public sealed class ImportWavTests : IDisposable
         Assert.InRange(CrossingHz(ticks), hz - 0.02, hz + 0.02);
     }
 
+    [Theory]
+    [InlineData("--channel", "-1", "--channel must be 0 or more, got -1")]
+    [InlineData("--channel", "2", "has 2 channel(s); --channel must be 0 to 1")]
+    [InlineData("--beat-side", "sideways", "--beat-side must be above or below, got 'sideways'")]
+    public void An_option_out_of_its_range_is_a_usage_error_naming_it(string option, string value, string expected)
+    {
+        string wav = Path.Combine(_dir, "stereo.wav");
+        File.WriteAllBytes(wav, WavBuilder.Build(new[] { WavBuilder.Tone(500, 1, Rate, 0.01, 1), WavBuilder.Tone(900, 1, Rate, 0.01, 2) }, Rate, 16, false, false, false));
+        var args = new List<string> { "import", "wav", wav, "--out", Path.Combine(_dir, "x.csv") };
+        if (option != "--beat-side")
+        {
+            args.AddRange(new[] { "--beat-side", "above" });
+        }
+
+        args.AddRange(new[] { option, value });
+        var (exit, _, error) = ConsoleCapture.Run(args.ToArray());
+        Assert.Equal(2, exit);
+        Assert.Contains(expected, error);
+    }
+
     [Fact]
     public void The_chosen_channel_of_a_stereo_file_is_read()
     {
