@@ -43,7 +43,7 @@ public sealed class StabilityAnalysis
         var rows = new List<StabilityPoint>(ms.Count);
         for (int k = 0; k < ms.Count; k++)
         {
-            NoiseType noise = Identify(mdev, k);
+            NoiseType noise = Identify(mdev, k, ms, x.Count);
             double edf = AllanConfidence.EquivalentDegreesOfFreedom(noise, x.Count, ms[k]);
             AllanConfidence.Interval(adev[k], edf, Confidence, out double low, out double high);
             rows.Add(new StabilityPoint(ms[k] * tau0Seconds, ms[k], adev[k], low, high, mdev[k], edf, noise));
@@ -56,13 +56,22 @@ public sealed class StabilityAnalysis
     public StabilityPoint? Lowest(double maxTauSeconds = double.PositiveInfinity) =>
         Rows.Where(r => r.TauSeconds <= maxTauSeconds && !double.IsNaN(r.Adev)).OrderBy(r => r.Adev).FirstOrDefault();
 
-    private static NoiseType Identify(double[] mdev, int k)
+    /// <summary>
+    /// Spans of the longer averaging time the data must hold for its slope to name a noise type. Each deviation is
+    /// uncertain by about 1/sqrt(2 edf) relative, so the log2 slope between two octaves by about 1/(ln 2 sqrt(edf));
+    /// that stays inside the +-0.25 a type is given only while edf is over about 33, which white FM reaches at about
+    /// 1.5 N/m > 24 spans (this derivation is the project's own). With fewer, the type is unknown and the interval uses
+    /// white FM's degrees of freedom rather than a guessed type's, which for white PM would be far too many.
+    /// </summary>
+    public const int MinSpansToIdentify = 24;
+
+    private static NoiseType Identify(double[] mdev, int k, List<int> ms, int points)
     {
         // Slope over the octave to the next point (the last point looks back). At m = 1 the modified deviation equals
         // the Allan deviation, and its ratio to it settles only from m = 2 on: the first point takes the next octave's.
         int a = k + 1 < mdev.Length ? Math.Max(k, 1) : k - 1;
         int b = a + 1;
-        if (a < 0 || b >= mdev.Length || !(mdev[a] > 0) || !(mdev[b] > 0))
+        if (a < 0 || b >= mdev.Length || !(mdev[a] > 0) || !(mdev[b] > 0) || points / ms[b] < MinSpansToIdentify)
         {
             return NoiseType.Unknown;
         }
