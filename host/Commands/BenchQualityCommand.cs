@@ -41,7 +41,7 @@ public sealed class BenchQualityCommand : Command<BenchQualityCommand.Settings>
         public bool Markdown { get; set; }
 
         [CommandOption("--save-json <FILE>")]
-        [Description("Also write the --json object to FILE (whatever is printed).")]
+        [Description("Also write the --json object to FILE (whatever is printed). Default: none.")]
         public string? SaveJson { get; set; }
 
         [CommandOption("--quiet")]

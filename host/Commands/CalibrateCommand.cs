@@ -36,7 +36,7 @@ public sealed class CalibrateCommand : Command<CalibrateCommand.Settings>
     public sealed class Settings : ReadoutCommandSettings
     {
         [CommandOption("--settings-out <FILE>")]
-        [Description("Also write a device settings file (docs/settings-format.md) with the fitted tempco and the capture's signal, beat side and search frequency, the gate and threshold as given here, every other key at its default; send it with `record --send-settings FILE`.")]
+        [Description("Also write a device settings file (docs/settings-format.md) with the fitted tempco and the capture's signal, beat side and search frequency, the gate and threshold as given here, every other key at its default; send it with `record --send-settings FILE`. Default: none.")]
         [FilePath]
         public string? SettingsOut { get; set; }
     }

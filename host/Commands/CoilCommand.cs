@@ -16,7 +16,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--scene <FILE>")]
-        [Description("Take coil and oscillator from a scene file (docs/scene-format.md; options below override).")]
+        [Description("Take coil and oscillator from a scene file (docs/scene-format.md; options below override). Default: none, the coil and frequency of the options below.")]
         [FilePath]
         public string? Scene { get; set; }
 
@@ -49,11 +49,11 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         public double? FrequencyHz { get; set; }
 
         [CommandOption("--capacitance-nf <NF>")]
-        [Description("Tuning capacitance, nF, (0.001, 1e6]] (the frequency follows).")]
+        [Description("Tuning capacitance, nF, (0.001, 1e6]] (the frequency follows). Default: none, the capacitance follows the frequency.")]
         public double? CapacitanceNf { get; set; }
 
         [CommandOption("--material <NAME>")]
-        [Description("Target material: silver, copper, aluminium, brass, cupronickel, stainless, carbon_steel or custom.")]
+        [Description("Target material: silver, copper, aluminium, brass, cupronickel, stainless, carbon_steel or custom. Default: none, the coil figures only.")]
         public string? Material { get; set; }
 
         [CommandOption("--radius-mm <MM>")]
@@ -65,7 +65,7 @@ public sealed class CoilCommand : Command<CoilCommand.Settings>
         public double? MuR { get; set; }
 
         [CommandOption("--conductivity <S_PER_M>")]
-        [Description("Conductivity, S/m, (0, 1e9]] (required for custom; overrides a preset).")]
+        [Description("Conductivity, S/m, (0, 1e9]] (required for custom; overrides a preset). Default: the material's.")]
         public double? Conductivity { get; set; }
 
         [CommandOption("--depths-mm <LIST>")]

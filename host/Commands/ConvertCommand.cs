@@ -39,11 +39,11 @@ public sealed class ConvertCommand : Command<ConvertCommand.Settings>
         public string? To { get; set; }
 
         [CommandOption("--from-s <SECONDS>")]
-        [Description("Keep rows from this time on, seconds from the first row, [[0, 1e9]].")]
+        [Description("Keep rows from this time on, seconds from the first row, [[0, 1e9]]. Default: from the first row.")]
         public string? FromSeconds { get; set; }
 
         [CommandOption("--to-s <SECONDS>")]
-        [Description("Keep rows up to this time, seconds from the first row, (--from-s, 1e9]].")]
+        [Description("Keep rows up to this time, seconds from the first row, (--from-s, 1e9]]. Default: to the last row.")]
         public string? ToSeconds { get; set; }
 
         [CommandOption("--salvage")]

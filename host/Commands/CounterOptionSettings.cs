@@ -19,7 +19,7 @@ public class CounterOptionSettings : CommandSettings
     public string? GateSeconds { get; set; }
 
     [CommandOption("--gate-edges <N>")]
-    [Description("Edge gate: a gate closes after N recorded intervals, an integer in [[1, 1048576]]. Instead of --gate-seconds.")]
+    [Description("Edge gate: a gate closes after N recorded intervals, an integer in [[1, 1048576]]. Instead of --gate-seconds. Default: none, time gates.")]
     public string? GateEdges { get; set; }
 
     [CommandOption("--estimator <NAME>")]

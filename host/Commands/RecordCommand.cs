@@ -22,7 +22,7 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--port <DEV>")]
-        [Description("Serial port of the device: /dev/ttyUSB0, /dev/ttyACM0 (Linux), COM3 (Windows)... `--list` lists them.")]
+        [Description("Serial port of the device: /dev/ttyUSB0, /dev/ttyACM0 (Linux), COM3 (Windows)... `--list` lists them. Required (but for --list).")]
         public string? Port { get; set; }
 
         [CommandOption("--baud <N>")]
@@ -30,7 +30,7 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
         public int? Baud { get; set; }
 
         [CommandOption("--out <CAPTURE>")]
-        [Description("Capture to write (text format). Written in place as rows arrive; an existing file is refused. After a device reset the next capture is CAPTURE-2, -3... beside it.")]
+        [Description("Capture to write (text format). Written in place as rows arrive; an existing file is refused. After a device reset the next capture is CAPTURE-2, -3... beside it. Required unless --send-settings only sends settings.")]
         [FilePath]
         public string? Out { get; set; }
 
@@ -43,7 +43,7 @@ public sealed class RecordCommand : Command<RecordCommand.Settings>
         public double? Seconds { get; set; }
 
         [CommandOption("--send-settings <FILE>")]
-        [Description("Send this settings file (docs/settings-format.md) to the device first and show the status frame that confirms it; without --out, only that.")]
+        [Description("Send this settings file (docs/settings-format.md) to the device first and show the status frame that confirms it; without --out, only that. Default: none, the device keeps its settings.")]
         [FilePath]
         public string? SendSettings { get; set; }
 

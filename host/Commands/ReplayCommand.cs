@@ -32,7 +32,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
     public sealed class Settings : ReadoutCommandSettings
     {
         [CommandOption("--readings <FILE>")]
-        [Description("Also write the gate-by-gate readings as CSV, ending with error_hz (the gate's predicted error), scatter_hz (the measured scatter of consecutive gates) and inferred_edges; an existing file is replaced only when the replay succeeds, never the capture itself.")]
+        [Description("Also write the gate-by-gate readings as CSV, ending with error_hz (the gate's predicted error), scatter_hz (the measured scatter of consecutive gates) and inferred_edges; an existing file is replaced only when the replay succeeds, never the capture itself. Default: none.")]
         [FilePath]
         public string? ReadingsFile { get; set; }
 
@@ -42,7 +42,7 @@ public sealed class ReplayCommand : Command<ReplayCommand.Settings>
         public string? ReportDir { get; set; }
 
         [CommandOption("--events <FILE>")]
-        [Description("Also write the events as CSV (replaced only when the replay succeeds; never the capture or the --readings file).")]
+        [Description("Also write the events as CSV (replaced only when the replay succeeds; never the capture or the --readings file). Default: none.")]
         [FilePath]
         public string? EventsFile { get; set; }
 

@@ -16,7 +16,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
     public sealed class Settings : CommandSettings
     {
         [CommandOption("--scene <FILE>")]
-        [Description("Scene file (JSON; format in docs/scene-format.md, examples in host/Scenes/).")]
+        [Description("Scene file (JSON; format in docs/scene-format.md, examples in host/Scenes/). Required unless --demo.")]
         [FilePath]
         public string? Scene { get; set; }
 
@@ -25,7 +25,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public bool Demo { get; set; }
 
         [CommandOption("--out <FILE>")]
-        [Description("Capture file to write (an existing file is replaced only when the whole run succeeds). A long run states its expected size and time first, and is refused when it would not fit in the free space of the folder.")]
+        [Description("Capture file to write (an existing file is replaced only when the whole run succeeds). A long run states its expected size and time first, and is refused when it would not fit in the free space of the folder. Required unless --save-scene.")]
         [FilePath]
         public string? Out { get; set; }
 
@@ -35,7 +35,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public string? Truth { get; set; }
 
         [CommandOption("--seed <N>")]
-        [Description("Random seed, any whole number from -9223372036854775808 to 9223372036854775807 (overrides the scene's). Same seed, same capture.")]
+        [Description("Random seed, any whole number from -9223372036854775808 to 9223372036854775807 (overrides the scene's). Same seed, same capture. Default: the scene's seed.")]
         public long? Seed { get; set; }
 
         [CommandOption("--format <FORMAT>")]
@@ -43,7 +43,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public string Format { get; set; } = "text";
 
         [CommandOption("--kind <KIND>")]
-        [Description("edges or snapshots (overrides the scene's hardware.kind; snapshots force prescale 1).")]
+        [Description("edges or snapshots (overrides the scene's hardware.kind; snapshots force prescale 1). Default: the scene's.")]
         public string? Kind { get; set; }
 
         [CommandOption("--duration-s <S>")]
@@ -51,7 +51,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public double? DurationS { get; set; }
 
         [CommandOption("--mains-ppm <PPM>")]
-        [Description("Mains pickup: peak frequency deviation of the search oscillator, ppm, [[0, 10000]] (overrides the scene's mains.deviation_ppm).")]
+        [Description("Mains pickup: peak frequency deviation of the search oscillator, ppm, [[0, 10000]] (overrides the scene's mains.deviation_ppm). Default: the scene's.")]
         public double? MainsPpm { get; set; }
 
         [CommandOption("--mains-hz <HZ>")]
@@ -59,7 +59,7 @@ public sealed class SimulateCommand : Command<SimulateCommand.Settings>
         public double? MainsHz { get; set; }
 
         [CommandOption("--save-scene <FILE>")]
-        [Description("Also write the effective scene (after overrides) as JSON; with no --out, only that.")]
+        [Description("Also write the effective scene (after overrides) as JSON; with no --out, only that. Default: none.")]
         [FilePath]
         public string? SaveScene { get; set; }
 

@@ -28,20 +28,20 @@ public sealed class TuneCommand : Command<TuneCommand.Settings>
     public sealed class Settings : ReadoutCommandSettings
     {
         [CommandOption("--vary <KEY=FROM:TO:STEP>")]
-        [Description("The setting to vary and its range, e.g. threshold_sigma=4:10:0.5; KEY is threshold_sigma, hysteresis_sigma, min_duration_s, release_s, persistent_shift_s, unclear_band_sigma, lock_check_s or gate_s; at most 200 values.")]
+        [Description("The setting to vary and its range, e.g. threshold_sigma=4:10:0.5; KEY is threshold_sigma, hysteresis_sigma, min_duration_s, release_s, persistent_shift_s, unclear_band_sigma, lock_check_s or gate_s; at most 200 values. Required.")]
         public string? Vary { get; set; }
 
         [CommandOption("--truth <FILE>")]
-        [Description("A simulation's truth file (simulate --truth): each value is also scored: passes found, classed right, false events (matched as demo matches them).")]
+        [Description("A simulation's truth file (simulate --truth): each value is also scored: passes found, classed right, false events (matched as demo matches them). Default: none, no scores.")]
         [FilePath]
         public string? Truth { get; set; }
 
         [CommandOption("--pick <VALUE>")]
-        [Description("With --settings-out: the value to write (one of the varied values).")]
+        [Description("With --settings-out: the value to write (one of the varied values). Required with --settings-out.")]
         public double? Pick { get; set; }
 
         [CommandOption("--settings-out <FILE>")]
-        [Description("Write a device settings file (docs/settings-format.md) with the picked value and the other options as given; for record --send-settings.")]
+        [Description("Write a device settings file (docs/settings-format.md) with the picked value and the other options as given; for record --send-settings. Default: none.")]
         [FilePath]
         public string? SettingsOut { get; set; }
     }

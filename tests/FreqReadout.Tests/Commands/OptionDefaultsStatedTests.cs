@@ -6,19 +6,27 @@ using Spectre.Console.Cli;
 namespace FreqReadout.Tests.Commands;
 
 /// <summary>
-/// The project's CLI convention: every value option's description states its default ("Default ...", or "Required." for
-/// an option the command cannot run without). Checked on the newest commands' settings (plan, import vcd, import wav,
-/// bench speed); older commands still have options without it (see the review notes).
+/// The project's CLI convention: every value option's description states its default ("Default ...", or "Required" (with when) for
+/// an option the command cannot run without), on every command's settings in the program.
 /// </summary>
 public class OptionDefaultsStatedTests
 {
-    [Theory]
-    [InlineData(typeof(PlanCommand.Settings))]
-    [InlineData(typeof(ImportVcdCommand.Settings))]
-    [InlineData(typeof(ImportWavCommand.Settings))]
-    [InlineData(typeof(BenchSpeedCommand.Settings))]
-    public void Every_value_option_states_its_default_or_that_it_is_required(Type settings)
+    public static TheoryData<string> AllSettings()
     {
+        var data = new TheoryData<string>();
+        foreach (Type t in typeof(PlanCommand).Assembly.GetTypes().Where(t => typeof(CommandSettings).IsAssignableFrom(t) && !t.IsAbstract))
+        {
+            data.Add(t.FullName!);
+        }
+
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(AllSettings))]
+    public void Every_value_option_states_its_default_or_that_it_is_required(string settingsType)
+    {
+        Type settings = typeof(PlanCommand).Assembly.GetType(settingsType)!;
         var missing = new List<string>();
         foreach (PropertyInfo p in settings.GetProperties())
         {
@@ -29,12 +37,12 @@ public class OptionDefaultsStatedTests
             }
 
             string description = p.GetCustomAttribute<DescriptionAttribute>()?.Description ?? string.Empty;
-            if (!description.Contains("default", StringComparison.OrdinalIgnoreCase) && !description.Contains("Required.", StringComparison.Ordinal))
+            if (!description.Contains("default", StringComparison.OrdinalIgnoreCase) && !description.Contains("Required", StringComparison.Ordinal))
             {
                 missing.Add(string.Join("/", option.LongNames));
             }
         }
 
-        Assert.True(missing.Count == 0, "no default stated: --" + string.Join(", --", missing));
+        Assert.True(missing.Count == 0, settings.FullName + ": no default stated: --" + string.Join(", --", missing));
     }
 }
