@@ -187,8 +187,7 @@ public sealed class SpeedBench
     public static string Json(IReadOnlyList<SpeedCaseResult> results, SpeedBenchSize size, long textBytes)
     {
         double raw = results.First(r => r.Case.Arguments[0] == RawRead.Argument).MedianSeconds;
-        using var stream = new MemoryStream();
-        using (var w = new System.Text.Json.Utf8JsonWriter(stream, Commands.ReplayCommand.JsonOptions))
+        return Commands.JsonValues.Document(w =>
         {
             w.WriteStartObject();
             w.WriteNumber("edges", size.Edges);
@@ -216,8 +215,6 @@ public sealed class SpeedBench
 
             w.WriteEndArray();
             w.WriteEndObject();
-        }
-
-        return Encoding.UTF8.GetString(stream.ToArray());
+        });
     }
 }

@@ -117,8 +117,7 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
     /// <summary>The summary of <c>--json</c> (docs/json-output.md, keys: import vcd).</summary>
     private static string ToJson(Settings settings, VcdEdgeReader reader, long edges, long sameStamp)
     {
-        using var stream = new MemoryStream();
-        using (var w = new System.Text.Json.Utf8JsonWriter(stream, ReplayCommand.JsonOptions))
+        return JsonValues.Document(w =>
         {
             w.WriteStartObject();
             w.WriteString("input", settings.Input);
@@ -138,8 +137,6 @@ public sealed class ImportVcdCommand : Command<ImportVcdCommand.Settings>
             w.WriteNumber("edges", edges);
             w.WriteNumber("same_stamp_dropped", sameStamp);
             w.WriteEndObject();
-        }
-
-        return System.Text.Encoding.UTF8.GetString(stream.ToArray());
+        });
     }
 }

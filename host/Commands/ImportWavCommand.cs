@@ -158,8 +158,7 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
     /// <summary>The summary of <c>--json</c> (docs/json-output.md, keys: import wav).</summary>
     private static string ToJson(Settings settings, WavAudio audio, ToneEdges tone, long written)
     {
-        using var stream = new MemoryStream();
-        using (var w = new System.Text.Json.Utf8JsonWriter(stream, ReplayCommand.JsonOptions))
+        return JsonValues.Document(w =>
         {
             w.WriteStartObject();
             w.WriteString("input", settings.Input);
@@ -184,8 +183,6 @@ public sealed class ImportWavCommand : Command<ImportWavCommand.Settings>
 
             w.WriteEndArray();
             w.WriteEndObject();
-        }
-
-        return System.Text.Encoding.UTF8.GetString(stream.ToArray());
+        });
     }
 }

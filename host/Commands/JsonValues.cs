@@ -17,4 +17,19 @@ public static class JsonValues
             json.WriteNull(name);
         }
     }
+
+    /// <summary>
+    /// One JSON document as text: <paramref name="body"/> writes it (with the options replay uses: no escaping of
+    /// non-ASCII text), the writer is flushed and its UTF-8 bytes decoded.
+    /// </summary>
+    internal static string Document(Action<Utf8JsonWriter> body)
+    {
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, ReplayCommand.JsonOptions))
+        {
+            body(w);
+        }
+
+        return System.Text.Encoding.UTF8.GetString(stream.ToArray());
+    }
 }
