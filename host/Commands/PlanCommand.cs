@@ -433,6 +433,15 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
         };
     }
 
+    /// <summary>The rows of a shared table into a console table of the same columns (text escaped for markup).</summary>
+    private static void AddRows(Table table, FreqReadout.Host.Reports.ReportTable rows)
+    {
+        foreach (IReadOnlyList<string> row in rows.Rows)
+        {
+            table.AddRow(row.Select(Markup.Escape).ToArray());
+        }
+    }
+
     private static void Print(PlanReport r)
     {
         var console = CommandOutput.Stdout();
@@ -505,10 +514,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
             .AddColumn(new TableColumn("search Hz").RightAligned())
             .AddColumn(new TableColumn("beat Hz").RightAligned())
             .AddColumn(new TableColumn("gain x").RightAligned());
-        foreach (BeatGainRow g in r.BeatGains)
-        {
-            gains.AddRow(Markup.Escape(g.Method), g.Estimator, Num(g.SearchResolutionHz), Num(g.BeatResolutionHz), Num(g.Gain));
-        }
+        AddRows(gains, FreqReadout.Host.Reports.PlanTables.BeatGains(r));
 
         console.Write(gains);
         foreach (string w in r.Warnings)
@@ -530,16 +536,7 @@ public sealed class PlanCommand : Command<PlanCommand.Settings>
             .AddColumn(new TableColumn("threshold Hz").RightAligned())
             .AddColumn(new TableColumn("depth mm").RightAligned())
             .AddColumn(new TableColumn("pass s").RightAligned());
-        foreach (DepthRow row in d.Rows)
-        {
-            depth.AddRow(
-                Markup.Escape(row.Method),
-                row.Estimator,
-                Num(row.NoiseHz),
-                Num(row.ThresholdHz),
-                row.DepthM is double m ? (row.BeyondRange ? ">" : "") + (m * 1000).ToString("0", ci) + (row.Smeared ? "*" : "") : "none",
-                row.PassS is double p ? Num(p) : "-");
-        }
+        AddRows(depth, FreqReadout.Host.Reports.PlanTables.Depth(d));
 
         console.Write(depth);
         if (d.Rows.Exists(x => x.Smeared))

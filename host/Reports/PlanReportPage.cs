@@ -52,26 +52,12 @@ public static class PlanReportPage
                 : "Predicted resolution (standard deviation of a gate's frequency), Hz, against gate time, s, per method and estimator; both axes in decades.");
         }
 
-        var gains = new ReportTable("method", "estimator", "search Hz", "beat Hz", "gain x");
-        foreach (BeatGainRow g in report.BeatGains)
-        {
-            gains.AddRow(g.Method, g.Estimator, Num(g.SearchResolutionHz), Num(g.BeatResolutionHz), Num(g.Gain));
-        }
-
-        page.AddTable("What counting the beat note gains", gains,
+        page.AddTable("What counting the beat note gains", PlanTables.BeatGains(report),
             Text($"Resolution at a {report.GateS:G3} s gate: beat note ({report.BeatHz:G6} Hz, /{report.BeatPrescale}) against the search oscillator ({report.SearchHz:G6} Hz, /{report.SearchPrescale}). The beat note also carries the reference oscillator's drift, its sign depends on the tuning side, and near zero beat the two oscillators pull or lock together."));
 
         if (report.Depth is { } d)
         {
-            var depth = new ReportTable("method", "estimator", "noise Hz", "threshold Hz", "depth mm", "pass s");
-            foreach (DepthRow row in d.Rows)
-            {
-                depth.AddRow(row.Method, row.Estimator, Num(row.NoiseHz), Num(row.ThresholdHz),
-                    row.DepthM is double m ? (row.BeyondRange ? ">" : string.Empty) + (m * 1000).ToString("0", CultureInfo.InvariantCulture) + (row.Smeared ? "*" : string.Empty) : "none",
-                    row.PassS is double p ? Num(p) : "-");
-            }
-
-            page.AddTable("How deep this target is seen", depth,
+            page.AddTable("How deep this target is seen", PlanTables.Depth(d),
                 Text($"A {d.Material} sphere of radius {d.RadiusM * 1000:0.#} mm ({d.SignRuleClass} by the sign rule) passed straight under a {d.CoilDiameterM * 1000:0} mm coil {d.HeightM * 1000:0} mm above the surface at {d.SpeedMPerS:G3} m/s, seen where the largest gate reading of a pass ({d.GateS:G3} s gates) reaches {d.ThresholdSigma:G3} x the gate noise. none: not seen even 1.5 radii down; >: still seen at the deepest depth modelled; *: the gate is longer than half the pass, so the peak is smeared. A model, not a promise: soil, orientation and shape change it."));
         }
 
