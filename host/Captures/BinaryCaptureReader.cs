@@ -309,8 +309,22 @@ public sealed class BinaryCaptureReader : ICaptureBatchReader
             ulong count = _blockCount;
             ulong countStep = _blockCountStep;
             ulong tickMask = _tickMask;
+            bool bare = !_snapshots && !_hasFlags && !checkOrder;
             while (_blockRow < _blockRows && !batch.IsFull)
             {
+                if (bare)
+                {
+                    // The common case: an edge capture's rows, each a one-byte tick varint (a second difference of
+                    // -64 to 63 ticks), written straight into the batch; a longer varint takes the general steps below.
+                    int taken = DecodeOneByteRows(batch, ref pos, ref tick, ref tickStep, count);
+                    if (taken > 0)
+                    {
+                        _blockRow += (ulong)taken;
+                        _rowsRead += taken;
+                        continue;
+                    }
+                }
+
                 ulong i = _blockRow;
                 if (!BinaryCaptureFormat.TryReadUVarint(data, ref pos, out ulong tickDelta))
                 {
@@ -402,6 +416,61 @@ public sealed class BinaryCaptureReader : ICaptureBatchReader
             _blockCount = count;
             _blockCountStep = countStep;
         }
+    }
+
+    /// <summary>
+    /// The bare rows of the current block from <paramref name="pos"/> on whose tick varint is one byte (below 0x80),
+    /// decoded as the general steps of <see cref="FillBatch"/> decode them (zigzag second difference, masked sums),
+    /// into the batch's arrays, stopping at the first longer varint, the end of the block's rows or of its bytes, or a
+    /// full batch. Returns the rows taken (0 when the first is not such a row).
+    /// </summary>
+    private int DecodeOneByteRows(CaptureRowBatch batch, ref int pos, ref ulong tick, ref ulong tickStep, ulong count)
+    {
+        int start = batch.Count;
+        ulong rowsLeft = _blockRows - _blockRow;
+        int room = batch.Capacity - start;
+        int n = rowsLeft < (ulong)room ? (int)rowsLeft : room;
+        n = Math.Min(n, _blockLength - pos);
+        if (n <= 0)
+        {
+            return 0;
+        }
+
+        byte[] data = _buffer;
+        ulong[] ticks = batch.Ticks;
+        ulong[] counts = batch.Counts;
+        long[] lines = batch.LineNumbers;
+        ulong mask = _tickMask;
+        ulong t = tick;
+        ulong step = tickStep;
+        long line = _rowsRead;
+        int p = pos;
+        int k = 0;
+        while (k < n)
+        {
+            uint b = data[p + k];
+            if (b >= 0x80)
+            {
+                break;
+            }
+
+            step = (step + (ulong)(long)((int)(b >> 1) ^ -(int)(b & 1))) & mask;
+            t = (t + step) & mask;
+            ticks[start + k] = t;
+            counts[start + k] = count;
+            lines[start + k] = ++line;
+            k++;
+        }
+
+        if (k > 0)
+        {
+            pos = p + k;
+            tick = t;
+            tickStep = step;
+            batch.CommitBareRows(start + k);
+        }
+
+        return k;
     }
 
     private void ReadEnd(int length)
