@@ -78,6 +78,29 @@ public sealed class DigitRowsTests
     }
 
     [Fact]
+    public void LongRowsGiveTheSameValueByVectorAndByWords()
+    {
+        // 9-15 digits: the vector steps (where the processor has them) and the two 64-bit words both equal
+        // ulong.Parse (the .NET library's parser, the reference), whatever follows the digits.
+        var random = new Random(9151);
+        for (int n = 0; n < 100_000; n++)
+        {
+            int digits = random.Next(9, 16);
+            byte[] bytes = new byte[24];
+            random.NextBytes(bytes);
+            for (int i = 0; i < digits; i++)
+            {
+                bytes[i] = (byte)('0' + random.Next(10));
+            }
+
+            bytes[digits] = (byte)'\n';
+            ulong expected = ulong.Parse(Encoding.ASCII.GetString(bytes, 0, digits), NumberStyles.None, CultureInfo.InvariantCulture);
+            Assert.Equal(expected, DigitRows.LongRowValue(bytes, 0, digits, vector: true));
+            Assert.Equal(expected, DigitRows.LongRowValue(bytes, 0, digits, vector: false));
+        }
+    }
+
+    [Fact]
     public void NearTheBufferEndTakesTheDigitLoopWithoutReadingPastIt()
     {
         byte[] bytes = Encoding.ASCII.GetBytes("123456\n");
