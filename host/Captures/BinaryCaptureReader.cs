@@ -454,7 +454,7 @@ public sealed class BinaryCaptureReader : ICaptureBatchReader
                 break;
             }
 
-            step = (step + (ulong)(long)((int)(b >> 1) ^ -(int)(b & 1))) & mask;
+            step = (step + (ulong)BinaryCaptureFormat.UnZigZag(b)) & mask;
             t = (t + step) & mask;
             ticks[start + k] = t;
             counts[start + k] = count;

@@ -8,10 +8,11 @@ namespace FreqReadout.Host.Captures;
 
 /// <summary>
 /// The text reader's fast path for one digits-only row: 1 to 19 ASCII digits, then "\n" or "\r\n". Rows of up to 15
-/// digits are read without a loop per digit: one 16-byte vector comparison finds the row's length, and the digits are
-/// combined eight at a time in a 64-bit word (three multiply-and-shift steps, "SWAR"; the method of D. Lemire,
-/// "Faster integer parsing", 2018, as fast_float's <c>parse_eight_digits_unrolled</c> uses it — from memory). Longer
-/// rows take the digit loop. Anything else is left to the line parser.
+/// digits are read without a loop per digit: one 16-byte vector comparison finds the row's length; up to 8 digits are
+/// combined in a 64-bit word (three multiply-and-shift steps, "SWAR"; the method of D. Lemire, "Faster integer
+/// parsing", 2018, as fast_float's <c>parse_eight_digits_unrolled</c> uses it — from memory), 9 to 15 with SSE where
+/// the processor has it (<see cref="Sixteen"/>), else as two such words. Longer rows take the digit loop. Anything else
+/// is left to the line parser.
 /// </summary>
 internal static class DigitRows
 {
@@ -170,15 +171,17 @@ internal static class DigitRows
     [MethodImpl(MethodImplOptions.AggressiveInlining)] // per row in the loops above; not inlined on its own (a profile showed it)
     private static ulong Value(ref byte at, int digits)
     {
-        ulong first = Unsafe.ReadUnaligned<ulong>(ref at) - Zeros;
         if (digits <= 8)
         {
             // Bytes past the row (and any borrow from them) move out of the word; zeros come in as leading digits.
-            return Eight(first << (8 * (8 - digits)));
+            return Eight((Unsafe.ReadUnaligned<ulong>(ref at) - Zeros) << (8 * (8 - digits)));
         }
 
-        return Ssse3.IsSupported && Sse41.IsSupported ? Sixteen(ref at, digits) : TwoEights(ref at, digits);
+        return VectorDigits ? Sixteen(ref at, digits) : TwoEights(ref at, digits);
     }
+
+    /// <summary>True when the processor has the SSE steps of <see cref="Sixteen"/> (SSSE3 and SSE4.1).</summary>
+    private static bool VectorDigits => Ssse3.IsSupported && Sse41.IsSupported;
 
     /// <summary>
     /// The value of <paramref name="digits"/> (9-15) digits at <paramref name="start"/> by the vector steps
@@ -191,7 +194,7 @@ internal static class DigitRows
         ArgumentOutOfRangeException.ThrowIfGreaterThan(digits, 15);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(start, bytes.Length - 16);
         ref byte at = ref bytes[start];
-        return vector && Ssse3.IsSupported && Sse41.IsSupported ? Sixteen(ref at, digits) : TwoEights(ref at, digits);
+        return vector && VectorDigits ? Sixteen(ref at, digits) : TwoEights(ref at, digits);
     }
 
     /// <summary>9 to 15 digits as two 64-bit words of eight digits (the second shifted so that only its digits count).</summary>
@@ -204,10 +207,10 @@ internal static class DigitRows
     }
 
     /// <summary>
-    /// The value of 9 to 16 digits at <paramref name="at"/> with SSE: the digits moved to the right end of a 16-byte
+    /// The value of 9 to 15 digits at <paramref name="at"/> with SSE (16 bytes from it are read): the digits moved to the right end of a 16-byte
     /// vector (zeros in front), then combined pairwise in three multiply-add steps (pairs, groups of four, groups of
     /// eight) and the two groups of eight joined: one pass for both halves where <see cref="Eight"/> takes two
-    /// (the SIMD digit parsing of W. Mula and D. Lemire, from memory; checked against the digit loop by the tests).
+    /// (the SIMD digit parsing of W. Mula and D. Lemire, from memory; the tests check it against ulong.Parse).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static ulong Sixteen(ref byte at, int digits)
